@@ -1,0 +1,44 @@
+// SPDX-License-Identifier: MIT
+// Ageing of one year of operation, as Palmgren-Miner damage (end of life at damage 1).
+//
+//   cycle damage    = sum over rainflow cycles of the SOC trace (ASTM E1049-85) of
+//                     count x a(T_cycle) / N(depth), N from the cycle-life curve, a(T) the
+//                     temperature acceleration averaged over the hours the cycle spans;
+//   calendar damage = sum over hours of a(T_h) / (calendar_life_years x 8760);
+//   partial-charge  = excess days without full charge x damage_per_extra_day.
+// Capacity fades linearly with accumulated damage D from 1 to eol_capacity_fraction:
+//   health = 1 - (1 - eol_capacity_fraction) x D.
+#pragma once
+
+#include <vector>
+
+#include "model/chemistry_profile.h"
+#include "model/rainflow.h"
+
+namespace stowage {
+
+struct YearDamage {
+  double cycle = 0;
+  double calendar = 0;
+  double partial_charge = 0;
+  double total() const { return cycle + calendar + partial_charge; }
+};
+
+// Per-hour temperature acceleration of a profile at a site, with prefix sums, computed once
+// per (profile, site) and shared by every year and design.
+struct AccelerationSeries {
+  std::vector<double> per_hour;   // a(T_h), 8760 values
+  std::vector<double> prefix;     // prefix[i] = sum of per_hour[0..i), 8761 values
+  double calendar_damage_per_year = 0;  // sum per_hour / (calendar_life_years x 8760)
+};
+AccelerationSeries acceleration_series(const ChemistryProfile& profile,
+                                       const std::vector<double>& temp_c);
+
+// `soc_trace` has 8761 points (start of year and after each hour, as from dispatch_year).
+YearDamage year_damage(const ChemistryProfile& profile, const AccelerationSeries& acceleration,
+                       const std::vector<double>& soc_trace, double partial_charge_excess_days,
+                       RainflowScratch& scratch);
+
+double health_from_damage(const ChemistryProfile& profile, double damage);
+
+}  // namespace stowage

@@ -1,0 +1,121 @@
+// SPDX-License-Identifier: MIT
+// Exact lifecycle evaluation of one bank design (profile, DoD setpoint, strings in parallel) at
+// a site over the project life: year-by-year dispatch with the capacity of that year, ageing,
+// replacements, cash flows, net present cost and LCOS.
+//
+// Conventions (docs/method.md gives the derivation and sources):
+// - Year 0: investment I0 = capital_per_kwh x nameplate + capital_per_string x strings
+//   + installation_fixed. Years 1..N: operating flows, each discounted at the end of its year.
+// - Each year runs with the health reached at the start of that year. When accumulated damage
+//   reaches 1 (or the bank reaches max_service_years) at the end of year y < N, the bank is
+//   replaced at the end of year y at I0 x replacement_share x (1 - price_decline)^y, plus the
+//   end-of-life cost of the old bank; the new bank starts full and undamaged.
+// - End of life of the bank in service at project end: discounted at N + 1 (Schmidt et al.
+//   2019). Residual value: the price paid for that bank x remaining life fraction
+//   (1 - max(D, age / max_service_years)), credited at N.
+// - LCOS (Schmidt, Melchior, Hawkes & Staffell 2019, Joule 3:81-100) = present value of the
+//   storage costs (investment, replacements, O&M, charging energy, end of life, minus residual)
+//   / present value of the energy discharged at the bank terminals.
+// - NPC = storage costs + back-up energy + unserved-energy penalty (present values): the
+//   lifecycle cost of serving the site, which the optimiser minimises.
+#pragma once
+
+#include <string>
+#include <vector>
+
+#include "model/ageing.h"
+#include "model/bank.h"
+#include "model/chemistry_profile.h"
+#include "model/dispatch.h"
+#include "model/economics.h"
+#include "model/site.h"
+
+namespace stowage {
+
+// Present values, in currency; residual_value is <= 0 (a credit).
+struct CostBreakdown {
+  double investment = 0;
+  double replacements = 0;
+  double fixed_om = 0;
+  double variable_om = 0;
+  double charging = 0;
+  double backup = 0;
+  double unserved_penalty = 0;
+  double end_of_life = 0;
+  double residual_value = 0;
+
+  double storage_total() const {
+    return investment + replacements + fixed_om + variable_om + charging + end_of_life +
+           residual_value;
+  }
+  double total() const { return storage_total() + backup + unserved_penalty; }
+};
+
+// One row per project year 1..N (nominal amounts in that year's real currency, undiscounted),
+// plus the year-0 investment and the year N+1 end-of-life flow in the result.
+struct YearRecord {
+  int year = 0;
+  double health_start = 1;       // capacity fraction during the year
+  double damage_cycle = 0, damage_calendar = 0, damage_partial_charge = 0;
+  double damage_end = 0;         // accumulated damage of the bank in service at year end
+  bool replaced_at_end = false;
+  YearDispatch dispatch;
+  double fixed_om = 0, variable_om = 0, charging = 0, backup = 0, unserved_penalty = 0;
+  double replacement = 0, end_of_life = 0, residual_value = 0;
+  double total() const {
+    return fixed_om + variable_om + charging + backup + unserved_penalty + replacement +
+           end_of_life + residual_value;
+  }
+  double discount_factor = 1;    // P/F at the end of this year
+};
+
+struct DesignResult {
+  std::string profile_id;
+  double dod_setpoint = 0;
+  BankGeometry bank;
+  std::string currency;
+  std::vector<int> replacement_years;
+  std::vector<YearRecord> years;
+  double investment = 0;              // year 0
+  double final_end_of_life = 0;       // year N + 1, undiscounted
+  CostBreakdown present_value;
+  double npc = 0;
+  double lcos_per_kwh = 0;
+  double discounted_discharged_kwh = 0;
+  double unserved_fraction_max = 0;   // worst year unserved / demand
+  bool meets_unserved_limit = true;
+
+  // First-year figures quoted in reports.
+  double discharged_kwh_first_year() const { return years.front().dispatch.discharged_terminal_kwh; }
+  double unserved_kwh_first_year() const { return years.front().dispatch.unserved_kwh; }
+  double backup_kwh_first_year() const { return years.front().dispatch.backup_kwh; }
+  double equivalent_full_cycles_first_year() const {
+    return years.front().dispatch.equivalent_full_cycles;
+  }
+  double mean_discharged_kwh_per_year() const;
+};
+
+// Holds what is shared by every design of one profile at one site (temperature acceleration),
+// so sweeps and the optimiser evaluate many designs cheaply. Not thread-safe: one per thread.
+class LifecycleEvaluator {
+ public:
+  // The references must outlive the evaluator. Inputs must be validated.
+  LifecycleEvaluator(const ChemistryProfile& profile, const SiteConditions& site,
+                     const Economics& economics);
+
+  // Throws InvalidValue for a DoD setpoint outside (0, 1] or strings < 1.
+  DesignResult evaluate(double dod_setpoint, int strings_parallel);
+
+  const ChemistryProfile& profile() const { return *profile_; }
+  const AccelerationSeries& acceleration() const { return acceleration_; }
+
+ private:
+  const ChemistryProfile* profile_;
+  const SiteConditions* site_;
+  const Economics* economics_;
+  AccelerationSeries acceleration_;
+  std::vector<double> soc_trace_;
+  RainflowScratch scratch_;
+};
+
+}  // namespace stowage

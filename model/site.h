@@ -1,0 +1,52 @@
+// SPDX-License-Identifier: MIT
+// SiteConditions: the place a bank serves, as hourly series for one typical year plus the
+// conversion chain and what happens to energy the bank cannot give.
+//
+// Energy flow each hour (1 h steps, so kW and kWh per hour are the same number):
+//   source_kw serves load_kw directly; the surplus passes the charger (charger_efficiency) into
+//   the bank; a deficit is drawn from the bank through the inverter (inverter_efficiency); what
+//   the bank cannot give is met by back-up (if backup_price_per_kwh is set) or left unserved.
+// The same form covers an off-grid PV site (source = PV output, price 0 or export value) and a
+// grid-charged duty (source = grid import allowed in charging hours, priced by the tariff).
+// charge_price_per_kwh is the price of source energy used for charging, per hour.
+#pragma once
+
+#include <optional>
+#include <string>
+#include <vector>
+
+namespace stowage {
+
+constexpr int kHoursPerYear = 8760;  // leap day dropped
+constexpr double kHoursPerMonth = 730.0;
+
+struct SiteConditions {
+  std::string name;
+  double bus_voltage_v = 48;
+  std::vector<double> load_kw;               // 8760 values >= 0
+  std::vector<double> source_kw;             // 8760 values >= 0
+  std::vector<double> temp_c;                // battery-space temperature, 8760 values
+  std::vector<double> charge_price_per_kwh;  // 8760 values >= 0
+  double autonomy_days = 0;                  // days the bank alone carries the load, >= 0
+  double design_margin = 1.0;                // sizing margin on the autonomy energy, >= 1
+  double charger_efficiency = 1;             // (0, 1]
+  double inverter_efficiency = 1;            // (0, 1]
+  std::optional<double> backup_price_per_kwh;     // back-up energy price; unset: no back-up
+  std::optional<double> unserved_limit_fraction;  // max unserved / demand over a year
+  double unserved_penalty_per_kwh = 0;            // value of lost load, >= 0
+
+  // Checks lengths, finiteness and ranges; throws InvalidValue naming the field.
+  void validate() const;
+
+  double annual_demand_kwh() const;
+};
+
+// Monthly means used by autonomy sizing, months of 730 h (hours 0-729 are month 1, ...);
+// index 0..11.
+struct MonthlyMeans {
+  double daily_load_kwh[12];
+  double temp_c[12];
+};
+MonthlyMeans monthly_means(const SiteConditions& site);
+
+}  // namespace stowage
