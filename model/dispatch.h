@@ -46,12 +46,22 @@ struct YearDispatch {
   double partial_charge_excess_days = 0;  // days beyond the grace period without full charge
 };
 
+// Per-hour quantities that depend only on the profile and the site, computed once per pair so
+// that many designs and years reuse them.
+struct HourlyFactors {
+  std::vector<double> capacity_factor;      // f_T(T_h), 8760 values
+  std::vector<unsigned char> can_charge;    // 1 where the hour is within the charging limits
+  std::vector<unsigned char> can_discharge; // 1 where the hour is within the operating limits
+};
+HourlyFactors hourly_factors(const ChemistryProfile& profile, const SiteConditions& site);
+
 struct DispatchInputs {
   const ChemistryProfile* profile = nullptr;
   const SiteConditions* site = nullptr;
   BankGeometry bank;
   double dod_setpoint = 0.5;
   double health = 1.0;  // capacity remaining, fraction of rated, (0, 1]
+  const HourlyFactors* factors = nullptr;  // optional; computed here when null
 };
 
 // Dispatches one year. `soc_trace` is resized to 8761: the SOC at the start and after each hour.

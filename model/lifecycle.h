@@ -114,6 +114,7 @@ class LifecycleEvaluator {
   const SiteConditions* site_;
   const Economics* economics_;
   AccelerationSeries acceleration_;
+  HourlyFactors factors_;
   std::vector<double> soc_trace_;
   RainflowScratch scratch_;
 };

@@ -34,6 +34,7 @@ class JsonWriter {
 
  private:
   void before_value();
+  void write_string(std::string_view text);
   std::string out_;
   std::vector<bool> first_;  // per open container: no element written yet
   bool after_key_ = false;

@@ -1,0 +1,149 @@
+// SPDX-License-Identifier: MIT
+#include "model/dispatch.h"
+
+#include <algorithm>
+#include <cmath>
+
+namespace stowage {
+
+HourlyFactors hourly_factors(const ChemistryProfile& profile, const SiteConditions& site) {
+  HourlyFactors f;
+  const std::size_t n = site.temp_c.size();
+  f.capacity_factor.resize(n);
+  f.can_charge.resize(n);
+  f.can_discharge.resize(n);
+  for (std::size_t h = 0; h < n; ++h) {
+    const double t = site.temp_c[h];
+    f.capacity_factor[h] = profile.temperature.capacity_factor(t);
+    f.can_charge[h] = profile.temperature.can_charge(t) ? 1 : 0;
+    f.can_discharge[h] = profile.temperature.can_discharge(t) ? 1 : 0;
+  }
+  return f;
+}
+
+namespace {
+
+// Charge (Ah) drawn from the cells for a terminal current `amps` held one hour, with the
+// Peukert rate effect above the rated current and no credit below it.
+inline double peukert_ah(double amps, double rated_amps, double k_minus_1) {
+  if (k_minus_1 == 0 || amps <= rated_amps) return amps;
+  return amps * std::pow(amps / rated_amps, k_minus_1);
+}
+
+// Inverse of peukert_ah: the current whose one-hour draw is `ah`.
+inline double peukert_current(double ah, double rated_amps, double k_minus_1) {
+  if (k_minus_1 == 0 || ah <= rated_amps) return ah;
+  return std::pow(ah * std::pow(rated_amps, k_minus_1), 1.0 / (k_minus_1 + 1.0));
+}
+
+}  // namespace
+
+YearDispatch dispatch_year(const DispatchInputs& in, DispatchState& state,
+                           std::vector<double>& soc_trace) {
+  const ChemistryProfile& p = *in.profile;
+  const SiteConditions& site = *in.site;
+  HourlyFactors local;
+  if (in.factors == nullptr) local = hourly_factors(p, site);
+  const HourlyFactors& hf = in.factors != nullptr ? *in.factors : local;
+
+  const double rated_ah = in.bank.capacity_ah;
+  const double faded_ah = rated_ah * in.health;
+  const double v_charge = in.bank.cells_series * p.mean_charge_v;
+  const double v_discharge = in.bank.cells_series * p.mean_discharge_v;
+  const double floor_soc = 1.0 - in.dod_setpoint;
+  const double keep_per_hour = std::pow(1.0 - p.self_discharge_per_month, 1.0 / kHoursPerMonth);
+  const double rated_amps = rated_ah / p.capacity_rate_hours;
+  const double k_minus_1 = p.peukert_exponent - 1.0;
+  const double eta_coulomb = p.coulombic_efficiency;
+  const double eta_charger = site.charger_efficiency;
+  const double eta_inverter = site.inverter_efficiency;
+  // C-rate limits are set on the rated capacity, as chargers and fuses are sized on it.
+  const double max_charge_amps = p.max_charge_c_rate * rated_ah;
+  const double max_discharge_amps = p.max_discharge_c_rate * rated_ah;
+  const bool has_backup = site.backup_price_per_kwh.has_value();
+  const bool track_partial = p.partial_charge.has_value();
+  const double full_soc = track_partial ? p.partial_charge->full_charge_soc : 1.0;
+  const double grace_hours =
+      track_partial ? p.partial_charge->max_days_without_full_charge * 24.0 : 0.0;
+
+  soc_trace.resize(static_cast<std::size_t>(kHoursPerYear) + 1);
+  double soc = state.soc;
+  double hours_since_full = state.hours_since_full_charge;
+  double excess_hours = 0;
+  soc_trace[0] = soc;
+  YearDispatch y;
+
+  for (std::size_t h = 0; h < static_cast<std::size_t>(kHoursPerYear); ++h) {
+    const double q_ah = faded_ah * hf.capacity_factor[h];  // effective capacity this hour
+    soc *= keep_per_hour;
+    const double load = site.load_kw[h];
+    const double source = site.source_kw[h];
+    const double direct = std::min(load, source);
+    y.demand_kwh += load;
+    y.source_to_load_kwh += direct;
+    const double surplus = source - direct;
+    const double deficit = load - direct;
+
+    if (surplus > 0) {
+      double to_terminals = 0;  // kWh
+      if (hf.can_charge[h] && soc < 1.0) {
+        // Terminal energy that fills the headroom, given the coulombic loss.
+        const double headroom_ah = (1.0 - soc) * q_ah / eta_coulomb;
+        const double amps = std::min({surplus * eta_charger * 1000.0 / v_charge, max_charge_amps,
+                                      headroom_ah});
+        to_terminals = amps * v_charge / 1000.0;
+        soc += amps * eta_coulomb / q_ah;
+        if (soc > 1.0) soc = 1.0;
+      }
+      const double drawn = to_terminals / eta_charger;
+      y.charged_terminal_kwh += to_terminals;
+      y.charge_source_kwh += drawn;
+      y.charge_cost += drawn * site.charge_price_per_kwh[h];
+      y.curtailed_kwh += surplus - drawn;
+    } else if (deficit > 0) {
+      double delivered = 0;
+      if (hf.can_discharge[h] && soc > floor_soc) {
+        const double wanted_amps = deficit / eta_inverter * 1000.0 / v_discharge;
+        double amps = std::min(wanted_amps, max_discharge_amps);
+        double drawn_ah = peukert_ah(amps, rated_amps, k_minus_1);
+        const double available_ah = (soc - floor_soc) * q_ah;
+        if (drawn_ah > available_ah) {
+          drawn_ah = available_ah;
+          amps = peukert_current(available_ah, rated_amps, k_minus_1);
+        }
+        const double out_kwh = amps * v_discharge / 1000.0;
+        const double depth = drawn_ah / q_ah;
+        soc -= depth;
+        if (soc < floor_soc) soc = floor_soc;
+        delivered = out_kwh * eta_inverter;
+        y.discharged_terminal_kwh += out_kwh;
+        y.delivered_kwh += delivered;
+        y.equivalent_full_cycles += depth;
+      }
+      const double shortfall = deficit - delivered;
+      if (shortfall > 1e-12) {
+        if (has_backup)
+          y.backup_kwh += shortfall;
+        else
+          y.unserved_kwh += shortfall;
+      }
+    }
+
+    if (track_partial) {
+      if (soc >= full_soc) {
+        hours_since_full = 0;
+      } else {
+        hours_since_full += 1.0;
+        if (hours_since_full > grace_hours) excess_hours += 1.0;
+      }
+    }
+    soc_trace[h + 1] = soc;
+  }
+
+  state.soc = soc;
+  state.hours_since_full_charge = hours_since_full;
+  y.partial_charge_excess_days = excess_hours / 24.0;
+  return y;
+}
+
+}  // namespace stowage

@@ -1,0 +1,141 @@
+// SPDX-License-Identifier: MIT
+#include "model/lifecycle.h"
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+
+#include "model/invalid_value.h"
+
+namespace stowage {
+
+namespace {
+// Damage within this of 1 counts as end of life: hourly sums of a year's calendar damage
+// carry rounding of the order of 1e-13.
+constexpr double kEndOfLifeTolerance = 1e-9;
+}  // namespace
+
+double DesignResult::mean_discharged_kwh_per_year() const {
+  if (years.empty()) return 0;
+  double sum = 0;
+  for (const auto& y : years) sum += y.dispatch.discharged_terminal_kwh;
+  return sum / static_cast<double>(years.size());
+}
+
+LifecycleEvaluator::LifecycleEvaluator(const ChemistryProfile& profile, const SiteConditions& site,
+                                       const Economics& economics)
+    : profile_(&profile),
+      site_(&site),
+      economics_(&economics),
+      acceleration_(acceleration_series(profile, site.temp_c)),
+      factors_(hourly_factors(profile, site)) {}
+
+DesignResult LifecycleEvaluator::evaluate(double dod_setpoint, int strings_parallel) {
+  if (!(dod_setpoint > 0 && dod_setpoint <= 1))
+    throw InvalidValue("dod_setpoint", "must be in (0, 1]");
+  const ChemistryProfile& p = *profile_;
+  const SiteConditions& site = *site_;
+  const Economics& econ = *economics_;
+  const ProfileCosts& c = p.costs;
+
+  DesignResult r;
+  r.profile_id = p.id;
+  r.dod_setpoint = dod_setpoint;
+  r.bank = bank_geometry(p, site.bus_voltage_v, strings_parallel);
+  r.currency = econ.currency;
+  const double nameplate = r.bank.nameplate_kwh;
+  r.investment = c.capital_per_kwh * nameplate + c.capital_per_string * strings_parallel +
+                 c.installation_fixed;
+  const double end_of_life_cost = c.end_of_life_per_kwh * nameplate;
+  const double demand = site.annual_demand_kwh();
+
+  DispatchInputs in;
+  in.profile = &p;
+  in.site = &site;
+  in.bank = r.bank;
+  in.dod_setpoint = dod_setpoint;
+  in.factors = &factors_;
+
+  DispatchState state;
+  double damage = 0;          // of the bank in service
+  int age_years = 0;          // of the bank in service
+  double bank_price = r.investment;  // what the bank in service cost when installed
+  CostBreakdown& pv = r.present_value;
+  pv.investment = r.investment;
+  r.years.reserve(static_cast<std::size_t>(econ.project_years));
+
+  for (int year = 1; year <= econ.project_years; ++year) {
+    YearRecord rec;
+    rec.year = year;
+    rec.health_start = health_from_damage(p, damage);
+    in.health = rec.health_start;
+    rec.dispatch = dispatch_year(in, state, soc_trace_);
+    const YearDamage d = year_damage(p, acceleration_, soc_trace_,
+                                     rec.dispatch.partial_charge_excess_days, scratch_);
+    rec.damage_cycle = d.cycle;
+    rec.damage_calendar = d.calendar;
+    rec.damage_partial_charge = d.partial_charge;
+    damage += d.total();
+    age_years += 1;
+    rec.damage_end = damage;
+
+    rec.fixed_om = c.fixed_om_per_kwh_year * nameplate;
+    rec.variable_om = c.variable_om_per_mwh * rec.dispatch.discharged_terminal_kwh / 1000.0;
+    rec.charging = rec.dispatch.charge_cost;
+    rec.backup = site.backup_price_per_kwh ? rec.dispatch.backup_kwh * *site.backup_price_per_kwh
+                                           : 0.0;
+    rec.unserved_penalty = rec.dispatch.unserved_kwh * site.unserved_penalty_per_kwh;
+
+    const bool worn_out = damage >= 1.0 - kEndOfLifeTolerance;
+    const bool too_old = p.max_service_years &&
+                         static_cast<double>(age_years) >= *p.max_service_years - kEndOfLifeTolerance;
+    if ((worn_out || too_old) && year < econ.project_years) {
+      rec.replaced_at_end = true;
+      rec.replacement = r.investment * c.replacement_share *
+                        std::pow(1.0 - c.price_decline_per_year, year);
+      rec.end_of_life = end_of_life_cost;
+      r.replacement_years.push_back(year);
+      bank_price = rec.replacement;
+      damage = 0;
+      age_years = 0;
+      state = DispatchState{};
+    }
+
+    if (year == econ.project_years) {
+      double used = std::min(1.0, damage);
+      if (p.max_service_years) used = std::max(used, age_years / *p.max_service_years);
+      rec.residual_value = -bank_price * std::max(0.0, 1.0 - used);
+    }
+
+    rec.discount_factor = present_worth_factor(econ.real_discount_rate, year);
+    const double df = rec.discount_factor;
+    pv.replacements += rec.replacement * df;
+    pv.fixed_om += rec.fixed_om * df;
+    pv.variable_om += rec.variable_om * df;
+    pv.charging += rec.charging * df;
+    pv.backup += rec.backup * df;
+    pv.unserved_penalty += rec.unserved_penalty * df;
+    pv.end_of_life += rec.end_of_life * df;
+    pv.residual_value += rec.residual_value * df;
+    r.discounted_discharged_kwh += rec.dispatch.discharged_terminal_kwh * df;
+    if (demand > 0)
+      r.unserved_fraction_max =
+          std::max(r.unserved_fraction_max, rec.dispatch.unserved_kwh / demand);
+    r.years.push_back(rec);
+  }
+
+  // End of life of the last bank one year after the last operating year (Schmidt et al. 2019).
+  r.final_end_of_life = end_of_life_cost;
+  pv.end_of_life += end_of_life_cost *
+                    present_worth_factor(econ.real_discount_rate, econ.project_years + 1);
+
+  r.npc = pv.total();
+  r.lcos_per_kwh = r.discounted_discharged_kwh > 0
+                       ? pv.storage_total() / r.discounted_discharged_kwh
+                       : std::numeric_limits<double>::infinity();
+  r.meets_unserved_limit =
+      !site.unserved_limit_fraction || r.unserved_fraction_max <= *site.unserved_limit_fraction + 1e-12;
+  return r;
+}
+
+}  // namespace stowage

@@ -1,0 +1,33 @@
+// SPDX-License-Identifier: MIT
+// stowage: lifecycle cost of battery storage at a site. See README.md and docs/usage.md.
+#include <CLI/CLI.hpp>
+#include <exception>
+#include <iostream>
+
+#include "optimiser/cli/command.h"
+#include "stowage_version.h"
+
+int main(int argc, char** argv) {
+  CLI::App app{
+      "stowage " STOWAGE_VERSION_STRING
+      ": simulate, age and price battery banks at a site over the project life,\n"
+      "and find the chemistry, DoD setpoint and bank size with the lowest lifecycle cost."};
+  app.set_version_flag("--version", "stowage " STOWAGE_VERSION_STRING);
+  app.require_subcommand(1);
+  int exit_code = stowage::cli::kExitOk;
+  stowage::cli::register_check(app, exit_code);
+  stowage::cli::register_evaluate(app, exit_code);
+  stowage::cli::register_cycles(app, exit_code);
+  stowage::cli::register_optimise(app, exit_code);
+  try {
+    app.parse(argc, argv);
+  } catch (const CLI::ParseError& e) {
+    // Usage mistakes are bad input (exit 2); --help and --version are success.
+    const int code = app.exit(e);
+    return code == 0 ? stowage::cli::kExitOk : stowage::cli::kExitBadInput;
+  } catch (const std::exception& e) {
+    std::cerr << "stowage: internal error: " << e.what() << "\n";
+    return stowage::cli::kExitInternalError;
+  }
+  return exit_code;
+}
