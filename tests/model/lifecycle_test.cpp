@@ -1,0 +1,140 @@
+// SPDX-License-Identifier: MIT
+#include "model/lifecycle.h"
+
+#include <catch2/catch.hpp>
+#include <cmath>
+
+#include "model_fixtures.h"
+
+using namespace stowage;
+using namespace stowage::testing;
+
+TEST_CASE("a constant daily cycle ages, is replaced and priced as derived by hand",
+          "[model][lifecycle]") {
+  // Analytic case (derivation in this test, not a published value): a bank cycled once a day
+  // from full to the DoD floor at a constant 35 degC.
+  // - 24 cells x 100 Ah x 10 strings on 48 V: 48 kWh nameplate, 1000 Ah.
+  // - Halving interval 10 K from 25 degC: ageing runs 2x at 35 degC.
+  // - Cycle life 3650 at DoD 0.5: 365 cycles/yr x 2 / 3650 = 0.20 damage per year.
+  // - Calendar life 40 yr at 25 degC -> 20 yr at 35 degC: 0.05 per year. Total 0.25 per year,
+  //   so each bank lasts exactly 4 years: replacements at the end of years 4, 8, 12, 16 of 20.
+  // - Capacity fades linearly to 80 % at damage 1: health 1, 0.95, 0.90, 0.85 in the bank's
+  //   years 1..4, and each day discharges 0.5 x 1000 Ah x health at 48 V.
+  ChemistryProfile p = ideal_cell(100);
+  p.mean_charge_v = 2.0 / 0.9;  // voltaic efficiency 0.9
+  p.coulombic_efficiency = 0.95;
+  p.max_discharge_c_rate = 1.0;
+  p.cycle_life = CycleLifeCurve({{0.5, 3650}, {1.0, 1000}});
+  p.calendar_life_years = 40;
+  p.costs.capital_per_kwh = 300;
+  p.costs.capital_per_string = 100;
+  p.costs.installation_fixed = 2000;
+  p.costs.fixed_om_per_kwh_year = 5;
+  p.costs.variable_om_per_mwh = 10;
+  p.costs.replacement_share = 0.8;
+  p.costs.price_decline_per_year = 0.02;
+  p.costs.end_of_life_per_kwh = 10;
+  p.validate();
+
+  SiteConditions s = quiet_site(48.0, 35.0);
+  every_day(s.load_kw, 2, 5, 100.0);    // far more than the bank holds: the rest is back-up
+  every_day(s.source_kw, 8, 15, 100.0); // ample charging every day
+  s.charge_price_per_kwh.assign(kHoursPerYear, 0.05);
+  s.charger_efficiency = 0.96;
+  s.inverter_efficiency = 0.94;
+  s.backup_price_per_kwh = 0.5;
+  s.validate();
+
+  Economics e;
+  e.project_years = 20;
+  e.real_discount_rate = 0.06;
+
+  LifecycleEvaluator evaluator(p, s, e);
+  const DesignResult r = evaluator.evaluate(0.5, 10);
+
+  CHECK(r.bank.nameplate_kwh == Approx(48.0));
+  CHECK(r.replacement_years == std::vector<int>{4, 8, 12, 16});
+
+  // Hand derivation of every cash flow.
+  const double nameplate = 48.0;
+  const double i0 = 300 * nameplate + 100 * 10 + 2000;
+  double pv_storage = i0, pv_backup = 0, pv_energy = 0;
+  for (int y = 1; y <= 20; ++y) {
+    const double df = std::pow(1.06, -y);
+    const int bank_year = (y - 1) % 4;  // 0..3 within each bank's life
+    const double health = 1.0 - 0.2 * 0.25 * bank_year;
+    const double ah_per_day = 0.5 * 1000 * health;
+    const double discharged = 365 * ah_per_day * 48.0 / 1000.0;       // kWh at the terminals
+    const double charged_terminal = 365 * ah_per_day / 0.95 * (24 * 2.0 / 0.9) / 1000.0;
+    const double drawn = charged_terminal / 0.96;
+    const double backup = 365 * 400.0 - discharged * 0.94;
+    double flows = 5 * nameplate + 10 * discharged / 1000.0 + 0.05 * drawn;
+    if (y % 4 == 0 && y < 20) flows += i0 * 0.8 * std::pow(0.98, y) + 10 * nameplate;
+    pv_storage += flows * df;
+    pv_backup += 0.5 * backup * df;
+    pv_energy += discharged * df;
+    INFO("year " << y);
+    CHECK(r.years[static_cast<std::size_t>(y - 1)].dispatch.discharged_terminal_kwh ==
+          Approx(discharged).epsilon(1e-6));
+  }
+  pv_storage += 10 * nameplate * std::pow(1.06, -21);  // end of life of the last bank, N + 1
+  // The last bank ends year 20 exactly worn out: no residual value.
+  CHECK(r.present_value.residual_value == Approx(0.0).margin(1e-6));
+
+  CHECK(r.lcos_per_kwh == Approx(pv_storage / pv_energy).epsilon(1e-3));
+  CHECK(r.npc == Approx(pv_storage + pv_backup).epsilon(1e-3));
+  CHECK(r.equivalent_full_cycles_first_year() == Approx(365 * 0.5).epsilon(1e-6));
+}
+
+TEST_CASE("LCOS equals the closed form for a bank that does not degrade", "[model][lifecycle]") {
+  // check-values.md 3.4 case A (CALC, the Schmidt et al. 2019 LCOS structure): capex 400,000 at
+  // t = 0, O&M 10,000 per year, 300 MWh discharged per year, charging at 40 per MWh, round trip
+  // 0.85, 8 %, 15 years -> 236.1649 per MWh, equal to (capex x CRF + O&M) / E + price / eta.
+  const double daily_kwh = 300000.0 / 365.0;
+  ChemistryProfile p = ideal_cell(daily_kwh * 1000.0 / 48.0 / 10.0);  // 10 strings at 48 V
+  p.mean_charge_v = 2.0 / 0.85;
+  p.max_service_years = 15;  // worn out exactly at the end: no residual value
+  const double nameplate = daily_kwh;
+  p.costs.capital_per_kwh = 400000.0 / nameplate;
+  p.costs.fixed_om_per_kwh_year = 10000.0 / nameplate;
+  p.validate();
+
+  SiteConditions s = quiet_site(48.0, 25.0);
+  every_day(s.load_kw, 2, 5, 10000.0);
+  every_day(s.source_kw, 8, 15, 10000.0);
+  s.charge_price_per_kwh.assign(kHoursPerYear, 0.040);
+  s.validate();
+  Economics e;
+  e.project_years = 15;
+  e.real_discount_rate = 0.08;
+
+  LifecycleEvaluator evaluator(p, s, e);
+  const DesignResult r = evaluator.evaluate(1.0, 10);
+  CHECK(r.bank.nameplate_kwh == Approx(nameplate));
+  CHECK(r.years.front().dispatch.discharged_terminal_kwh == Approx(300000.0).epsilon(1e-6));
+  CHECK(r.replacement_years.empty());
+  CHECK(r.lcos_per_kwh * 1000.0 == Approx(236.1649).epsilon(1e-5));
+  const double closed_form =
+      (400000.0 * capital_recovery_factor(0.08, 15) + 10000.0) / 300.0 + 40.0 / 0.85;
+  CHECK(r.lcos_per_kwh * 1000.0 == Approx(closed_form).epsilon(1e-6));
+}
+
+TEST_CASE("a bank that cannot reach its floor in the cold gives less", "[model][lifecycle]") {
+  // Available capacity scales with the temperature factor (model convention): at a factor of
+  // 0.5 the same DoD window holds half the charge.
+  ChemistryProfile p = ideal_cell(100);
+  TemperatureSpec t = p.temperature.spec();
+  t.capacity_factor = {{-10, 0.5}, {25, 1.0}};
+  p.temperature = TemperatureBehaviour(t);
+  SiteConditions warm = quiet_site(48.0, 25.0), cold = quiet_site(48.0, -10.0);
+  for (auto* s : {&warm, &cold}) {
+    every_day(s->load_kw, 2, 5, 100.0);
+    every_day(s->source_kw, 8, 15, 100.0);
+    s->backup_price_per_kwh = 1.0;
+  }
+  Economics e;
+  e.project_years = 1;
+  LifecycleEvaluator w(p, warm, e), c(p, cold, e);
+  CHECK(c.evaluate(0.5, 1).discharged_kwh_first_year() ==
+        Approx(0.5 * w.evaluate(0.5, 1).discharged_kwh_first_year()));
+}
