@@ -1,0 +1,145 @@
+// SPDX-License-Identifier: MIT
+#include "catalog-schema/hourly_csv.h"
+
+#include <cctype>
+#include <limits>
+#include <optional>
+#include <regex>
+
+#include "catalog-schema/csv_table.h"
+#include "catalog-schema/input_error.h"
+#include "catalog-schema/input_file.h"
+#include "catalog-schema/schema_validator.h"
+#include "model/site.h"
+
+namespace stowage {
+namespace {
+
+constexpr double kInf = std::numeric_limits<double>::infinity();
+
+const std::regex& price_column() {
+  static const std::regex re("price(_[a-z0-9]+)*_per_kwh");
+  return re;
+}
+
+std::string lower(std::string s) {
+  for (char& c : s) c = static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
+  return s;
+}
+
+bool allowed_name(const std::string& name) {
+  return name == "load_kw" || name == "source_kw" || name == "temp_c" || name == "hour" ||
+         std::regex_match(name, price_column());
+}
+
+}  // namespace
+
+std::string hourly_column_problem(const std::string& name) {
+  if (allowed_name(name)) return "";
+  if (allowed_name(lower(name))) {
+    return "column names are lower case: name it " + lower(name);
+  }
+  static const std::regex power("(load|source)_([A-Za-z0-9]+)");
+  static const std::regex temperature("(temp|temperature)_([A-Za-z0-9]+)");
+  static const std::regex price("(price(_[a-z0-9]+)*)_per_([A-Za-z0-9]+)");
+  std::smatch m;
+  if (std::regex_match(name, m, power)) {
+    return "expected kW: name it " + m[1].str() + "_kw and give the values in kilowatts";
+  }
+  if (std::regex_match(name, m, temperature)) {
+    return "expected degrees Celsius: name it temp_c and give the values in degrees Celsius";
+  }
+  if (std::regex_match(name, m, price)) {
+    return "expected a price per kWh: name it " + m[1].str() +
+           "_per_kwh and give the values in currency per kWh";
+  }
+  std::string message =
+      "unknown column; the columns are load_kw, source_kw, temp_c, and optionally "
+      "price_per_kwh (or price_<tag>_per_kwh) and hour";
+  const std::string hint =
+      closest_match(name, {"load_kw", "source_kw", "temp_c", "price_per_kwh", "hour"});
+  if (!hint.empty()) message += " (did you mean '" + hint + "'?)";
+  return message;
+}
+
+HourlySeries read_hourly_csv(std::istream& in, const std::string& source_name) {
+  CsvTable table(in, source_name);
+  const CsvRow& header = table.header();
+
+  std::optional<std::size_t> load, source, temp;
+  std::map<std::string, std::size_t> price_index;
+  for (std::size_t i = 0; i < header.fields.size(); ++i) {
+    const CsvField& field = header.fields[i];
+    const std::string& name = field.text;
+    if (name.empty()) {
+      throw table.error(header.line, field.column, "(column " + std::to_string(i + 1) + ")",
+                        "empty column name");
+    }
+    const std::string problem = hourly_column_problem(name);
+    if (!problem.empty()) throw table.error(header.line, field.column, name, problem);
+    for (std::size_t j = 0; j < i; ++j) {
+      if (header.fields[j].text == name) {
+        throw table.error(header.line, field.column, name,
+                          "the column appears twice (also column " + std::to_string(j + 1) +
+                              ")");
+      }
+    }
+    if (name == "load_kw") load = i;
+    if (name == "source_kw") source = i;
+    if (name == "temp_c") temp = i;
+    if (std::regex_match(name, price_column())) price_index[name] = i;
+  }
+  for (const char* required : {"load_kw", "source_kw", "temp_c"}) {
+    bool present = false;
+    for (const CsvField& field : header.fields) present = present || field.text == required;
+    if (!present) {
+      throw table.error(header.line, 1, required,
+                        std::string("the header has no column ") + required +
+                            " (the columns needed are load_kw, source_kw and temp_c)");
+    }
+  }
+
+  HourlySeries series;
+  for (const auto& entry : price_index) series.prices[entry.first];
+  const std::size_t hours = static_cast<std::size_t>(kHoursPerYear);
+  series.load_kw.reserve(hours);
+  series.source_kw.reserve(hours);
+  series.temp_c.reserve(hours);
+
+  std::size_t rows = 0;
+  int first_extra_line = 0;
+  CsvRow row;
+  while (table.next(row)) {
+    ++rows;
+    if (rows == hours + 1) first_extra_line = row.line;
+    series.load_kw.push_back(csv_number(table, row, *load, "load_kw", 0, kInf));
+    series.source_kw.push_back(csv_number(table, row, *source, "source_kw", 0, kInf));
+    series.temp_c.push_back(csv_number(table, row, *temp, "temp_c", -kInf, kInf));
+    for (const auto& entry : price_index) {
+      series.prices[entry.first].push_back(
+          csv_number(table, row, entry.second, entry.first, 0, kInf));
+    }
+  }
+  if (rows == hours) return series;
+
+  const std::string expected = "expected exactly " + std::to_string(hours) +
+                               " hourly rows, one non-leap year starting 1 January 00:00";
+  if (rows > hours) {
+    std::string message = "the file has " + std::to_string(rows) + " data rows; " + expected;
+    if (rows == hours + 24) {
+      message += ": this looks like a leap year, drop the leap day (the 24 rows of 29 February)";
+    } else {
+      message += "; the rows from here on are too many";
+    }
+    throw table.error(first_extra_line, 1, "(rows)", message);
+  }
+  throw table.error(table.last_line(), 1, "(rows)",
+                    "the file ends after " + std::to_string(rows) + " data rows; " + expected);
+}
+
+HourlySeries read_hourly_csv_file(const std::string& path) {
+  std::ifstream in = open_input_or_throw(path, "(file)");
+  return read_hourly_csv(in, path);
+}
+
+}  // namespace stowage

@@ -1,0 +1,52 @@
+// SPDX-License-Identifier: MIT
+// Loading a chemistry profile file (format: docs/input-format.md, schema:
+// schemas/profile.schema.json) into a validated ChemistryProfile.
+//
+// Order of checks: YAML syntax, then the embedded schema (structure, types, ranges, unknown
+// keys), then the rules that relate values to each other: mean_charge_v > mean_discharge_v,
+// dod.min <= dod.default <= dod.max, cycle-life DoDs unique and cycles strictly falling as DoD
+// grows, capacity-factor temperatures strictly increasing, operating/charging min < max, every
+// `sources` key naming a field present in the profile. Finally the model's own validate() runs;
+// should it refuse a value the loader let through, its field path is mapped back to the node.
+// Every failure is an InputError naming the file, line, column and field path
+// ("profile.ageing.cycle_life[2].cycles", paths as written in the file).
+// Optional fields that are absent keep the defaults of the model structs, which equal the
+// schema's "default" values (a test checks this).
+#pragma once
+
+#include <istream>
+#include <map>
+#include <string>
+
+#include "model/chemistry_profile.h"
+
+namespace stowage {
+
+// Where a value was read, for errors found later by comparing files (duplicate ids, currency).
+struct SourcePosition {
+  std::string file;
+  int line = 1;
+  int column = 1;
+};
+
+struct LoadedProfile {
+  ChemistryProfile profile;
+  std::string currency;                        // costs.currency, e.g. "EUR"
+  std::map<std::string, std::string> sources;  // dotted field path -> source text
+  std::string path;                            // the source name the profile was read under
+  SourcePosition id_at;                        // position of profile.id
+  SourcePosition currency_at;                  // position of profile.costs.currency
+};
+
+LoadedProfile load_profile_details(std::istream& in, const std::string& source_name);
+LoadedProfile load_profile_details_file(const std::string& path);
+
+ChemistryProfile load_profile(std::istream& in, const std::string& source_name);
+ChemistryProfile load_profile_file(const std::string& path);
+
+// True when `sources` has a key covering `field` (both relative to "profile"): the key equals
+// the field, or names an enclosing field ("ageing.cycle_life" covers
+// "ageing.cycle_life[3].cycles", "costs" covers "costs.capital_per_kwh").
+bool source_covers(const std::map<std::string, std::string>& sources, const std::string& field);
+
+}  // namespace stowage

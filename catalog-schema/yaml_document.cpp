@@ -1,0 +1,229 @@
+// SPDX-License-Identifier: MIT
+#include "catalog-schema/yaml_document.h"
+
+#include <cctype>
+#include <clocale>
+#include <cmath>
+#include <cstdlib>
+#include <iterator>
+#include <limits>
+#include <regex>
+#include <sstream>
+#include <utility>
+#include <vector>
+
+namespace stowage {
+namespace {
+
+bool is_plain(const YAML::Node& node) { return node.Tag() == "?"; }
+
+// YAML 1.2 core schema, decimal forms only (hex and octal forms are not used in these files
+// and are better reported as text than silently converted).
+const std::regex& integer_form() {
+  static const std::regex re("[-+]?[0-9]+");
+  return re;
+}
+const std::regex& number_form() {
+  static const std::regex re("[-+]?(\\.[0-9]+|[0-9]+(\\.[0-9]*)?)([eE][-+]?[0-9]+)?");
+  return re;
+}
+const std::regex& non_finite_form() {
+  static const std::regex re("[-+]?\\.(inf|Inf|INF)|\\.(nan|NaN|NAN)");
+  return re;
+}
+
+// strtod with the decimal point fixed to '.', whatever the process locale says.
+double parse_decimal(const std::string& text) {
+  std::istringstream in(text);
+  in.imbue(std::locale::classic());
+  double value = 0;
+  in >> value;
+  if (in.fail()) {
+    // Out of the range of double ("1e999"): the text is a number, but not a usable one.
+    return text.find('-') == 0 ? -std::numeric_limits<double>::infinity()
+                               : std::numeric_limits<double>::infinity();
+  }
+  return value;
+}
+
+std::string trim(const std::string& s) {
+  std::size_t b = 0, e = s.size();
+  while (b < e && std::isspace(static_cast<unsigned char>(s[b]))) ++b;
+  while (e > b && std::isspace(static_cast<unsigned char>(s[e - 1]))) --e;
+  return s.substr(b, e - b);
+}
+
+// Guesses the key path in force at `line` (0-based) of a text that does not parse, from the
+// indentation of the "key:" lines above it. Good enough to name the block the error is in.
+std::string guess_path(const std::string& text, int line) {
+  static const std::regex key_line("^( *)(- +)?([A-Za-z0-9_.$-]+) *:( |$)");
+  std::vector<std::pair<std::size_t, std::string>> stack;  // (indent, key)
+  std::istringstream in(text);
+  std::string row;
+  for (int i = 0; i <= line && std::getline(in, row); ++i) {
+    std::smatch m;
+    if (!std::regex_search(row, m, key_line)) continue;
+    std::size_t indent = m[1].length() + m[2].length();
+    while (!stack.empty() && stack.back().first >= indent) stack.pop_back();
+    stack.emplace_back(indent, m[3].str());
+  }
+  std::string path;
+  for (const auto& entry : stack) path = join_key(path, entry.second);
+  return path;
+}
+
+}  // namespace
+
+ScalarKind scalar_kind(const YAML::Node& node) {
+  if (node.IsNull()) return ScalarKind::Null;
+  if (!is_plain(node)) return ScalarKind::Text;
+  const std::string& s = node.Scalar();
+  if (s == "true" || s == "True" || s == "TRUE" || s == "false" || s == "False" ||
+      s == "FALSE")
+    return ScalarKind::Boolean;
+  if (std::regex_match(s, integer_form())) return ScalarKind::Integer;
+  if (std::regex_match(s, number_form())) {
+    return std::isfinite(parse_decimal(s)) ? ScalarKind::Number : ScalarKind::NonFiniteNumber;
+  }
+  if (std::regex_match(s, non_finite_form())) return ScalarKind::NonFiniteNumber;
+  return ScalarKind::Text;
+}
+
+std::optional<double> scalar_number(const YAML::Node& node) {
+  if (!node.IsScalar() && !node.IsNull()) return std::nullopt;
+  switch (scalar_kind(node)) {
+    case ScalarKind::Integer:
+    case ScalarKind::Number:
+      return parse_decimal(node.Scalar());
+    case ScalarKind::NonFiniteNumber: {
+      const std::string& s = node.Scalar();
+      if (s.find("nan") != std::string::npos || s.find("NaN") != std::string::npos ||
+          s.find("NAN") != std::string::npos)
+        return std::numeric_limits<double>::quiet_NaN();
+      return parse_decimal(s == ".inf" || s == "+.inf" || s.find('-') != 0 ? "1e999" : "-1e999");
+    }
+    default:
+      return std::nullopt;
+  }
+}
+
+std::string describe_node(const YAML::Node& node) {
+  if (node.IsMap()) return "a mapping (key: value lines)";
+  if (node.IsSequence()) return "a list";
+  switch (scalar_kind(node)) {
+    case ScalarKind::Null:
+      return "nothing (an empty value)";
+    case ScalarKind::Boolean:
+      return "the truth value " + node.Scalar();
+    case ScalarKind::Integer:
+    case ScalarKind::Number:
+    case ScalarKind::NonFiniteNumber:
+      return "the number " + node.Scalar();
+    case ScalarKind::Text:
+      break;
+  }
+  std::string text = node.Scalar();
+  if (text.size() > 40) text = text.substr(0, 37) + "...";
+  return "the text '" + text + "'";
+}
+
+std::string join_key(const std::string& parent, const std::string& key) {
+  return parent.empty() ? key : parent + "." + key;
+}
+
+std::string join_index(const std::string& parent, std::size_t index) {
+  return parent + "[" + std::to_string(index) + "]";
+}
+
+std::string display_path(const std::string& path) {
+  return path.empty() ? "(top level)" : path;
+}
+
+YamlDocument::YamlDocument(std::string source_name, YAML::Node root)
+    : source_(std::move(source_name)), root_(std::move(root)) {}
+
+InputError YamlDocument::error_at(const YAML::Node& node, const std::string& field,
+                                  const std::string& message) const {
+  int line = 1, column = 1;
+  if (node.IsDefined()) {
+    const YAML::Mark mark = node.Mark();
+    if (mark.line >= 0 && mark.column >= 0) {
+      line = mark.line + 1;
+      column = mark.column + 1;
+    }
+  }
+  return InputError(source_, line, column, display_path(field), message);
+}
+
+YAML::Node YamlDocument::locate(const std::string& path, bool* exact) const {
+  if (exact) *exact = false;
+  // Split "a.b[2].c" into the steps a, b, [2], c.
+  std::vector<std::string> steps;
+  std::string current;
+  for (std::size_t i = 0; i < path.size(); ++i) {
+    const char c = path[i];
+    if (c == '.') {
+      if (!current.empty()) steps.push_back(current);
+      current.clear();
+    } else if (c == '[') {
+      if (!current.empty()) steps.push_back(current);
+      current = "[";
+    } else if (c == ']') {
+      current += c;
+      steps.push_back(current);
+      current.clear();
+    } else {
+      current += c;
+    }
+  }
+  if (!current.empty()) steps.push_back(current);
+
+  YAML::Node node = root_;
+  for (const std::string& step : steps) {
+    YAML::Node next;
+    bool found = false;
+    if (step.front() == '[' && node.IsSequence()) {
+      const std::size_t index = std::strtoul(step.c_str() + 1, nullptr, 10);
+      if (index < node.size()) {
+        next = node[index];
+        found = true;
+      }
+    } else if (node.IsMap()) {
+      for (auto it = node.begin(); it != node.end(); ++it) {
+        if (it->first.IsScalar() && it->first.Scalar() == step) {
+          // A null value has no text of its own; its key is where the reader looks.
+          next = it->second.IsNull() ? it->first : it->second;
+          found = true;
+          break;
+        }
+      }
+    }
+    if (!found) return node;
+    node = next;
+  }
+  if (exact) *exact = true;
+  return node;
+}
+
+InputError YamlDocument::error_at_path(const std::string& field,
+                                       const std::string& message) const {
+  return error_at(locate(field), field, message);
+}
+
+YamlDocument parse_yaml(std::istream& in, const std::string& source_name) {
+  std::string text((std::istreambuf_iterator<char>(in)), std::istreambuf_iterator<char>());
+  if (in.bad()) throw InputError::unreadable(source_name, "(top level)", "read error");
+  try {
+    return YamlDocument(source_name, YAML::Load(text));
+  } catch (const YAML::ParserException& e) {
+    const int line = e.mark.line >= 0 ? e.mark.line + 1 : 1;
+    const int column = e.mark.column >= 0 ? e.mark.column + 1 : 1;
+    throw InputError(source_name, line, column,
+                     display_path(guess_path(text, e.mark.line >= 0 ? e.mark.line : 0)),
+                     "YAML syntax error: " + trim(e.msg));
+  } catch (const YAML::Exception& e) {
+    throw InputError(source_name, 1, 1, "(top level)", "cannot read YAML: " + trim(e.msg));
+  }
+}
+
+}  // namespace stowage
