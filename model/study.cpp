@@ -3,12 +3,41 @@
 
 #include <cmath>
 
+#include "model/invalid_value.h"
+#include "model/sizing.h"
+
 namespace stowage {
 
 const ChemistryProfile* Study::find_profile(const std::string& id) const {
   for (const auto& p : profiles)
     if (p.id == id) return &p;
   return nullptr;
+}
+
+std::vector<ResolvedDesign> resolve_designs(const Study& study) {
+  std::vector<ResolvedDesign> out;
+  auto resolve = [&](const ChemistryProfile& p, const DesignSpec& spec) {
+    ResolvedDesign d;
+    d.profile = &p;
+    d.dod_setpoint = spec.dod_setpoint.value_or(p.dod.default_setpoint);
+    d.strings_parallel = spec.strings_parallel
+                             ? *spec.strings_parallel
+                             : size_for_autonomy(p, study.site, d.dod_setpoint).strings_parallel;
+    out.push_back(d);
+  };
+  if (study.designs.empty()) {
+    for (const auto& p : study.profiles) resolve(p, DesignSpec{p.id, {}, {}});
+    return out;
+  }
+  for (std::size_t i = 0; i < study.designs.size(); ++i) {
+    const DesignSpec& spec = study.designs[i];
+    const ChemistryProfile* p = study.find_profile(spec.profile_id);
+    if (p == nullptr)
+      throw InvalidValue("designs[" + std::to_string(i) + "].profile",
+                         "no profile with id '" + spec.profile_id + "' in the study");
+    resolve(*p, spec);
+  }
+  return out;
 }
 
 std::vector<double> dod_ladder(const SearchSpace& search, const ChemistryProfile& profile) {

@@ -39,6 +39,18 @@ struct Study {
   const ChemistryProfile* find_profile(const std::string& id) const;
 };
 
+// A design with every choice made: the profile, the DoD setpoint and the strings in parallel.
+struct ResolvedDesign {
+  const ChemistryProfile* profile = nullptr;  // points into Study::profiles
+  double dod_setpoint = 0;
+  int strings_parallel = 0;
+};
+
+// The study's designs with defaults filled in: an unset DoD takes the profile's default, unset
+// strings are sized for autonomy (sizing.h); with no designs listed, every profile once.
+// Throws InvalidValue("designs[i].profile") for an unknown profile id.
+std::vector<ResolvedDesign> resolve_designs(const Study& study);
+
 // The DoD ladder from `search` restricted to the profile's allowed [dod.min, dod.max]; values
 // are rounded to 1e-9 so 0.05 steps land on exact decimals.
 std::vector<double> dod_ladder(const SearchSpace& search, const ChemistryProfile& profile);

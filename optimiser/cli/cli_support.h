@@ -1,0 +1,29 @@
+// SPDX-License-Identifier: MIT
+// What every subcommand shares: running a command body with the error-to-exit-code mapping,
+// the output format option, and loading a study for the command line.
+#pragma once
+
+#include <CLI/CLI.hpp>
+#include <functional>
+#include <string>
+
+#include "model/study.h"
+
+namespace stowage::cli {
+
+// Runs `body` and returns its exit code; bad input (InputError, InvalidValue, an output path
+// that cannot be written) prints "stowage: <where>: <what>" on stderr and gives kExitBadInput;
+// anything else is an internal error (kExitInternalError).
+int run_guarded(const std::function<int()>& body);
+
+enum class OutputFormat { Text, Json };
+// Adds --format text|json bound to `format`.
+void add_format_option(CLI::App& command, OutputFormat& format);
+
+// Loads and validates a study file; throws InputError naming file, line and field.
+Study load_study_for_cli(const std::string& path);
+
+// Number formatting for reports: thousands separators, fixed decimals.
+std::string format_amount(double value, int decimals = 0);
+
+}  // namespace stowage::cli

@@ -1,0 +1,181 @@
+// SPDX-License-Identifier: MIT
+#include "optimiser/cli/design_report.h"
+
+#include <fmt/format.h>
+#include <fmt/ostream.h>
+
+#include <sstream>
+
+#include "optimiser/cli/cli_support.h"
+
+namespace stowage::cli {
+
+namespace {
+
+std::string years_text(const std::vector<int>& years, const char* separator) {
+  std::string out;
+  for (std::size_t i = 0; i < years.size(); ++i) {
+    if (i) out += separator;
+    out += std::to_string(years[i]);
+  }
+  return out;
+}
+
+struct BreakdownItem {
+  const char* key;    // JSON / CSV name
+  const char* label;  // table label
+  double CostBreakdown::*member;
+};
+
+constexpr BreakdownItem kBreakdown[] = {
+    {"investment", "investment (year 0)", &CostBreakdown::investment},
+    {"replacements", "replacements", &CostBreakdown::replacements},
+    {"fixed_om", "fixed O&M", &CostBreakdown::fixed_om},
+    {"variable_om", "variable O&M", &CostBreakdown::variable_om},
+    {"charging", "charging energy (incl. losses)", &CostBreakdown::charging},
+    {"end_of_life", "end of life", &CostBreakdown::end_of_life},
+    {"residual_value", "residual value (credit)", &CostBreakdown::residual_value},
+    {"backup", "back-up energy", &CostBreakdown::backup},
+    {"unserved_penalty", "unserved-energy penalty", &CostBreakdown::unserved_penalty},
+};
+
+std::string csv_number(double v) {
+  if (!std::isfinite(v)) return "";
+  return fmt::format("{:.10g}", v);
+}
+
+}  // namespace
+
+void write_design_json(JsonWriter& json, const DesignResult& d) {
+  json.begin_object();
+  json.field("profile", d.profile_id);
+  json.field("dod_setpoint", d.dod_setpoint);
+  json.field("cells_series", d.bank.cells_series);
+  json.field("strings_parallel", d.bank.strings_parallel);
+  json.field("nameplate_kwh", d.bank.nameplate_kwh);
+  json.field("lcos_per_kwh", d.lcos_per_kwh);
+  json.field("npc", d.npc);
+  json.field("currency", d.currency);
+  json.key("replacement_years").begin_array();
+  for (int y : d.replacement_years) json.value(y);
+  json.end_array();
+  json.field("discharged_kwh_per_year", d.mean_discharged_kwh_per_year());
+  json.field("discharged_kwh_first_year", d.discharged_kwh_first_year());
+  json.field("unserved_kwh_first_year", d.unserved_kwh_first_year());
+  json.field("backup_kwh_first_year", d.backup_kwh_first_year());
+  json.field("equivalent_full_cycles_first_year", d.equivalent_full_cycles_first_year());
+  json.field("investment", d.investment);
+  json.field("unserved_fraction_max", d.unserved_fraction_max);
+  json.field("meets_unserved_limit", d.meets_unserved_limit);
+  json.key("breakdown").begin_object();
+  for (const auto& item : kBreakdown) json.field(item.key, d.present_value.*item.member);
+  json.end_object();
+  json.end_object();
+}
+
+void print_design_table(std::ostream& out, const DesignResult& d) {
+  const auto& first = d.years.front().dispatch;
+  fmt::print(out, "{} at DoD {:.2f}: {} string{} x {} cells, {} kWh nameplate at {:g} V\n",
+             d.profile_id, d.dod_setpoint, d.bank.strings_parallel,
+             d.bank.strings_parallel == 1 ? "" : "s", d.bank.cells_series,
+             format_amount(d.bank.nameplate_kwh, 1), d.bank.nominal_voltage_v);
+  fmt::print(out, "  first year    discharged {} kWh, back-up {} kWh, unserved {} kWh, "
+                  "curtailed {} kWh, {:.0f} equivalent full cycles\n",
+             format_amount(first.discharged_terminal_kwh), format_amount(first.backup_kwh),
+             format_amount(first.unserved_kwh, 1), format_amount(first.curtailed_kwh),
+             first.equivalent_full_cycles);
+  const auto& y1 = d.years.front();
+  fmt::print(out, "  ageing        year-1 damage: cycling {:.3f}, calendar {:.3f}, partial charge {:.3f}\n",
+             y1.damage_cycle, y1.damage_calendar, y1.damage_partial_charge);
+  fmt::print(out, "  replacements  {}\n",
+             d.replacement_years.empty() ? std::string("none within the project")
+                                         : "end of year " + years_text(d.replacement_years, ", "));
+  if (!d.meets_unserved_limit)
+    fmt::print(out, "  WARNING       unserved energy reaches {:.3f} % of demand, above the site's limit\n",
+               100 * d.unserved_fraction_max);
+  fmt::print(out, "  present value ({})\n", d.currency);
+  for (const auto& item : kBreakdown) {
+    const double v = d.present_value.*item.member;
+    if (v == 0) continue;
+    fmt::print(out, "    {:<32}{:>14}\n", item.label, format_amount(v));
+  }
+  fmt::print(out, "    {:<32}{:>14}\n", "net present cost", format_amount(d.npc));
+  fmt::print(out, "  LCOS          {:.4f} {}/kWh discharged (storage costs / discounted discharged energy)\n",
+             d.lcos_per_kwh, d.currency);
+}
+
+std::string designs_summary_csv(const std::vector<DesignResult>& designs) {
+  std::ostringstream out;
+  out << "profile,dod_setpoint,cells_series,strings_parallel,nameplate_kwh,lcos_per_kwh,npc,"
+         "currency,replacement_years,discharged_kwh_per_year,discharged_kwh_first_year,"
+         "unserved_kwh_first_year,backup_kwh_first_year,equivalent_full_cycles_first_year,"
+         "meets_unserved_limit";
+  for (const auto& item : kBreakdown) out << ",pv_" << item.key;
+  out << "\n";
+  for (const auto& d : designs) {
+    out << d.profile_id << ',' << csv_number(d.dod_setpoint) << ',' << d.bank.cells_series << ','
+        << d.bank.strings_parallel << ',' << csv_number(d.bank.nameplate_kwh) << ','
+        << csv_number(d.lcos_per_kwh) << ',' << csv_number(d.npc) << ',' << d.currency << ','
+        << years_text(d.replacement_years, ";") << ','
+        << csv_number(d.mean_discharged_kwh_per_year()) << ','
+        << csv_number(d.discharged_kwh_first_year()) << ','
+        << csv_number(d.unserved_kwh_first_year()) << ',' << csv_number(d.backup_kwh_first_year())
+        << ',' << csv_number(d.equivalent_full_cycles_first_year()) << ','
+        << (d.meets_unserved_limit ? "true" : "false");
+    for (const auto& item : kBreakdown) out << ',' << csv_number(d.present_value.*item.member);
+    out << "\n";
+  }
+  return out.str();
+}
+
+std::string cash_flows_csv(const std::vector<DesignResult>& designs) {
+  std::ostringstream out;
+  out << "profile,dod_setpoint,strings_parallel,year,health_start,damage_cycle,damage_calendar,"
+         "damage_partial_charge,damage_end,replaced_at_end,discharged_kwh,charge_source_kwh,"
+         "backup_kwh,unserved_kwh,curtailed_kwh,investment,replacement,fixed_om,variable_om,"
+         "charging,backup,unserved_penalty,end_of_life,residual_value,total,discount_factor,"
+         "present_value\n";
+  for (const auto& d : designs) {
+    const std::string id = d.profile_id + ',' + csv_number(d.dod_setpoint) + ',' +
+                           std::to_string(d.bank.strings_parallel);
+    // Year 0: the investment.
+    out << id << ",0,,,,,,,,,,,," << csv_number(d.investment) << ",,,,,,,,,"
+        << csv_number(d.investment) << ",1," << csv_number(d.investment) << "\n";
+    for (const auto& y : d.years) {
+      out << id << ',' << y.year << ',' << csv_number(y.health_start) << ','
+          << csv_number(y.damage_cycle) << ',' << csv_number(y.damage_calendar) << ','
+          << csv_number(y.damage_partial_charge) << ',' << csv_number(y.damage_end) << ','
+          << (y.replaced_at_end ? "true" : "false") << ','
+          << csv_number(y.dispatch.discharged_terminal_kwh) << ','
+          << csv_number(y.dispatch.charge_source_kwh) << ',' << csv_number(y.dispatch.backup_kwh)
+          << ',' << csv_number(y.dispatch.unserved_kwh) << ','
+          << csv_number(y.dispatch.curtailed_kwh) << ",0," << csv_number(y.replacement) << ','
+          << csv_number(y.fixed_om) << ',' << csv_number(y.variable_om) << ','
+          << csv_number(y.charging) << ',' << csv_number(y.backup) << ','
+          << csv_number(y.unserved_penalty) << ',' << csv_number(y.end_of_life) << ','
+          << csv_number(y.residual_value) << ',' << csv_number(y.total()) << ','
+          << csv_number(y.discount_factor) << ',' << csv_number(y.total() * y.discount_factor)
+          << "\n";
+    }
+    // Year N + 1: end of life of the bank in service at the end of the project.
+    const int last = static_cast<int>(d.years.size()) + 1;
+    const double df = d.years.empty() ? 1.0 : d.years.back().discount_factor;
+    const double rate = d.years.empty() ? 0.0 : 1.0 / (d.years.front().discount_factor) - 1.0;
+    const double df_last = df / (1.0 + rate);
+    out << id << ',' << last << ",,,,,,,,,,,,0,0,0,0,0,0,0," << csv_number(d.final_end_of_life)
+        << ",0," << csv_number(d.final_end_of_life) << ',' << csv_number(df_last) << ','
+        << csv_number(d.final_end_of_life * df_last) << "\n";
+  }
+  return out.str();
+}
+
+void print_safety_notice(std::ostream& out) {
+  out << "Caution: this is a planning estimate from generic profiles and synthetic or measured\n"
+         "series, not a design certificate. Battery banks can hurt people: lead-acid banks give\n"
+         "off hydrogen while charging and need ventilation (IEC 62485-2), lithium banks can go\n"
+         "into thermal runaway (fire codes such as NFPA 855 where adopted), DC arcs, acid or\n"
+         "electrolyte and the weight of a bank injure. Follow local codes, the manufacturer's\n"
+         "instructions and licensed practice for any installation.\n";
+}
+
+}  // namespace stowage::cli
