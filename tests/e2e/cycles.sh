@@ -1,0 +1,44 @@
+#!/usr/bin/env bash
+# SPDX-License-Identifier: MIT
+# `stowage cycles` on the ASTM E1049-85 clause 5.4.4 example, written as SOC: the history
+# -2, 1, -3, 5, -1, 3, -4, 4, -2 mapped to SOC = (x + 5) / 10. Expected ranges /10 with counts
+# 0.3 -> 0.5, 0.4 -> 1.5, 0.6 -> 0.5, 0.8 -> 1.0, 0.9 -> 0.5 (check-values.md 1.1, READ-3P),
+# so equivalent full cycles = sum count x depth = 2.3.
+source "$(dirname "$0")/common.sh"
+"$PY" - "$WORK/soc.csv" "$WORK/soc_pct.csv" <<'PY'
+import sys
+history = [-2, 1, -3, 5, -1, 3, -4, 4, -2]
+with open(sys.argv[1], "w") as f:
+    f.write("# ASTM E1049-85 example as SOC\ntime,soc\n")
+    for i, x in enumerate(history):
+        f.write(f"t{i},{(x + 5) / 10:g}\n")
+with open(sys.argv[2], "w") as f:
+    f.write("soc_pct\n")
+    for x in history:
+        f.write(f"{(x + 5) * 10:g}\n")
+PY
+check_json='
+import json, math, sys
+doc = json.load(open(sys.argv[1]))
+by_depth = {}
+for c in doc["cycles"]:
+    k = round(c["depth"], 9)
+    by_depth[k] = by_depth.get(k, 0) + c["count"]
+want = {0.3: 0.5, 0.4: 1.5, 0.6: 0.5, 0.8: 1.0, 0.9: 0.5}
+assert by_depth == want, by_depth
+assert math.isclose(doc["equivalent_full_cycles"], 2.3, rel_tol=1e-9), doc["equivalent_full_cycles"]
+if len(sys.argv) > 2:
+    # Damage by Miner with N = 1000 D^-2 (the fixture profile, an exact power law):
+    # sum count x D^2 / 1000.
+    want_damage = sum(n * d * d / 1000.0 for d, n in want.items())
+    assert math.isclose(doc["damage"], want_damage, rel_tol=1e-9), (doc["damage"], want_damage)
+'
+expect_exit 0 -- "$STOWAGE" cycles --format json "$WORK/soc.csv" && "$PY" -c "$check_json" "$WORK/out" || fail "fraction series"
+expect_exit 0 -- "$STOWAGE" cycles --format json "$WORK/soc_pct.csv" && "$PY" -c "$check_json" "$WORK/out" || fail "percent series"
+profile="$SRC/tests/e2e/fixtures/power-law-profile.yaml"
+expect_exit 0 -- "$STOWAGE" cycles --format json --profile "$profile" "$WORK/soc.csv" && "$PY" -c "$check_json" "$WORK/out" damage || fail "damage with a profile"
+expect_exit 0 -- "$STOWAGE" cycles --profile "$profile" "$WORK/soc.csv" && grep -q "Equivalent full cycles: 2.30" "$WORK/out" || fail "text report"
+# A series with a value out of range is bad input naming the file and line.
+printf 'soc\n0.5\n1.7\n' >"$WORK/bad.csv"
+expect_exit 2 -- "$STOWAGE" cycles "$WORK/bad.csv" && grep -q "bad.csv:3" "$WORK/err" || fail "out-of-range SOC"
+finish

@@ -1,0 +1,46 @@
+#!/usr/bin/env bash
+# SPDX-License-Identifier: MIT
+# The shipped demo studies check, evaluate to JSON with the stable fields, and write their CSV
+# files completely (invented data: only shapes and identities are checked here, no values).
+source "$(dirname "$0")/common.sh"
+studies=("$SRC"/studies/*/study.yaml)
+[ "${#studies[@]}" -ge 3 ] || fail "expected the three demo studies, found ${#studies[@]}"
+for study in "${studies[@]}"; do
+  name=$(basename "$(dirname "$study")")
+  expect_exit 0 -- "$STOWAGE" check "$study" || continue
+  grep -q "valid" "$WORK/out" || fail "$name: check did not say valid"
+  expect_exit 0 -- "$STOWAGE" evaluate "$study" || continue
+  grep -q "Caution" "$WORK/out" || fail "$name: text report lacks the safety caution"
+  expect_exit 0 -- "$STOWAGE" evaluate --format json "$study" || continue
+  "$PY" - "$WORK/out" <<'PY' || fail "$name: JSON output"
+import json, math, sys
+doc = json.load(open(sys.argv[1]))
+fields = ["profile", "dod_setpoint", "cells_series", "strings_parallel", "nameplate_kwh",
+          "lcos_per_kwh", "npc", "currency", "replacement_years", "discharged_kwh_per_year",
+          "unserved_kwh_first_year", "backup_kwh_first_year",
+          "equivalent_full_cycles_first_year"]
+assert doc["designs"], "no designs"
+for d in doc["designs"]:
+    missing = [f for f in fields if f not in d]
+    assert not missing, f"missing {missing}"
+    assert 0 < d["dod_setpoint"] <= 1
+    assert d["strings_parallel"] >= 1 and d["cells_series"] >= 1
+    assert d["npc"] > 0 and d["nameplate_kwh"] > 0
+    # NPC is the sum of its present-value breakdown (identity of the report).
+    total = sum(d["breakdown"].values())
+    assert math.isclose(total, d["npc"], rel_tol=1e-9), (total, d["npc"])
+    years = d["replacement_years"]
+    assert years == sorted(years)
+PY
+  out="$WORK/out-$name"
+  expect_exit 0 -- "$STOWAGE" evaluate --out "$out" "$study" || continue
+  for f in designs.csv cash-flows.csv; do
+    [ -s "$out/$f" ] || fail "$name: $f missing or empty"
+  done
+  ls "$out" | grep -q partial && fail "$name: a temporary file was left behind"
+  expect_exit 0 -- "$STOWAGE" evaluate --format json "$study" || continue
+  designs=$("$PY" -c "import json,sys; print(len(json.load(open(sys.argv[1]))['designs']))" "$WORK/out")
+  rows=$(($(wc -l <"$out/designs.csv") - 1))
+  [ "$designs" = "$rows" ] || fail "$name: designs.csv has $rows rows for $designs designs"
+done
+finish
