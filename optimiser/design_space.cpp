@@ -1,0 +1,293 @@
+// SPDX-License-Identifier: MIT
+#include "optimiser/design_space.h"
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+#include <sstream>
+
+#include "model/bank.h"
+#include "model/economics.h"
+#include "model/sizing.h"
+
+namespace stowage {
+
+const char* to_string(StringCap cap) {
+  switch (cap) {
+    case StringCap::MaxStrings: return "max_strings_parallel";
+    case StringCap::Budget: return "budget";
+    case StringCap::Mass: return "max_mass_kg";
+    case StringCap::Volume: return "max_volume_l";
+    case StringCap::MissingMass: return "max_mass_kg (profile gives no cell_mass_kg)";
+    case StringCap::MissingVolume: return "max_volume_l (profile gives no cell_volume_l)";
+  }
+  return "?";
+}
+
+double string_nameplate_kwh(const ChemistryProfile& profile, double bus_voltage_v) {
+  return bank_geometry(profile, bus_voltage_v, 1).nameplate_kwh;
+}
+
+double string_discharge_power_kw(const ChemistryProfile& profile, double bus_voltage_v) {
+  const int cells = cells_in_series(profile, bus_voltage_v);
+  return profile.max_discharge_c_rate * profile.cell_capacity_ah * cells *
+         profile.mean_discharge_v / 1000.0;
+}
+
+double bank_investment(const ChemistryProfile& profile, double bus_voltage_v, int strings) {
+  const ProfileCosts& c = profile.costs;
+  return c.capital_per_kwh * string_nameplate_kwh(profile, bus_voltage_v) * strings +
+         c.capital_per_string * strings + c.installation_fixed;
+}
+
+double npc_lower_bound(const ChemistryProfile& profile, const Study& study, int strings) {
+  const Economics& e = study.economics;
+  const int n_years = e.project_years;
+  const double i = e.real_discount_rate;
+  const double nameplate = string_nameplate_kwh(profile, study.site.bus_voltage_v) * strings;
+  const double i0 = bank_investment(profile, study.site.bus_voltage_v, strings);
+  const ProfileCosts& c = profile.costs;
+  double bound = i0;
+  bound += c.fixed_om_per_kwh_year * nameplate * series_present_worth_factor(i, n_years);
+  bound -= i0 * std::max(1.0, c.replacement_share) * present_worth_factor(i, n_years);
+  bound += c.end_of_life_per_kwh * nameplate * present_worth_factor(i, n_years + 1);
+  if (c.end_of_life_per_kwh < 0 && n_years > 1) {
+    // A salvage credit at every possible replacement (at most one per year, years 1..N-1).
+    bound += c.end_of_life_per_kwh * nameplate * series_present_worth_factor(i, n_years - 1);
+  }
+  return bound;
+}
+
+namespace {
+
+// Least n >= 1 with design_usable_kwh(n) >= required, starting from the sizing rule's answer
+// and correcting it both ways so the rule and the check cannot disagree by rounding.
+int autonomy_strings(const ChemistryProfile& profile, const SiteConditions& site, double dod,
+                     double required, int start, int ceiling) {
+  int n = std::max(1, start);
+  const double tol = 1e-9 * std::max(1.0, required);
+  while (n <= ceiling && design_usable_kwh(profile, site, dod, n) + tol < required) ++n;
+  while (n > 1 && design_usable_kwh(profile, site, dod, n - 1) + tol >= required) --n;
+  return n;
+}
+
+int cap_by(double limit, double per_string) {
+  if (per_string <= 0) return std::numeric_limits<int>::max();
+  const double n = std::floor(limit / per_string * (1 + 1e-12));
+  return n > 1e9 ? std::numeric_limits<int>::max() : static_cast<int>(n);
+}
+
+}  // namespace
+
+DesignSpace build_design_space(const Study& study) {
+  DesignSpace space;
+  const SiteConditions& site = study.site;
+  double peak = 0;
+  for (std::size_t h = 0; h < site.load_kw.size(); ++h) {
+    peak = std::max(peak, site.load_kw[h] - site.source_kw[h]);
+  }
+  space.peak_discharge_terminal_kw = peak / site.inverter_efficiency;
+  const SearchSpace& s = study.search;
+
+  for (std::size_t p = 0; p < study.profiles.size(); ++p) {
+    const ChemistryProfile& profile = study.profiles[p];
+    const int cells = cells_in_series(profile, site.bus_voltage_v);
+    // Upper caps independent of the setpoint.
+    int cap_n = s.max_strings_parallel;
+    StringCap cap = StringCap::MaxStrings;
+    auto apply = [&](int n, StringCap why) {
+      if (n < cap_n) {
+        cap_n = n;
+        cap = why;
+      }
+    };
+    if (s.budget) {
+      const double per_string = bank_investment(profile, site.bus_voltage_v, 1) -
+                                profile.costs.installation_fixed;
+      apply(cap_by(*s.budget - profile.costs.installation_fixed, per_string), StringCap::Budget);
+      if (*s.budget < profile.costs.installation_fixed) apply(0, StringCap::Budget);
+    }
+    if (s.max_mass_kg) {
+      if (!profile.cell_mass_kg) {
+        apply(0, StringCap::MissingMass);
+        space.notes.push_back("profile " + profile.id +
+                              " gives no cell_mass_kg, so it cannot be shown to meet "
+                              "max_mass_kg and is left out");
+      } else {
+        apply(cap_by(*s.max_mass_kg, *profile.cell_mass_kg * cells), StringCap::Mass);
+      }
+    }
+    if (s.max_volume_l) {
+      if (!profile.cell_volume_l) {
+        apply(0, StringCap::MissingVolume);
+        space.notes.push_back("profile " + profile.id +
+                              " gives no cell_volume_l, so it cannot be shown to meet "
+                              "max_volume_l and is left out");
+      } else {
+        apply(cap_by(*s.max_volume_l, *profile.cell_volume_l * cells), StringCap::Volume);
+      }
+    }
+    const double power = string_discharge_power_kw(profile, site.bus_voltage_v);
+    const int c_rate_n =
+        space.peak_discharge_terminal_kw <= 0
+            ? 1
+            : std::max(1, static_cast<int>(std::ceil(space.peak_discharge_terminal_kw / power *
+                                                     (1 - 1e-12))));
+    for (double dod : dod_ladder(s, profile)) {
+      DesignChoice c;
+      c.profile_index = p;
+      c.dod_setpoint = dod;
+      const AutonomySizing sizing = size_for_autonomy(profile, site, dod);
+      c.required_usable_kwh = sizing.required_usable_kwh;
+      // The search never looks past max(cap, max_strings), so neither does the sizing loop.
+      const int ceiling = std::max({cap_n, s.max_strings_parallel, sizing.strings_parallel}) + 1;
+      c.autonomy_strings = autonomy_strings(profile, site, dod, sizing.required_usable_kwh,
+                                            sizing.strings_parallel, ceiling);
+      c.c_rate_strings = c_rate_n;
+      c.min_strings = std::max({1, c.autonomy_strings, c.c_rate_strings});
+      c.max_strings = cap_n;
+      c.cap = cap;
+      space.choices.push_back(c);
+    }
+  }
+  return space;
+}
+
+std::size_t DesignSpace::admissible_designs() const {
+  std::size_t total = 0;
+  for (const DesignChoice& c : choices) total += static_cast<std::size_t>(c.strings_count());
+  return total;
+}
+
+std::size_t DesignSpace::admissible_choices() const {
+  return static_cast<std::size_t>(std::count_if(
+      choices.begin(), choices.end(), [](const DesignChoice& c) { return c.admissible(); }));
+}
+
+namespace {
+std::string fmt(double x, int digits = 4) {
+  std::ostringstream s;
+  s.precision(digits);
+  s << x;
+  return s.str();
+}
+}  // namespace
+
+std::vector<UnmetRequirement> DesignSpace::diagnose(const Study& study) const {
+  std::vector<UnmetRequirement> unmet;
+  if (admissible_choices() > 0) return unmet;
+  if (choices.empty()) {
+    unmet.push_back({"dod ladder",
+                     "no profile allows any DoD setpoint of the search ladder (" +
+                         fmt(study.search.dod_from) + " to " + fmt(study.search.dod_to) +
+                         " in steps of " + fmt(study.search.dod_step) + ")",
+                     0, 0});
+    return unmet;
+  }
+  const SiteConditions& site = study.site;
+  // Pairs whose caps allow no bank at all.
+  bool any_bank = false;
+  for (const DesignChoice& c : choices) any_bank = any_bank || c.max_strings >= 1;
+  if (!any_bank) {
+    // Report the cap that rules out the most profiles, with the smallest bank it would need.
+    double cheapest = std::numeric_limits<double>::infinity();
+    double lightest = cheapest, smallest = cheapest;
+    bool missing_mass = false, missing_volume = false, budget = false, mass = false,
+         volume = false;
+    for (const DesignChoice& c : choices) {
+      const ChemistryProfile& p = study.profiles[c.profile_index];
+      const int cells = cells_in_series(p, site.bus_voltage_v);
+      cheapest = std::min(cheapest, bank_investment(p, site.bus_voltage_v, 1));
+      if (p.cell_mass_kg) lightest = std::min(lightest, *p.cell_mass_kg * cells);
+      if (p.cell_volume_l) smallest = std::min(smallest, *p.cell_volume_l * cells);
+      missing_mass |= c.cap == StringCap::MissingMass;
+      missing_volume |= c.cap == StringCap::MissingVolume;
+      budget |= c.cap == StringCap::Budget;
+      mass |= c.cap == StringCap::Mass;
+      volume |= c.cap == StringCap::Volume;
+    }
+    if (study.search.max_strings_parallel < 1) {
+      unmet.push_back({"max_strings_parallel", "max_strings_parallel is below one string", 1,
+                       static_cast<double>(study.search.max_strings_parallel)});
+    }
+    if (budget) {
+      unmet.push_back({"budget",
+                       "the budget of " + fmt(*study.search.budget) +
+                           " buys no bank: the cheapest one-string bank costs " + fmt(cheapest),
+                       cheapest, *study.search.budget});
+    }
+    if (mass) {
+      unmet.push_back({"max_mass_kg",
+                       "max_mass_kg " + fmt(*study.search.max_mass_kg) +
+                           " is below the lightest string (" + fmt(lightest) + " kg)",
+                       lightest, *study.search.max_mass_kg});
+    }
+    if (volume) {
+      unmet.push_back({"max_volume_l",
+                       "max_volume_l " + fmt(*study.search.max_volume_l) +
+                           " is below the smallest string (" + fmt(smallest) + " l)",
+                       smallest, *study.search.max_volume_l});
+    }
+    if (missing_mass || missing_volume) {
+      std::string text;
+      for (const std::string& n : notes) text += (text.empty() ? "" : "; ") + n;
+      unmet.push_back({missing_mass ? "max_mass_kg" : "max_volume_l", text, 0, 0});
+    }
+    return unmet;
+  }
+  // Some bank is allowed, but too small: compare what is needed with the most allowed.
+  double need_energy = 0, best_energy = 0, need_power = peak_discharge_terminal_kw,
+         best_power = 0;
+  std::string best_energy_at, best_power_at, cap_note;
+  bool energy_met = false, power_met = false;
+  for (const DesignChoice& c : choices) {
+    if (c.max_strings < 1) continue;
+    const ChemistryProfile& p = study.profiles[c.profile_index];
+    const double usable = design_usable_kwh(p, site, c.dod_setpoint, c.max_strings);
+    need_energy = std::max(need_energy, c.required_usable_kwh);
+    if (usable > best_energy) {
+      best_energy = usable;
+      best_energy_at = p.id + " at DoD " + fmt(c.dod_setpoint, 3) + " with " +
+                       std::to_string(c.max_strings) + " strings (capped by " +
+                       to_string(c.cap) + ")";
+    }
+    const double power = string_discharge_power_kw(p, site.bus_voltage_v) * c.max_strings;
+    if (power > best_power) {
+      best_power = power;
+      best_power_at = p.id + " with " + std::to_string(c.max_strings) + " strings (capped by " +
+                      to_string(c.cap) + ")";
+    }
+    energy_met |= c.autonomy_strings <= c.max_strings;
+    power_met |= c.c_rate_strings <= c.max_strings;
+  }
+  if (energy_met && power_met) {
+    unmet.push_back({"autonomy and peak discharge",
+                     "no allowed bank meets both the autonomy energy (" + fmt(need_energy) +
+                         " kWh usable) and the peak draw (" + fmt(need_power) +
+                         " kW at the terminals): the banks with enough energy lack power and "
+                         "the other way round",
+                     need_energy, best_energy});
+  }
+  if (!energy_met) {
+    unmet.push_back({"autonomy",
+                     "autonomy of " + fmt(site.autonomy_days) + " days needs " +
+                         fmt(need_energy) +
+                         " kWh usable at the terminals (coldest month, end of life, within the "
+                         "DoD setpoint); the most any allowed bank gives is " +
+                         fmt(best_energy) + " kWh (" + best_energy_at + "), short by " +
+                         fmt(need_energy - best_energy) + " kWh",
+                     need_energy, best_energy});
+  }
+  if (!power_met) {
+    unmet.push_back({"peak discharge",
+                     "the peak draw needs " + fmt(need_power) +
+                         " kW at the bank terminals within the discharge C-rate; the most any "
+                         "allowed bank gives is " +
+                         fmt(best_power) + " kW (" + best_power_at + "), short by " +
+                         fmt(need_power - best_power) + " kW",
+                     need_power, best_power});
+  }
+  return unmet;
+}
+
+}  // namespace stowage

@@ -1,0 +1,93 @@
+// SPDX-License-Identifier: MIT
+// DesignSpace: every (profile, DoD setpoint) pair the optimiser may choose, with the range of
+// strings in parallel that meets the study's hard requirements, a rigorous lower bound on the
+// net present cost of any design, and the diagnosis when no design can meet them.
+//
+// For profile p at setpoint d (d from dod_ladder(search, p)) a bank of n strings is admissible
+// when all of these hold (n integer, cells in series fixed by the bus voltage):
+//   autonomy (IEEE Std 1013 approach, model/sizing.h):
+//       design_usable_kwh(p, site, d, n) >= size_for_autonomy(p, site, d).required_usable_kwh
+//   peak discharge (C-rate at the terminals):
+//       n x max_discharge_c_rate x cell_capacity_ah x cells_series x mean_discharge_v / 1000
+//         >= max over hours of (load - source) / inverter_efficiency            [kW]
+//     i.e. the rated capacity delivered at the profile's C-rate limit and its mean discharge
+//     voltage covers the largest hourly draw at the terminals;
+//   1 <= n <= search.max_strings_parallel;
+//   year-0 investment I0(n) <= search.budget                                 (when set);
+//   n x cells_series x cell_mass_kg  <= search.max_mass_kg                    (when set);
+//   n x cells_series x cell_volume_l <= search.max_volume_l                   (when set).
+// Autonomy and C-rate bound n from below, the others from above, so the admissible strings of
+// a pair form one interval [min_strings, max_strings] (empty when min > max).
+// The charge C-rate is NOT a feasibility constraint: a bank too small to take the whole surplus
+// just curtails it, which the exact simulator prices (lost energy, more back-up). It enters
+// the optimisation as a dispatch limit only.
+// The unserved-energy limit (site.unserved_limit_fraction) depends on the dispatch and is
+// checked on each exactly evaluated design (DesignResult::meets_unserved_limit), not here.
+// A profile that lacks cell_mass_kg (cell_volume_l) cannot prove it meets max_mass_kg
+// (max_volume_l), so all its pairs are inadmissible and the reason is recorded.
+#pragma once
+
+#include <cstddef>
+#include <string>
+#include <vector>
+
+#include "model/study.h"
+
+namespace stowage {
+
+// What caps the strings of a pair from above.
+enum class StringCap { MaxStrings, Budget, Mass, Volume, MissingMass, MissingVolume };
+const char* to_string(StringCap cap);
+
+struct DesignChoice {
+  std::size_t profile_index = 0;  // into Study::profiles
+  double dod_setpoint = 0;
+  int autonomy_strings = 1;       // least n meeting the autonomy rule
+  int c_rate_strings = 1;         // least n meeting the peak discharge
+  int min_strings = 1;            // max(autonomy_strings, c_rate_strings, 1)
+  int max_strings = 0;            // least of the caps; may be < 1
+  StringCap cap = StringCap::MaxStrings;
+  double required_usable_kwh = 0;  // autonomy requirement at the terminals
+
+  bool admissible() const { return min_strings <= max_strings; }
+  int strings_count() const { return admissible() ? max_strings - min_strings + 1 : 0; }
+};
+
+// One requirement no design meets, with the numbers that show by how much.
+struct UnmetRequirement {
+  std::string requirement;  // e.g. "autonomy", "peak discharge", "budget"
+  std::string detail;       // a full sentence with the figures
+  double needed = 0;
+  double best_available = 0;
+};
+
+struct DesignSpace {
+  std::vector<DesignChoice> choices;       // every (profile, ladder setpoint) pair
+  double peak_discharge_terminal_kw = 0;   // max (load - source)^+ / inverter_efficiency
+  std::vector<std::string> notes;          // e.g. profiles excluded by a missing cell mass
+
+  std::size_t admissible_designs() const;  // sum of strings_count()
+  std::size_t admissible_choices() const;
+  // Why no admissible pair exists; empty when some pair is admissible.
+  std::vector<UnmetRequirement> diagnose(const Study& study) const;
+};
+
+DesignSpace build_design_space(const Study& study);
+
+// Per-string figures of a profile on the study's bus.
+double string_nameplate_kwh(const ChemistryProfile& profile, double bus_voltage_v);
+double string_discharge_power_kw(const ChemistryProfile& profile, double bus_voltage_v);
+// Year-0 investment I0(n) = capital_per_kwh x nameplate + capital_per_string x n + install.
+double bank_investment(const ChemistryProfile& profile, double bus_voltage_v, int strings);
+
+// A lower bound on DesignResult::npc of any design of `profile` with `strings` strings,
+// whatever the setpoint and dispatch: the year-0 investment, plus fixed O&M (exact:
+// proportional to nameplate every year), minus the largest residual credit the conventions of
+// model/lifecycle.h allow (at most the price paid for the bank in service, credited at N),
+// plus end-of-life flows bounded below (a salvage value may be credited at most once a year
+// and once at N + 1). Every other item (replacements, variable O&M, charging, back-up,
+// penalty) is >= 0 and left out. Non-decreasing in `strings` when the string price is
+// positive and the residual credit factor is below one.
+double npc_lower_bound(const ChemistryProfile& profile, const Study& study, int strings);
+
+}  // namespace stowage

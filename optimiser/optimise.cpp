@@ -1,0 +1,485 @@
+// SPDX-License-Identifier: MIT
+#include "optimiser/optimise.h"
+
+#include <algorithm>
+#include <chrono>
+#include <cmath>
+#include <limits>
+#include <map>
+#include <memory>
+#include <sstream>
+#include <stdexcept>
+
+#include "model/invalid_value.h"
+#include "optimiser/representative_days.h"
+#include "optimiser/storage_milp.h"
+
+namespace stowage {
+
+const char* to_string(SearchMethod method) {
+  return method == SearchMethod::Milp ? "milp" : "exhaustive";
+}
+
+std::optional<SearchMethod> search_method_from_string(std::string_view text) {
+  if (text == "milp") return SearchMethod::Milp;
+  if (text == "exhaustive") return SearchMethod::Exhaustive;
+  return std::nullopt;
+}
+
+void OptimiseOptions::validate() const {
+  if (time_limit_s && !(*time_limit_s > 0)) throw InvalidValue("time_limit_s", "must be > 0");
+  if (days_per_block < 1 || days_per_block > 28) {
+    throw InvalidValue("days_per_block", "must be between 1 and 28");
+  }
+  if (!(base_margin >= 0 && base_margin < 1)) throw InvalidValue("base_margin", "must be in [0, 1)");
+  if (!(lone_margin >= 0 && lone_margin < 1)) throw InvalidValue("lone_margin", "must be in [0, 1)");
+  if (patience < 1) throw InvalidValue("patience", "must be >= 1");
+}
+
+namespace {
+
+constexpr double kNaN = std::numeric_limits<double>::quiet_NaN();
+constexpr double kInf = std::numeric_limits<double>::infinity();
+
+using Clock = std::chrono::steady_clock;
+
+double median(std::vector<double> v) {
+  std::sort(v.begin(), v.end());
+  const std::size_t k = v.size();
+  return k % 2 ? v[k / 2] : 0.5 * (v[k / 2 - 1] + v[k / 2]);
+}
+
+// The state of one search: evaluators, cache of exact results, the incumbents.
+class Search {
+ public:
+  Search(const Study& study, const OptimiseOptions& options)
+      : study_(study), options_(options), start_(Clock::now()) {
+    space_ = build_design_space(study);
+    for (const ChemistryProfile& p : study.profiles) {
+      evaluators_.push_back(std::make_unique<LifecycleEvaluator>(p, study.site, study.economics));
+    }
+    profile_best_.resize(study.profiles.size());
+    ratios_.resize(study.profiles.size());
+    lower_bound_.resize(space_.choices.size(), kInf);
+    for (std::size_t c = 0; c < space_.choices.size(); ++c) {
+      const DesignChoice& ch = space_.choices[c];
+      if (ch.admissible()) {
+        lower_bound_[c] = npc_lower_bound(study.profiles[ch.profile_index], study, ch.min_strings);
+      }
+    }
+  }
+
+  OptimiseResult run() {
+    OptimiseResult result;
+    result.method = options_.method;
+    result.admissible_designs = space_.admissible_designs();
+    result.notes = space_.notes;
+    result.unmet = space_.diagnose(study_);
+    if (!result.unmet.empty()) {
+      result.proven_optimal = true;  // infeasibility of the caps is exact
+      result.solve_seconds = elapsed();
+      return result;
+    }
+    days_ = select_representative_days(study_.site, options_.days_per_block);
+    bool complete = options_.method == SearchMethod::Exhaustive ? run_exhaustive() : run_milp();
+    if (options_.method == SearchMethod::Milp && !any_feasible() && !time_up()) {
+      complete = settle_unserved_limit() && complete;
+    }
+
+    for (auto& best : profile_best_) {
+      if (best) result.ranking.push_back(*best);
+    }
+    std::stable_sort(result.ranking.begin(), result.ranking.end(),
+                     [](const DesignResult& a, const DesignResult& b) { return a.npc < b.npc; });
+    result.designs_evaluated_exactly = evaluated_;
+    result.submodels_solved = submodels_solved_;
+    result.pairs_pruned_by_bound = pruned_bound_;
+    result.pairs_pruned_by_estimate = pruned_estimate_;
+    result.time_limit_reached = hit_limit_;
+    result.proven_optimal = complete && !hit_limit_ && milp_all_optimal_;
+    result.model_estimate_npc = result.model_estimate_per_kwh = result.gap = kNaN;
+    if (result.feasible()) {
+      estimate_answer(result);
+    } else if (!hit_limit_) {
+      result.unmet.push_back(unserved_diagnosis());
+    }
+    result.solve_seconds = elapsed();
+    return result;
+  }
+
+ private:
+  struct Exact {
+    double npc = kInf;
+    bool feasible = false;
+    double unserved_fraction = kInf;
+  };
+
+  double elapsed() const { return std::chrono::duration<double>(Clock::now() - start_).count(); }
+  bool time_up() {
+    if (options_.time_limit_s && elapsed() >= *options_.time_limit_s) hit_limit_ = true;
+    return hit_limit_;
+  }
+  double remaining() const {
+    return options_.time_limit_s ? std::max(1e-3, *options_.time_limit_s - elapsed()) : 1e7;
+  }
+  double best_npc() const { return best_ ? best_->npc : kInf; }
+  bool any_feasible() const { return best_.has_value(); }
+
+  void report(const char* phase, std::size_t done, std::size_t total) {
+    if (!options_.progress) return;
+    OptimiseProgress p;
+    p.phase = phase;
+    p.done = done;
+    p.total = total;
+    p.seconds = elapsed();
+    p.best_npc = best_ ? best_->npc : kNaN;
+    options_.progress(p);
+  }
+
+  // Exact evaluation with a cache; keeps the incumbents up to date.
+  const Exact& evaluate(std::size_t c, int n) {
+    const auto key = std::make_pair(c, n);
+    auto it = cache_.find(key);
+    if (it != cache_.end()) return it->second;
+    const DesignChoice& ch = space_.choices[c];
+    DesignResult r = evaluators_[ch.profile_index]->evaluate(ch.dod_setpoint, n);
+    ++evaluated_;
+    Exact e;
+    e.npc = r.npc;
+    e.feasible = r.meets_unserved_limit;
+    e.unserved_fraction = r.unserved_fraction_max;
+    if (e.unserved_fraction < least_unserved_) {
+      least_unserved_ = e.unserved_fraction;
+      least_unserved_at_ = r.profile_id + " at DoD " + fixed(r.dod_setpoint, 2) + " with " +
+                           std::to_string(n) + " strings";
+    }
+    if (e.feasible) {
+      auto& pb = profile_best_[ch.profile_index];
+      if (!pb || r.npc < pb->npc) pb = r;
+      if (!best_ || r.npc < best_->npc) {
+        best_ = r;
+        best_choice_ = c;
+      }
+    }
+    return cache_.emplace(key, e).first->second;
+  }
+
+  static std::string fixed(double x, int digits) {
+    std::ostringstream s;
+    s.setf(std::ios::fixed);
+    s.precision(digits);
+    s << x;
+    return s.str();
+  }
+
+  MilpChoice milp_choice(std::size_t c, int lo, int hi) const {
+    const DesignChoice& ch = space_.choices[c];
+    MilpChoice m;
+    m.profile = &study_.profiles[ch.profile_index];
+    m.acceleration = &evaluators_[ch.profile_index]->acceleration();
+    m.dod_setpoint = ch.dod_setpoint;
+    m.min_strings = lo;
+    m.max_strings = hi;
+    return m;
+  }
+
+  SolveReport solve_submodel(std::size_t c, int lo, int hi) {
+    StorageMilp model(study_, {milp_choice(c, lo, hi)}, days_);
+    MilpOptions mo;
+    mo.time_limit_s = remaining();
+    SolveReport r = model.solve(mo);
+    return r;
+  }
+
+  // ---- exhaustive -------------------------------------------------------------------------
+  bool run_exhaustive() {
+    const std::size_t total = space_.admissible_designs();
+    std::size_t done = 0;
+    for (std::size_t c = 0; c < space_.choices.size(); ++c) {
+      const DesignChoice& ch = space_.choices[c];
+      for (int n = ch.min_strings; n <= ch.max_strings && ch.admissible(); ++n) {
+        if (time_up()) return false;
+        evaluate(c, n);
+        if (++done % 16 == 0) report("exhaustive", done, total);
+      }
+    }
+    report("exhaustive", done, total);
+    return true;
+  }
+
+  // ---- model-guided search ----------------------------------------------------------------
+  struct PairState {
+    bool solved = false;
+    bool model_feasible = false;
+    double estimate = kInf;
+    int model_strings = 0;
+    bool searched = false;
+  };
+
+  void solve_pair(std::size_t c) {
+    PairState& s = pairs_[c];
+    if (s.solved) return;
+    const DesignChoice& ch = space_.choices[c];
+    SolveReport r = solve_submodel(c, ch.min_strings, ch.max_strings);
+    ++submodels_solved_;
+    s.solved = true;
+    if (r.outcome == SolveOutcome::TimeLimit || r.outcome == SolveOutcome::NoSolution ||
+        r.outcome == SolveOutcome::Error) {
+      milp_all_optimal_ = false;
+    }
+    if (r.solution_usable()) {
+      s.model_feasible = true;
+      s.estimate = r.estimate_npc;
+      s.model_strings = r.strings;
+    } else {
+      // The model finds the pair infeasible (its representative days miss the unserved limit)
+      // or failed: search from the largest bank, where unserved energy is least.
+      s.model_feasible = false;
+      s.model_strings = ch.max_strings;
+    }
+  }
+
+  // Local search in strings for pair c from the model's choice; returns the best exact npc of
+  // the pair found (inf when none meets the unserved limit).
+  double local_search(std::size_t c) {
+    PairState& s = pairs_[c];
+    s.searched = true;
+    const DesignChoice& ch = space_.choices[c];
+    const ChemistryProfile& profile = study_.profiles[ch.profile_index];
+    const int n0 = std::clamp(s.model_strings, ch.min_strings, ch.max_strings);
+    double pair_best = kInf;
+    if (time_up()) return pair_best;
+    const Exact& e0 = evaluate(c, n0);
+    if (e0.feasible) pair_best = e0.npc;
+    for (int dir : {+1, -1}) {
+      int misses = 0;
+      for (int n = n0 + dir; n >= ch.min_strings && n <= ch.max_strings; n += dir) {
+        if (time_up()) return pair_best;
+        if (dir > 0 && npc_lower_bound(profile, study_, n) >= std::min(best_npc(), pair_best)) {
+          break;
+        }
+        const Exact& e = evaluate(c, n);
+        if (e.feasible && e.npc < pair_best) {
+          pair_best = e.npc;
+          misses = 0;
+        } else if (pair_best < kInf || dir < 0) {
+          // Without any feasible bank yet, larger banks are the way to meet the limit.
+          if (++misses >= options_.patience) break;
+        }
+      }
+      report("verify", evaluated_, space_.admissible_designs());
+    }
+    if (s.model_feasible && pair_best < kInf && s.estimate > 0) {
+      ratios_[ch.profile_index].push_back(pair_best / s.estimate);
+    }
+    return pair_best;
+  }
+
+  // The calibrated prediction of the best exact npc of pair c, less the safety margin.
+  double calibrated_floor(std::size_t c) const {
+    const PairState& s = pairs_[c];
+    const std::vector<double>& obs = ratios_[space_.choices[c].profile_index];
+    std::vector<double> pool = obs;
+    if (pool.empty()) {
+      for (const auto& v : ratios_) pool.insert(pool.end(), v.begin(), v.end());
+    }
+    if (pool.empty()) return -kInf;
+    const double ratio = median(pool);
+    double spread = 0;
+    for (double r : pool) spread = std::max(spread, std::fabs(r - ratio) / ratio);
+    double margin = std::max(options_.base_margin, 2 * spread);
+    if (obs.size() < 3) margin = std::max(margin, options_.lone_margin);
+    margin = std::min(margin, 0.95);
+    const double predicted = s.estimate * ratio;
+    // A negative estimate scales the other way; the margin always widens toward lower cost.
+    return predicted >= 0 ? predicted * (1 - margin) : predicted * (1 + margin);
+  }
+
+  bool run_milp() {
+    pairs_.assign(space_.choices.size(), PairState{});
+    std::vector<std::size_t> order;
+    for (std::size_t c = 0; c < space_.choices.size(); ++c) {
+      if (space_.choices[c].admissible()) order.push_back(c);
+    }
+    std::stable_sort(order.begin(), order.end(), [&](std::size_t a, std::size_t b) {
+      return lower_bound_[a] < lower_bound_[b];
+    });
+    const std::size_t pairs_total = order.size();
+
+    // 1-2. Per profile: solve its pairs in bound order, deferring those whose bound exceeds
+    // the profile's best estimate by far; search the best-estimate pair exactly.
+    std::size_t solved_count = 0;
+    for (std::size_t p = 0; p < study_.profiles.size(); ++p) {
+      double profile_estimate = kInf;
+      std::size_t profile_pick = pairs_total;  // none
+      for (std::size_t c : order) {
+        if (space_.choices[c].profile_index != p) continue;
+        if (time_up()) return false;
+        if (profile_estimate < kInf &&
+            lower_bound_[c] > profile_estimate + 0.25 * std::fabs(profile_estimate)) {
+          continue;  // deferred to step 3, where the exact incumbent decides
+        }
+        solve_pair(c);
+        report("model", ++solved_count, pairs_total);
+        if (pairs_[c].model_feasible && pairs_[c].estimate < profile_estimate) {
+          profile_estimate = pairs_[c].estimate;
+          profile_pick = c;
+        }
+      }
+      if (profile_pick == pairs_total) {
+        // No pair of this profile is feasible in the model: try its cheapest pair by bound.
+        for (std::size_t c : order) {
+          if (space_.choices[c].profile_index == p) {
+            profile_pick = c;
+            break;
+          }
+        }
+      }
+      if (profile_pick < pairs_total && pairs_[profile_pick].solved) local_search(profile_pick);
+    }
+
+    // 3. Every other pair, cheapest estimate (or bound, when unsolved) first.
+    std::vector<std::size_t> rest;
+    for (std::size_t c : order) {
+      if (!pairs_[c].searched) rest.push_back(c);
+    }
+    auto key = [&](std::size_t c) {
+      return pairs_[c].solved && pairs_[c].model_feasible ? pairs_[c].estimate : lower_bound_[c];
+    };
+    std::stable_sort(rest.begin(), rest.end(),
+                     [&](std::size_t a, std::size_t b) { return key(a) < key(b); });
+    for (std::size_t c : rest) {
+      if (time_up()) return false;
+      if (lower_bound_[c] >= best_npc()) {
+        ++pruned_bound_;
+        continue;
+      }
+      solve_pair(c);
+      if (any_feasible() && pairs_[c].model_feasible && calibrated_floor(c) >= best_npc()) {
+        ++pruned_estimate_;
+        continue;
+      }
+      local_search(c);
+    }
+    return !time_up();
+  }
+
+  // Nothing met the unserved limit: try the largest allowed bank of every pair (least unserved
+  // energy); if one meets it, search down from there.
+  bool settle_unserved_limit() {
+    std::vector<std::size_t> found;
+    for (std::size_t c = 0; c < space_.choices.size(); ++c) {
+      const DesignChoice& ch = space_.choices[c];
+      if (!ch.admissible()) continue;
+      if (time_up()) return false;
+      if (evaluate(c, ch.max_strings).feasible) found.push_back(c);
+    }
+    if (pairs_.size() != space_.choices.size()) pairs_.assign(space_.choices.size(), PairState{});
+    for (std::size_t c : found) {
+      pairs_[c].model_strings = space_.choices[c].max_strings;
+      pairs_[c].model_feasible = false;
+      local_search(c);
+    }
+    return !time_up();
+  }
+
+  UnmetRequirement unserved_diagnosis() const {
+    UnmetRequirement u;
+    u.requirement = "unserved energy limit";
+    u.needed = study_.site.unserved_limit_fraction.value_or(0);
+    u.best_available = least_unserved_;
+    std::ostringstream s;
+    s << "no admissible design keeps unserved energy within " << u.needed * 100
+      << " % of demand in every year; the least reached is " << least_unserved_ * 100
+      << " % (" << least_unserved_at_ << ")";
+    u.detail = s.str();
+    return u;
+  }
+
+  // The model's estimate of the answer's own design: the sub-model with the strings fixed.
+  void estimate_answer(OptimiseResult& result) {
+    const DesignResult& best = result.best();
+    std::size_t c = space_.choices.size();
+    for (std::size_t k = 0; k < space_.choices.size(); ++k) {
+      const DesignChoice& ch = space_.choices[k];
+      if (study_.profiles[ch.profile_index].id == best.profile_id &&
+          std::fabs(ch.dod_setpoint - best.dod_setpoint) < 1e-9) {
+        c = k;
+        break;
+      }
+    }
+    if (c == space_.choices.size()) return;
+    const int n = best.bank.strings_parallel;
+    StorageMilp model(study_, {milp_choice(c, n, n)}, days_);
+    MilpOptions mo;
+    mo.time_limit_s = 60;
+    const SolveReport r = model.solve(mo);
+    if (!r.solution_usable()) return;
+    result.model_estimate_npc = r.estimate_npc;
+    result.model_estimate_per_kwh = r.estimate_lcos_per_kwh;
+    result.gap = (best.npc - r.estimate_npc) / std::max(std::fabs(best.npc), 1e-9);
+  }
+
+  const Study& study_;
+  const OptimiseOptions& options_;
+  Clock::time_point start_;
+  DesignSpace space_;
+  RepresentativeDays days_;
+  std::vector<std::unique_ptr<LifecycleEvaluator>> evaluators_;
+  std::vector<double> lower_bound_;
+  std::vector<PairState> pairs_;
+  std::map<std::pair<std::size_t, int>, Exact> cache_;
+  std::vector<std::optional<DesignResult>> profile_best_;
+  std::vector<std::vector<double>> ratios_;
+  std::optional<DesignResult> best_;
+  std::size_t best_choice_ = 0;
+  std::size_t evaluated_ = 0, submodels_solved_ = 0, pruned_bound_ = 0, pruned_estimate_ = 0;
+  bool hit_limit_ = false;
+  bool milp_all_optimal_ = true;
+  double least_unserved_ = kInf;
+  std::string least_unserved_at_;
+};
+
+}  // namespace
+
+OptimiseResult optimise(const Study& study, const OptimiseOptions& options) {
+  options.validate();
+  Search search(study, options);
+  return search.run();
+}
+
+double export_design_space_model(const Study& study, const std::string& path, int days_per_block,
+                                 bool solve) {
+  const DesignSpace space = build_design_space(study);
+  std::vector<std::unique_ptr<LifecycleEvaluator>> evaluators;
+  for (const ChemistryProfile& p : study.profiles) {
+    evaluators.push_back(std::make_unique<LifecycleEvaluator>(p, study.site, study.economics));
+  }
+  std::vector<MilpChoice> choices;
+  for (const DesignChoice& ch : space.choices) {
+    if (!ch.admissible()) continue;
+    MilpChoice m;
+    m.profile = &study.profiles[ch.profile_index];
+    m.acceleration = &evaluators[ch.profile_index]->acceleration();
+    m.dod_setpoint = ch.dod_setpoint;
+    m.min_strings = ch.min_strings;
+    m.max_strings = ch.max_strings;
+    choices.push_back(m);
+  }
+  if (choices.empty()) {
+    throw std::runtime_error("no admissible design: there is no model to export");
+  }
+  StorageMilp model(study, std::move(choices),
+                    select_representative_days(study.site, days_per_block));
+  const bool lp = path.size() >= 3 && path.compare(path.size() - 3, 3, ".lp") == 0;
+  if (lp) {
+    model.write_lp(path);
+  } else {
+    model.write_mps(path);
+  }
+  if (!solve) return kNaN;
+  const SolveReport r = model.solve(MilpOptions{});
+  return r.solution_usable() ? r.glpk_objective : kNaN;
+}
+
+}  // namespace stowage
