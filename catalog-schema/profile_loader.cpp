@@ -82,12 +82,14 @@ std::vector<CycleLifePoint> read_cycle_life(const YamlDocument& doc, const YAML:
                              std::to_string(other) + "); each point needs its own DoD");
     }
     if (!(points[hi].cycles < points[lo].cycles)) {
+      const bool deeper = at == hi;  // is the reported point the deeper one of the pair?
       throw doc.error_at(
           list[at]["cycles"], join_index(path, at) + ".cycles",
-          "cycle life must fall as DoD grows: " + text_of(points[hi].cycles) + " cycles at DoD " +
-              text_of(points[hi].dod) + " is not fewer than " + text_of(points[lo].cycles) +
-              " cycles at DoD " + text_of(points[lo].dod) + " (entry " + std::to_string(other) +
-              ")");
+          "cycle life must fall as DoD grows: " + text_of(points[at].cycles) + " cycles at DoD " +
+              text_of(points[at].dod) + (deeper ? " is not fewer than " : " is not more than ") +
+              text_of(points[other].cycles) + " cycles at the " +
+              (deeper ? "shallower" : "deeper") + " DoD " + text_of(points[other].dod) +
+              " (entry " + std::to_string(other) + ")");
     }
   }
   return points;

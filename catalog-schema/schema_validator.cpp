@@ -209,6 +209,15 @@ YAML::Node SchemaValidator::resolve(const YAML::Node& schema) const {
 
 std::vector<InputError> SchemaValidator::check(const YamlDocument& document) const {
   std::vector<InputError> out;
+  if (document.root().IsNull() && schema_["required"]) {
+    // An empty file: say which top-level key it needs rather than "expected a mapping".
+    for (const YAML::Node& key : schema_["required"]) {
+      out.push_back(document.error_at(document.root(), key.Scalar(),
+                                      "the file is empty; it must start with '" + key.Scalar() +
+                                          ":'"));
+    }
+    return out;
+  }
   check_node(schema_, document.root(), document.root(), "", document, out);
   std::stable_sort(out.begin(), out.end(), earlier);
   return out;
@@ -438,7 +447,7 @@ void SchemaValidator::check_one_of(const YAML::Node& schema, const YAML::Node& v
       for (auto it = value.begin(); it != value.end(); ++it) {
         if (it->first.Scalar() != keys.back()) continue;
         if (!last_key || it->first.Mark().line > last_key.Mark().line) {
-          last_key = it->first;
+          last_key.reset(it->first);  // reset, not =: operator= writes into the document
           last_name = keys.back();
         }
       }

@@ -1,8 +1,8 @@
 // SPDX-License-Identifier: MIT
 #include "catalog-schema/yaml_document.h"
 
+#include <algorithm>
 #include <cctype>
-#include <clocale>
 #include <cmath>
 #include <cstdlib>
 #include <iterator>
@@ -70,6 +70,37 @@ std::string guess_path(const std::string& text, int line) {
   std::string path;
   for (const auto& entry : stack) path = join_key(path, entry.second);
   return path;
+}
+
+// For an unclosed flow collection ("{min: 0, max: 45" without "}") yaml-cpp stops at the next
+// key, one or more lines later; the line the reader must fix is the last one above that opens
+// more brackets than it closes. Returns that 0-based line and column, or leaves them alone.
+void find_unclosed_bracket(const std::string& text, int& line, int& column) {
+  std::vector<std::string> rows;
+  std::istringstream in(text);
+  std::string row;
+  while (std::getline(in, row)) rows.push_back(row);
+  for (int i = std::min(line, static_cast<int>(rows.size()) - 1); i >= 0; --i) {
+    int depth = 0;
+    int opened_at = -1;
+    bool quoted = false;
+    for (std::size_t c = 0; c < rows[i].size(); ++c) {
+      const char ch = rows[i][c];
+      if (ch == '"' || ch == '\'') quoted = !quoted;
+      if (quoted) continue;
+      if (ch == '#') break;
+      if (ch == '{' || ch == '[') {
+        if (depth == 0) opened_at = static_cast<int>(c);
+        ++depth;
+      }
+      if ((ch == '}' || ch == ']') && depth > 0) --depth;
+    }
+    if (depth > 0) {
+      line = i;
+      column = opened_at;
+      return;
+    }
+  }
 }
 
 }  // namespace
@@ -178,28 +209,29 @@ YAML::Node YamlDocument::locate(const std::string& path, bool* exact) const {
   }
   if (!current.empty()) steps.push_back(current);
 
-  YAML::Node node = root_;
+  // Nodes are rebound with reset(): yaml-cpp's operator= would overwrite the document.
+  YAML::Node node;
+  node.reset(root_);
   for (const std::string& step : steps) {
-    YAML::Node next;
+    const YAML::Node here = node;
     bool found = false;
-    if (step.front() == '[' && node.IsSequence()) {
+    if (step.front() == '[' && here.IsSequence()) {
       const std::size_t index = std::strtoul(step.c_str() + 1, nullptr, 10);
-      if (index < node.size()) {
-        next = node[index];
+      if (index < here.size()) {
+        node.reset(here[index]);
         found = true;
       }
-    } else if (node.IsMap()) {
-      for (auto it = node.begin(); it != node.end(); ++it) {
+    } else if (here.IsMap()) {
+      for (auto it = here.begin(); it != here.end(); ++it) {
         if (it->first.IsScalar() && it->first.Scalar() == step) {
           // A null value has no text of its own; its key is where the reader looks.
-          next = it->second.IsNull() ? it->first : it->second;
+          node.reset(it->second.IsNull() ? it->first : it->second);
           found = true;
           break;
         }
       }
     }
     if (!found) return node;
-    node = next;
   }
   if (exact) *exact = true;
   return node;
@@ -216,10 +248,9 @@ YamlDocument parse_yaml(std::istream& in, const std::string& source_name) {
   try {
     return YamlDocument(source_name, YAML::Load(text));
   } catch (const YAML::ParserException& e) {
-    const int line = e.mark.line >= 0 ? e.mark.line + 1 : 1;
-    const int column = e.mark.column >= 0 ? e.mark.column + 1 : 1;
-    throw InputError(source_name, line, column,
-                     display_path(guess_path(text, e.mark.line >= 0 ? e.mark.line : 0)),
+    int line = std::max(e.mark.line, 0), column = std::max(e.mark.column, 0);
+    if (e.msg.find("flow") != std::string::npos) find_unclosed_bracket(text, line, column);
+    throw InputError(source_name, line + 1, column + 1, display_path(guess_path(text, line)),
                      "YAML syntax error: " + trim(e.msg));
   } catch (const YAML::Exception& e) {
     throw InputError(source_name, 1, 1, "(top level)", "cannot read YAML: " + trim(e.msg));

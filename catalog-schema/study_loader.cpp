@@ -1,0 +1,209 @@
+// SPDX-License-Identifier: MIT
+#include "catalog-schema/study_loader.h"
+
+#include <cmath>
+#include <fstream>
+#include <sstream>
+
+#include "catalog-schema/input_error.h"
+#include "catalog-schema/input_file.h"
+#include "catalog-schema/schema_validator.h"
+#include "catalog-schema/yaml_document.h"
+#include "model/invalid_value.h"
+
+namespace stowage {
+namespace {
+
+double number(const YAML::Node& node) { return *scalar_number(node); }
+
+std::string text_of(double x) {
+  std::ostringstream out;
+  out.imbue(std::locale::classic());
+  out.precision(10);
+  out << x;
+  return out.str();
+}
+
+std::string where(const SourcePosition& p) {
+  return p.file + ":" + std::to_string(p.line) + ":" + std::to_string(p.column);
+}
+
+Economics read_economics(const YamlDocument& doc, const YAML::Node& e) {
+  Economics economics;
+  economics.project_years = static_cast<int>(std::lround(number(e["project_years"])));
+  economics.real_discount_rate = number(e["real_discount_rate"]);
+  economics.currency = e["currency"].Scalar();
+  try {
+    economics.validate();
+  } catch (const InvalidValue& error) {
+    throw doc.error_at_path("study.economics." + error.field(), error.rule());
+  }
+  return economics;
+}
+
+std::ifstream open_referenced(const YamlDocument& doc, const YAML::Node& node,
+                              const std::string& field, const std::string& path,
+                              const std::string& what) {
+  std::ifstream in;
+  std::string reason;
+  if (!open_input(path, in, reason)) throw doc.error_at(node, field, "the " + what + " " + reason);
+  return in;
+}
+
+void read_profiles(const YamlDocument& doc, const std::string& base_dir, LoadedStudy& loaded) {
+  const YAML::Node list = doc.root()["study"]["profiles"];
+  const YAML::Node currency_node = doc.root()["study"]["economics"]["currency"];
+  const std::string currency = loaded.study.economics.currency;
+  const InputError currency_at = doc.error_at(currency_node, "", "");
+  for (std::size_t i = 0; i < list.size(); ++i) {
+    const std::string field = join_index("study.profiles", i);
+    const std::string path = resolve_relative(base_dir, list[i].Scalar());
+    std::ifstream in = open_referenced(doc, list[i], field, path, "profile file");
+    LoadedProfile profile = load_profile_details(in, path);
+    for (std::size_t j = 0; j < loaded.profiles.size(); ++j) {
+      if (loaded.profiles[j].profile.id == profile.profile.id) {
+        throw doc.error_at(list[i], field,
+                           "profile id '" + profile.profile.id + "' (" + where(profile.id_at) +
+                               ") is already used by study.profiles[" + std::to_string(j) +
+                               "] (" + where(loaded.profiles[j].id_at) +
+                               "); ids must be unique within a study");
+      }
+    }
+    if (profile.currency != currency) {
+      throw InputError(profile.currency_at.file, profile.currency_at.line,
+                       profile.currency_at.column, "profile.costs.currency",
+                       "prices in " + profile.currency + " but the study is in " + currency +
+                           " (study.economics.currency at " + currency_at.file() + ":" +
+                           std::to_string(currency_at.line()) + ":" +
+                           std::to_string(currency_at.column()) +
+                           "); convert the profile's prices or change the study's currency");
+    }
+    loaded.profile_paths.push_back(path);
+    loaded.study.profiles.push_back(profile.profile);
+    loaded.profiles.push_back(std::move(profile));
+  }
+}
+
+void read_designs(const YamlDocument& doc, LoadedStudy& loaded) {
+  const YAML::Node list = doc.root()["study"]["designs"];
+  if (!list) return;
+  std::vector<std::string> ids;
+  for (const ChemistryProfile& p : loaded.study.profiles) ids.push_back(p.id);
+  for (std::size_t i = 0; i < list.size(); ++i) {
+    const YAML::Node d = list[i];
+    const std::string base = join_index("study.designs", i);
+    DesignSpec design;
+    design.profile_id = d["profile"].Scalar();
+    const ChemistryProfile* profile = loaded.study.find_profile(design.profile_id);
+    if (profile == nullptr) {
+      std::string message = "no loaded profile has the id '" + design.profile_id + "'";
+      const std::string hint = closest_match(design.profile_id, ids);
+      if (!hint.empty()) message += " (did you mean '" + hint + "'?)";
+      std::string all;
+      for (const std::string& id : ids) all += (all.empty() ? "" : ", ") + id;
+      message += "; the study's profiles are: " + all;
+      throw doc.error_at(d["profile"], base + ".profile", message);
+    }
+    if (d["dod_setpoint"]) {
+      const double setpoint = number(d["dod_setpoint"]);
+      if (setpoint < profile->dod.min || setpoint > profile->dod.max) {
+        throw doc.error_at(d["dod_setpoint"], base + ".dod_setpoint",
+                           "must lie within profile " + profile->id + "'s dod range [" +
+                               text_of(profile->dod.min) + ", " + text_of(profile->dod.max) +
+                               "], found " + text_of(setpoint));
+      }
+      design.dod_setpoint = setpoint;
+    }
+    if (d["strings_parallel"]) {
+      design.strings_parallel = static_cast<int>(std::lround(number(d["strings_parallel"])));
+    }
+    loaded.study.designs.push_back(design);
+  }
+}
+
+void read_search(const YamlDocument& doc, LoadedStudy& loaded) {
+  const YAML::Node s = doc.root()["study"]["search"];
+  if (!s) return;
+  SearchSpace& search = loaded.study.search;
+  if (const YAML::Node ladder = s["dod_ladder"]) {
+    search.dod_from = number(ladder["from"]);
+    search.dod_to = number(ladder["to"]);
+    search.dod_step = number(ladder["step"]);
+    if (search.dod_from > search.dod_to) {
+      throw doc.error_at(ladder["from"], "study.search.dod_ladder.from",
+                         "must not exceed dod_ladder.to (" + text_of(search.dod_to) +
+                             "), found " + text_of(search.dod_from));
+    }
+  }
+  if (s["max_strings_parallel"]) {
+    search.max_strings_parallel = static_cast<int>(std::lround(number(s["max_strings_parallel"])));
+  }
+  if (s["budget"]) search.budget = number(s["budget"]);
+  // A mass or volume limit can only be checked when every profile gives the per-cell figure.
+  const auto require_per_cell = [&](const char* key, const char* cell_field, auto has_value) {
+    for (std::size_t i = 0; i < loaded.profiles.size(); ++i) {
+      if (!has_value(loaded.profiles[i].profile)) {
+        throw doc.error_at(s[key], std::string("study.search.") + key,
+                           "needs " + std::string(cell_field) + " in every profile, but " +
+                               loaded.profile_paths[i] + " (profile " +
+                               loaded.profiles[i].profile.id + ") has none");
+      }
+    }
+  };
+  if (s["max_mass_kg"]) {
+    require_per_cell("max_mass_kg", "cell.mass_kg",
+                     [](const ChemistryProfile& p) { return p.cell_mass_kg.has_value(); });
+    search.max_mass_kg = number(s["max_mass_kg"]);
+  }
+  if (s["max_volume_l"]) {
+    require_per_cell("max_volume_l", "cell.volume_l",
+                     [](const ChemistryProfile& p) { return p.cell_volume_l.has_value(); });
+    search.max_volume_l = number(s["max_volume_l"]);
+  }
+}
+
+LoadedStudy build_study(const YamlDocument& doc, const std::string& base_dir) {
+  const YAML::Node s = doc.root()["study"];
+  LoadedStudy loaded;
+  loaded.path = doc.source();
+  loaded.study.title = s["title"].Scalar();
+  loaded.study.economics = read_economics(doc, s["economics"]);
+
+  loaded.site_path = resolve_relative(base_dir, s["site"].Scalar());
+  {
+    std::ifstream in = open_referenced(doc, s["site"], "study.site", loaded.site_path, "site file");
+    LoadedSite site = load_site_details(in, loaded.site_path, parent_directory(loaded.site_path));
+    loaded.hourly_path = site.hourly_path;
+    loaded.study.site = std::move(site.site);
+  }
+  read_profiles(doc, base_dir, loaded);
+  read_designs(doc, loaded);
+  read_search(doc, loaded);
+  return loaded;
+}
+
+}  // namespace
+
+LoadedStudy load_study_details(std::istream& in, const std::string& source_name,
+                               const std::string& base_dir) {
+  const YamlDocument doc = parse_yaml(in, source_name);
+  SchemaValidator::embedded("study").enforce(doc);
+  try {
+    return build_study(doc, base_dir);
+  } catch (const YAML::Exception& e) {
+    throw doc.error_at_path("study", "cannot read the study: " + e.msg);
+  }
+}
+
+LoadedStudy load_study_details_file(const std::string& path) {
+  std::ifstream in = open_input_or_throw(path, "study");
+  return load_study_details(in, path, parent_directory(path));
+}
+
+Study load_study(std::istream& in, const std::string& source_name, const std::string& base_dir) {
+  return load_study_details(in, source_name, base_dir).study;
+}
+
+Study load_study_file(const std::string& path) { return load_study_details_file(path).study; }
+
+}  // namespace stowage

@@ -1,0 +1,45 @@
+// SPDX-License-Identifier: MIT
+// Loading a study file (format: docs/input-format.md, schema: schemas/study.schema.json) with
+// the site and profile files it names, into a validated Study.
+//
+// Paths in the study are relative to `base_dir` (the study file's directory). Errors inside a
+// referenced file name that file; a referenced file that cannot be opened is reported at the
+// study key naming it (study.site, study.profiles[i]). Rules across files, checked here:
+//   - profile ids are unique (error at the later study.profiles[i], naming the earlier file);
+//   - every profile's costs.currency equals study.economics.currency (error at the profile's
+//     costs.currency, naming the study's value and position);
+//   - a design names a loaded profile id (with a suggestion for a near miss) and its
+//     dod_setpoint lies within that profile's [dod.min, dod.max];
+//   - search.dod_ladder has from <= to; search.max_mass_kg / max_volume_l need cell.mass_kg /
+//     cell.volume_l in every profile.
+// Designs and search keep the model defaults when left out (no designs: each profile at its
+// default DoD, sized for autonomy).
+#pragma once
+
+#include <istream>
+#include <string>
+#include <vector>
+
+#include "catalog-schema/profile_loader.h"
+#include "catalog-schema/site_loader.h"
+#include "model/study.h"
+
+namespace stowage {
+
+struct LoadedStudy {
+  Study study;
+  std::string path;                    // source name of the study file
+  std::string site_path;               // the site file as opened
+  std::string hourly_path;             // the site's hourly CSV as opened
+  std::vector<std::string> profile_paths;  // as opened, in the order of study.profiles
+  std::vector<LoadedProfile> profiles;     // same order; currency and sources of each
+};
+
+LoadedStudy load_study_details(std::istream& in, const std::string& source_name,
+                               const std::string& base_dir);
+LoadedStudy load_study_details_file(const std::string& path);
+
+Study load_study(std::istream& in, const std::string& source_name, const std::string& base_dir);
+Study load_study_file(const std::string& path);
+
+}  // namespace stowage

@@ -1,0 +1,344 @@
+// SPDX-License-Identifier: MIT
+// Profile files: a complete and a minimal profile load to the right values; each broken rule
+// gives an InputError at the right line and field.
+#include <catch2/catch.hpp>
+
+#include <sstream>
+
+#include "catalog-schema/profile_loader.h"
+#include "catalog_test_support.h"
+
+namespace stowage {
+namespace {
+
+using testing::expect_input_error;
+using testing::fixture_path;
+using testing::read_text;
+using testing::replace_once;
+
+const char* const kName = "bad-profile.yaml";
+
+// 1-based line of the first occurrence of `needle` in `text`.
+int line_of(const std::string& text, const std::string& needle) {
+  const std::size_t at = text.find(needle);
+  REQUIRE(at != std::string::npos);
+  return 1 + static_cast<int>(std::count(text.begin(), text.begin() + static_cast<long>(at), '\n'));
+}
+
+std::string full_profile() { return read_text(fixture_path("lfp-test.yaml")); }
+
+LoadedProfile load_text(const std::string& text) {
+  std::istringstream in(text);
+  return load_profile_details(in, kName);
+}
+
+// Loads `text` expecting an InputError at the line of `line_needle` and the given field;
+// returns the message.
+std::string profile_error(const std::string& text, const std::string& line_needle,
+                          const std::string& field) {
+  return expect_input_error([&] { load_text(text); }, kName, line_of(text, line_needle), field)
+      .message();
+}
+
+TEST_CASE("a complete profile loads every field into the model", "[catalog][profile]") {
+  const LoadedProfile loaded = load_profile_details_file(fixture_path("lfp-test.yaml"));
+  const ChemistryProfile& p = loaded.profile;
+  CHECK(loaded.path == fixture_path("lfp-test.yaml"));
+  CHECK(loaded.currency == "EUR");
+  CHECK(p.id == "lfp-test");
+  CHECK(p.family == "lithium-iron-phosphate");
+  CHECK(p.description == "Test LiFePO4 cell, all fields given");
+  CHECK(p.cell_nominal_v == 3.2);
+  CHECK(p.cell_capacity_ah == 100);
+  CHECK(p.capacity_rate_hours == 5);
+  CHECK(p.mean_charge_v == 3.35);
+  CHECK(p.mean_discharge_v == 3.2);
+  CHECK(p.coulombic_efficiency == 0.99);
+  CHECK(p.max_charge_c_rate == 0.5);
+  CHECK(p.max_discharge_c_rate == 1.0);
+  CHECK(p.peukert_exponent == 1.03);
+  CHECK(p.self_discharge_per_month == 0.03);
+  REQUIRE(p.cell_mass_kg);
+  CHECK(*p.cell_mass_kg == 2.0);
+  REQUIRE(p.cell_volume_l);
+  CHECK(*p.cell_volume_l == 1.0);
+  CHECK(p.dod.min == 0.2);
+  CHECK(p.dod.max == 0.9);
+  CHECK(p.dod.default_setpoint == 0.8);
+  // Written out of order in the file; the curve holds them sorted by DoD.
+  REQUIRE(p.cycle_life.points().size() == 3);
+  CHECK(p.cycle_life.points()[0].dod == 0.2);
+  CHECK(p.cycle_life.points()[1].cycles == 6000);
+  CHECK(p.cycle_life.cycles_to_end_of_life(0.8) == Approx(3500));
+  CHECK(p.calendar_life_years == 15);
+  REQUIRE(p.max_service_years);
+  CHECK(*p.max_service_years == 20);
+  CHECK(p.eol_capacity_fraction == 0.7);
+  CHECK_FALSE(p.partial_charge);
+  const TemperatureSpec& t = p.temperature.spec();
+  CHECK(t.reference_temp_c == 25);
+  REQUIRE(t.capacity_factor.size() == 2);
+  CHECK(t.capacity_factor[0].temp_c == -20);
+  CHECK(t.capacity_factor[0].factor == 0.6);
+  CHECK(t.law == AgeingLaw::Arrhenius);
+  CHECK(t.activation_energy_j_per_mol == 50000);
+  CHECK(t.operating_min_c == -20);
+  CHECK(t.operating_max_c == 55);
+  CHECK(t.charge_min_c == 0);
+  CHECK(t.charge_max_c == 45);
+  CHECK(p.costs.capital_per_kwh == 400);
+  CHECK(p.costs.capital_per_string == 200);
+  CHECK(p.costs.installation_fixed == 1500);
+  CHECK(p.costs.fixed_om_per_kwh_year == 2);
+  CHECK(p.costs.variable_om_per_mwh == 1.5);
+  CHECK(p.costs.replacement_share == 0.9);
+  CHECK(p.costs.price_decline_per_year == 0.03);
+  CHECK(p.costs.end_of_life_per_kwh == -5);
+  CHECK(loaded.sources.size() == 4);
+  CHECK(loaded.sources.at("cell") == "common practice");
+  // Positions kept for cross-file errors: id on line 5, currency on line 39 of the fixture.
+  CHECK(loaded.id_at.line == 5);
+  CHECK(loaded.currency_at.line == 39);
+  CHECK(loaded.currency_at.column == 15);
+}
+
+TEST_CASE("a minimal profile gets the documented defaults", "[catalog][profile]") {
+  const ChemistryProfile p = load_profile_file(fixture_path("lead-test.yaml"));
+  CHECK(p.description.empty());
+  CHECK(p.capacity_rate_hours == 10);
+  CHECK(p.peukert_exponent == 1);
+  CHECK(p.self_discharge_per_month == 0);
+  CHECK_FALSE(p.cell_mass_kg);
+  CHECK_FALSE(p.cell_volume_l);
+  CHECK_FALSE(p.max_service_years);
+  CHECK(p.eol_capacity_fraction == 0.8);
+  REQUIRE(p.partial_charge);
+  CHECK(p.partial_charge->full_charge_soc == 0.98);
+  CHECK(p.partial_charge->max_days_without_full_charge == 10);
+  CHECK(p.partial_charge->damage_per_extra_day == 0.0005);
+  CHECK(p.temperature.spec().law == AgeingLaw::Halving);
+  CHECK(p.temperature.spec().halving_interval_k == 10);
+  // Life halves per 10 K above the 20 degC reference (the European convention of the brief).
+  CHECK(p.temperature.ageing_acceleration(30) == Approx(2.0));
+  CHECK(p.costs.capital_per_string == 0);
+  CHECK(p.costs.installation_fixed == 0);
+  CHECK(p.costs.fixed_om_per_kwh_year == 0);
+  CHECK(p.costs.variable_om_per_mwh == 0);
+  CHECK(p.costs.replacement_share == 1);
+  CHECK(p.costs.price_decline_per_year == 0);
+  CHECK(p.costs.end_of_life_per_kwh == 0);
+}
+
+TEST_CASE("a missing required field is named with its full path", "[catalog][profile][bad]") {
+  const std::string text = replace_once(full_profile(), "    capacity_ah: 100\n", "");
+  const std::string message = profile_error(text, "nominal_v", "profile.cell.capacity_ah");
+  CHECK_THAT(message, Catch::Contains("required key 'capacity_ah' is missing"));
+}
+
+TEST_CASE("a value of the wrong type is refused", "[catalog][profile][bad]") {
+  SECTION("text for a number") {
+    const std::string text = replace_once(full_profile(), "nominal_v: 3.2", "nominal_v: high");
+    CHECK_THAT(profile_error(text, "nominal_v", "profile.cell.nominal_v"),
+               Catch::Contains("expected a number, found the text 'high'"));
+  }
+  SECTION("a quoted number is text, with a hint") {
+    const std::string text = replace_once(full_profile(), "nominal_v: 3.2", "nominal_v: \"3.2\"");
+    CHECK_THAT(profile_error(text, "nominal_v", "profile.cell.nominal_v"),
+               Catch::Contains("remove the quotes"));
+  }
+  SECTION("a list for a mapping") {
+    const std::string text = replace_once(full_profile(), "  dod: {min: 0.2, max: 0.9, default: 0.8}",
+                                          "  dod: [0.2, 0.9, 0.8]");
+    CHECK_THAT(profile_error(text, "dod:", "profile.dod"),
+               Catch::Contains("expected a mapping"));
+  }
+  SECTION("not-a-number is not a finite number") {
+    const std::string text = replace_once(full_profile(), "capacity_ah: 100", "capacity_ah: .nan");
+    CHECK_THAT(profile_error(text, "capacity_ah", "profile.cell.capacity_ah"),
+               Catch::Contains("finite"));
+  }
+}
+
+TEST_CASE("a negative capacity is refused", "[catalog][profile][bad]") {
+  const std::string text = replace_once(full_profile(), "capacity_ah: 100", "capacity_ah: -100");
+  CHECK_THAT(profile_error(text, "capacity_ah", "profile.cell.capacity_ah"),
+             Catch::Contains("must be > 0, found -100"));
+}
+
+TEST_CASE("cycle-life points must fall as DoD grows", "[catalog][profile][bad]") {
+  SECTION("more cycles at a deeper DoD") {
+    const std::string text =
+        replace_once(full_profile(), "{dod: 0.5, cycles: 6000}", "{dod: 0.5, cycles: 2000}");
+    // Sorted: 0.2 -> 9000, 0.5 -> 2000, 0.8 -> 3500; the 0.8 point (entry 0) is out of line
+    // with the 0.5 point (entry 2), reported at the later one in the file.
+    const std::string message =
+        profile_error(text, "{dod: 0.5", "profile.ageing.cycle_life[2].cycles");
+    CHECK_THAT(message, Catch::Contains("must fall as DoD grows"));
+    CHECK_THAT(message, Catch::Contains("entry 0"));
+  }
+  SECTION("the same DoD twice") {
+    const std::string text =
+        replace_once(full_profile(), "{dod: 0.5, cycles: 6000}", "{dod: 0.8, cycles: 6000}");
+    CHECK_THAT(profile_error(text, "{dod: 0.8, cycles: 6000}", "profile.ageing.cycle_life[2].dod"),
+               Catch::Contains("appears twice"));
+  }
+  SECTION("a single point is not a curve") {
+    std::string text = replace_once(full_profile(), "      - {dod: 0.2, cycles: 9000}\n", "");
+    text = replace_once(text, "      - {dod: 0.5, cycles: 6000}\n", "");
+    CHECK_THAT(profile_error(text, "{dod: 0.8", "profile.ageing.cycle_life"),
+               Catch::Contains("at least 2 entries"));
+  }
+}
+
+TEST_CASE("DoD values must lie in (0, 1]", "[catalog][profile][bad]") {
+  SECTION("above 1") {
+    const std::string text = replace_once(full_profile(), "max: 0.9, default", "max: 1.2, default");
+    CHECK_THAT(profile_error(text, "dod: {", "profile.dod.max"),
+               Catch::Contains("must be <= 1, found 1.2"));
+  }
+  SECTION("zero") {
+    const std::string text = replace_once(full_profile(), "{min: 0.2, max: 0.9", "{min: 0, max: 0.9");
+    CHECK_THAT(profile_error(text, "dod: {", "profile.dod.min"),
+               Catch::Contains("must be > 0"));
+  }
+  SECTION("cycle-life DoD") {
+    const std::string text = replace_once(full_profile(), "{dod: 0.2, cycles", "{dod: 1.5, cycles");
+    CHECK_THAT(profile_error(text, "{dod: 1.5", "profile.ageing.cycle_life[1].dod"),
+               Catch::Contains("must be <= 1"));
+  }
+}
+
+TEST_CASE("the default DoD must lie within [min, max]", "[catalog][profile][bad]") {
+  const std::string text = replace_once(full_profile(), "default: 0.8}", "default: 0.95}");
+  CHECK_THAT(profile_error(text, "dod: {", "profile.dod.default"),
+             Catch::Contains("[0.2, 0.9]"));
+  const std::string swapped =
+      replace_once(full_profile(), "{min: 0.2, max: 0.9, default: 0.8}", "{min: 0.9, max: 0.2, default: 0.5}");
+  CHECK_THAT(profile_error(swapped, "dod: {", "profile.dod.min"),
+             Catch::Contains("must not exceed dod.max"));
+}
+
+TEST_CASE("exactly one of halving interval and activation energy", "[catalog][profile][bad]") {
+  SECTION("both") {
+    const std::string text =
+        replace_once(full_profile(), "    activation_energy_j_per_mol: 50000\n",
+                     "    activation_energy_j_per_mol: 50000\n    life_halving_interval_k: 10\n");
+    CHECK_THAT(profile_error(text, "life_halving_interval_k",
+                             "profile.temperature.life_halving_interval_k"),
+               Catch::Contains("exactly one of life_halving_interval_k and "
+                               "activation_energy_j_per_mol; more than one"));
+  }
+  SECTION("neither") {
+    const std::string text =
+        replace_once(full_profile(), "    activation_energy_j_per_mol: 50000\n", "");
+    CHECK_THAT(profile_error(text, "reference_c", "profile.temperature"),
+               Catch::Contains("none is given"));
+  }
+}
+
+TEST_CASE("an unknown key is refused with a suggestion", "[catalog][profile][bad]") {
+  const std::string text = replace_once(full_profile(), "capacity_ah: 100", "capacty_ah: 100");
+  // Only the typo is reported, not also "capacity_ah is missing".
+  CHECK(profile_error(text, "capacty_ah", "profile.cell.capacty_ah") ==
+        "unknown key 'capacty_ah' (did you mean 'capacity_ah'?)");
+  const std::string far = replace_once(full_profile(), "capacity_ah: 100",
+                                       "capacity_ah: 100\n    colour: blue");
+  CHECK_THAT(profile_error(far, "colour", "profile.cell.colour"),
+             Catch::Contains("allowed here: nominal_v, capacity_ah"));
+}
+
+TEST_CASE("enumerations and patterns are enforced with hints", "[catalog][profile][bad]") {
+  const std::string family = replace_once(full_profile(), "family: lithium-iron-phosphate",
+                                          "family: lithium-iron-phosphat");
+  CHECK_THAT(profile_error(family, "family", "profile.family"),
+             Catch::Contains("did you mean 'lithium-iron-phosphate'?"));
+  const std::string id = replace_once(full_profile(), "id: lfp-test", "id: LFP Test");
+  CHECK_THAT(profile_error(id, "id:", "profile.id"), Catch::Contains("lower-case"));
+  const std::string currency = replace_once(full_profile(), "currency: EUR", "currency: euro");
+  CHECK_THAT(profile_error(currency, "currency", "profile.costs.currency"),
+             Catch::Contains("three-letter"));
+}
+
+TEST_CASE("values that relate to each other are checked", "[catalog][profile][bad]") {
+  SECTION("charge voltage above discharge voltage") {
+    const std::string text = replace_once(full_profile(), "mean_charge_v: 3.35", "mean_charge_v: 3.1");
+    CHECK_THAT(profile_error(text, "mean_charge_v", "profile.cell.mean_charge_v"),
+               Catch::Contains("must be above mean_discharge_v"));
+  }
+  SECTION("capacity-factor temperatures increase") {
+    const std::string text = replace_once(full_profile(), "{temp_c: 25, factor: 1.0}",
+                                          "{temp_c: -20, factor: 1.0}");
+    CHECK_THAT(profile_error(text, "{temp_c: -20, factor: 1.0}",
+                             "profile.temperature.capacity_factor[1].temp_c"),
+               Catch::Contains("must increase"));
+  }
+  SECTION("operating range min below max") {
+    const std::string text = replace_once(full_profile(), "operating_c: {min: -20, max: 55}",
+                                          "operating_c: {min: 55, max: -20}");
+    CHECK_THAT(profile_error(text, "operating_c", "profile.temperature.operating_c.min"),
+               Catch::Contains("must be below operating_c.max"));
+  }
+  SECTION("a sources key names a field that exists") {
+    const std::string text = replace_once(full_profile(), "    dod.min: test value",
+                                          "    dod.minimum: test value");
+    CHECK_THAT(profile_error(text, "dod.minimum", "profile.sources.dod.minimum"),
+               Catch::Contains("names no field of this profile"));
+  }
+}
+
+TEST_CASE("a key given twice is refused", "[catalog][profile][bad]") {
+  const std::string text =
+      replace_once(full_profile(), "    capacity_ah: 100\n", "    capacity_ah: 100\n    capacity_ah: 120\n");
+  CHECK_THAT(profile_error(text, "capacity_ah: 120", "profile.cell.capacity_ah"),
+             Catch::Contains("duplicate key 'capacity_ah' (first given on line 10)"));
+}
+
+TEST_CASE("a YAML syntax error names the line and the block", "[catalog][profile][bad]") {
+  const std::string text = replace_once(full_profile(), "charging_c: {min: 0, max: 45}",
+                                        "charging_c: {min: 0, max: 45");
+  try {
+    load_text(text);
+    FAIL("no error");
+  } catch (const InputError& e) {
+    INFO(e.what());
+    CHECK(e.file() == kName);
+    CHECK_THAT(e.message(), Catch::StartsWith("YAML syntax error"));
+    // yaml-cpp notices the unclosed flow mapping on the line or the next one.
+    CHECK(e.line() >= line_of(text, "charging_c"));
+    CHECK(e.line() <= line_of(text, "charging_c") + 1);
+    CHECK_THAT(e.field(), Catch::StartsWith("profile.temperature"));
+  }
+}
+
+TEST_CASE("empty or misshapen documents are refused, not crashed on", "[catalog][profile][bad]") {
+  expect_input_error([] { std::istringstream in(""); load_profile(in, kName); }, kName, 1,
+                     "profile");
+  expect_input_error([] { std::istringstream in("- 1\n- 2\n"); load_profile(in, kName); }, kName,
+                     1, "(top level)");
+  expect_input_error([] { std::istringstream in("profile: 3\n"); load_profile(in, kName); }, kName,
+                     1, "profile");
+}
+
+TEST_CASE("an unreadable profile file is an InputError naming the path",
+          "[catalog][profile][bad]") {
+  const std::string missing = fixture_path("no-such-profile.yaml");
+  const InputError e = expect_input_error([&] { load_profile_file(missing); }, missing, 1, "profile");
+  CHECK_THAT(e.message(), Catch::Contains("No such file"));
+  const std::string directory = fixture_path("");
+  CHECK_THROWS_AS(load_profile_file(directory), InputError);
+}
+
+TEST_CASE("source coverage counts enclosing keys", "[catalog][profile]") {
+  const std::map<std::string, std::string> sources = {{"ageing.cycle_life", "x"},
+                                                      {"costs", "y"},
+                                                      {"cell.nominal_v", "z"}};
+  CHECK(source_covers(sources, "ageing.cycle_life[3].cycles"));
+  CHECK(source_covers(sources, "costs.capital_per_kwh"));
+  CHECK(source_covers(sources, "cell.nominal_v"));
+  CHECK_FALSE(source_covers(sources, "cell.nominal_v_extra"));
+  CHECK_FALSE(source_covers(sources, "cell.capacity_ah"));
+  CHECK_FALSE(source_covers(sources, "ageing.calendar_life_years"));
+}
+
+}  // namespace
+}  // namespace stowage
