@@ -5,7 +5,9 @@
 
 #include <catch2/catch.hpp>
 
+#include <filesystem>
 #include <fstream>
+#include <random>
 #include <functional>
 #include <sstream>
 #include <string>
@@ -28,6 +30,15 @@ inline std::string read_text(const std::string& path) {
   std::ostringstream out;
   out << in.rdbuf();
   return out.str();
+}
+
+// 1-based line of the first occurrence of `needle` in `text`.
+inline int line_of(const std::string& text, const std::string& needle) {
+  const std::size_t at = text.find(needle);
+  REQUIRE(at != std::string::npos);
+  int line = 1;
+  for (std::size_t i = 0; i < at; ++i) line += text[i] == '\n';
+  return line;
 }
 
 // Replaces the first occurrence of `from` in `text` by `to`; fails the test if absent, so an
@@ -61,5 +72,35 @@ inline InputError expect_input_error(const std::function<void()>& call, const st
   FAIL("expected stowage::InputError, nothing was thrown");
   throw std::logic_error("unreachable");
 }
+
+// A fresh directory under the system's temporary directory, removed with its contents when
+// the object goes out of scope; tests write generated files there, never into the source tree.
+class TempDir {
+ public:
+  TempDir() {
+    std::random_device seed;
+    path_ = std::filesystem::temp_directory_path() /
+            ("stowage-catalog-test-" + std::to_string(seed()) + std::to_string(seed()));
+    std::filesystem::create_directories(path_);
+  }
+  ~TempDir() {
+    std::error_code ignored;
+    std::filesystem::remove_all(path_, ignored);
+  }
+  TempDir(const TempDir&) = delete;
+  TempDir& operator=(const TempDir&) = delete;
+
+  std::string path() const { return path_.string(); }
+  std::string write(const std::string& name, const std::string& text) const {
+    const std::filesystem::path file = path_ / name;
+    std::filesystem::create_directories(file.parent_path());
+    std::ofstream out(file, std::ios::binary);
+    out << text;
+    return file.string();
+  }
+
+ private:
+  std::filesystem::path path_;
+};
 
 }  // namespace stowage::testing

@@ -13,17 +13,11 @@ namespace {
 
 using testing::expect_input_error;
 using testing::fixture_path;
+using testing::line_of;
 using testing::read_text;
 using testing::replace_once;
 
 const char* const kName = "bad-profile.yaml";
-
-// 1-based line of the first occurrence of `needle` in `text`.
-int line_of(const std::string& text, const std::string& needle) {
-  const std::size_t at = text.find(needle);
-  REQUIRE(at != std::string::npos);
-  return 1 + static_cast<int>(std::count(text.begin(), text.begin() + static_cast<long>(at), '\n'));
-}
 
 std::string full_profile() { return read_text(fixture_path("lfp-test.yaml")); }
 
