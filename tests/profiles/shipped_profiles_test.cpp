@@ -1,0 +1,80 @@
+// SPDX-License-Identifier: MIT
+// The shipped generic profiles agree with the published sources they cite.
+#include <catch2/catch.hpp>
+#include <string>
+
+#include "catalog-schema/profile_loader.h"
+#include "test_paths.h"
+
+using namespace stowage;
+
+namespace {
+ChemistryProfile shipped(const std::string& name) {
+  return load_profile_file(std::string(STOWAGE_SOURCE_DIR) + "/catalog-schema/profiles/" + name +
+                           ".yaml");
+}
+}  // namespace
+
+TEST_CASE("the flooded lead-acid profile reproduces the IEEE Std 485 temperature table",
+          "[profiles][temperature]") {
+  // IEEE Std 485 Table 1, cell-size correction factor K_T against electrolyte temperature
+  // (vented cells, 1.215 SG), from memory, supported by a published cubic fit within 0.012
+  // (check-values.md 4.1). Available capacity = 1 / K_T; tolerance 0.005 until the rows are
+  // confirmed against the standard.
+  const auto p = shipped("lead-acid-flooded-tubular");
+  const std::pair<double, double> rows[] = {
+      {-3.9, 1.520}, {-1.1, 1.430}, {4.4, 1.300},  {10.0, 1.190}, {15.6, 1.110},
+      {18.3, 1.080}, {21.1, 1.040}, {23.9, 1.011}, {25.0, 1.000}, {26.7, 0.987},
+      {32.2, 0.940}, {37.8, 0.910}, {43.3, 0.880}, {51.7, 0.850}};
+  for (const auto& [temp_c, k_t] : rows) {
+    INFO("temperature " << temp_c << " degC");
+    CHECK(p.temperature.capacity_factor(temp_c) * k_t == Approx(1.0).margin(0.005));
+  }
+  // Midway between rows the table is interpolated (IEEE Std 485: interpolate between rows).
+  CHECK(1.0 / p.temperature.capacity_factor(7.2) == Approx(1.245).margin(0.01));
+}
+
+TEST_CASE("the AGM profile halves its life every 8 degC above 25 degC", "[profiles][temperature]") {
+  // Battery University BU-806a (check-values.md 4.2, READ): 10 years at 25 degC, 5 at 33 degC,
+  // 2.5 at 41 degC for a VRLA battery.
+  const auto p = shipped("vrla-agm");
+  CHECK(p.temperature.life_at(10, 33) == Approx(5.0));
+  CHECK(p.temperature.life_at(10, 41) == Approx(2.5));
+}
+
+TEST_CASE("shipped profiles keep the trade's nominal cell voltages", "[profiles]") {
+  // Nominal cell voltages (common practice): lead-acid 2.0 V, LiFePO4 3.2 V, NMC 3.6-3.7 V,
+  // NiCd 1.2 V, vanadium flow 1.4 V.
+  CHECK(shipped("lead-acid-flooded-tubular").cell_nominal_v == Approx(2.0));
+  CHECK(shipped("vrla-agm").cell_nominal_v == Approx(2.0));
+  CHECK(shipped("vrla-gel").cell_nominal_v == Approx(2.0));
+  CHECK(shipped("lfp").cell_nominal_v == Approx(3.2));
+  const double nmc = shipped("nmc").cell_nominal_v;
+  CHECK(nmc >= 3.6);
+  CHECK(nmc <= 3.7);
+  CHECK(shipped("nicd-pocket-plate").cell_nominal_v == Approx(1.2));
+  CHECK(shipped("vanadium-flow").cell_nominal_v == Approx(1.4));
+}
+
+TEST_CASE("lithium profiles do not charge below freezing", "[profiles][temperature]") {
+  // Common practice: no lithium charging below about 0 degC without heating.
+  for (const char* name : {"lfp", "nmc"}) {
+    INFO(name);
+    const auto p = shipped(name);
+    CHECK_FALSE(p.temperature.can_charge(-1.0));
+    CHECK(p.temperature.can_charge(10.0));
+  }
+}
+
+TEST_CASE("every shipped profile's cycle life falls with depth", "[profiles][cycle-life]") {
+  // Shallower cycles give many more of them (common practice); the loader enforces it, this
+  // pins that the shipped curves are real curves and not flat lines.
+  for (const char* name : {"lead-acid-flooded-tubular", "vrla-agm", "vrla-gel", "lfp", "nmc",
+                           "nicd-pocket-plate", "vanadium-flow", "sodium-ion"}) {
+    INFO(name);
+    const auto p = shipped(name);
+    CHECK(p.cycle_life.cycles_to_end_of_life(0.2) > p.cycle_life.cycles_to_end_of_life(0.8));
+    CHECK(p.round_trip_efficiency() > 0.5);
+    CHECK(p.round_trip_efficiency() < 1.0);
+  }
+}
