@@ -179,6 +179,12 @@ LoadedStudy build_study(const YamlDocument& doc, const std::string& base_dir) {
   read_profiles(doc, base_dir, loaded);
   read_designs(doc, loaded);
   read_search(doc, loaded);
+  if (s["soc_log"]) {
+    loaded.soc_log_path = resolve_relative(base_dir, s["soc_log"].Scalar());
+    std::ifstream in =
+        open_referenced(doc, s["soc_log"], "study.soc_log", loaded.soc_log_path, "SOC log");
+    loaded.soc_log = read_soc_series(in, loaded.soc_log_path);
+  }
   return loaded;
 }
 

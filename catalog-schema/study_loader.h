@@ -12,16 +12,20 @@
 //     dod_setpoint lies within that profile's [dod.min, dod.max];
 //   - search.dod_ladder has from <= to; search.max_mass_kg / max_volume_l need cell.mass_kg /
 //     cell.volume_l in every profile.
+// The optional study.soc_log (a logged SOC series of an existing bank, soc_series.h) is read
+// and checked too; a file that cannot be opened is reported at study.soc_log.
 // Designs and search keep the model defaults when left out (no designs: each profile at its
 // default DoD, sized for autonomy).
 #pragma once
 
 #include <istream>
+#include <optional>
 #include <string>
 #include <vector>
 
 #include "catalog-schema/profile_loader.h"
 #include "catalog-schema/site_loader.h"
+#include "catalog-schema/soc_series.h"
 #include "model/study.h"
 
 namespace stowage {
@@ -33,6 +37,8 @@ struct LoadedStudy {
   std::string hourly_path;             // the site's hourly CSV as opened
   std::vector<std::string> profile_paths;  // as opened, in the order of study.profiles
   std::vector<LoadedProfile> profiles;     // same order; currency and sources of each
+  std::string soc_log_path;                // study.soc_log as opened; empty when not given
+  std::optional<SocSeries> soc_log;        // the logged SOC series, when study.soc_log is given
 };
 
 LoadedStudy load_study_details(std::istream& in, const std::string& source_name,
