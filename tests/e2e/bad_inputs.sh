@@ -5,6 +5,7 @@
 source "$(dirname "$0")/common.sh"
 count=0
 for dir in "$SRC"/tests/catalog-schema/bad-inputs/*/; do
+  dir=${dir%/}
   [ -f "$dir/study.yaml" ] || continue
   count=$((count + 1))
   name=$(basename "$dir")
