@@ -183,12 +183,19 @@ class Search {
     return m;
   }
 
+  // One sub-model per profile, moved from setpoint to setpoint so GLPK starts warm.
   SolveReport solve_submodel(std::size_t c, int lo, int hi) {
-    StorageMilp model(study_, {milp_choice(c, lo, hi)}, days_);
+    const std::size_t p = space_.choices[c].profile_index;
+    if (submodels_.size() != study_.profiles.size()) submodels_.resize(study_.profiles.size());
+    if (!submodels_[p]) {
+      submodels_[p] = std::make_unique<StorageMilp>(
+          study_, std::vector<MilpChoice>{milp_choice(c, lo, hi)}, days_);
+    } else {
+      submodels_[p]->set_setpoint(0, space_.choices[c].dod_setpoint, lo, hi);
+    }
     MilpOptions mo;
     mo.time_limit_s = remaining();
-    SolveReport r = model.solve(mo);
-    return r;
+    return submodels_[p]->solve(mo);
   }
 
   // ---- exhaustive -------------------------------------------------------------------------
@@ -410,7 +417,7 @@ class Search {
     }
     if (c == space_.choices.size()) return;
     const int n = best.bank.strings_parallel;
-    StorageMilp model(study_, {milp_choice(c, n, n)}, days_);
+    StorageMilp model(study_, {milp_choice(c, n, n)}, days_, /*unserved_limit=*/false);
     MilpOptions mo;
     mo.time_limit_s = 60;
     const SolveReport r = model.solve(mo);
@@ -428,6 +435,7 @@ class Search {
   std::vector<std::unique_ptr<LifecycleEvaluator>> evaluators_;
   std::vector<double> lower_bound_;
   std::vector<PairState> pairs_;
+  std::vector<std::unique_ptr<StorageMilp>> submodels_;
   std::map<std::pair<std::size_t, int>, Exact> cache_;
   std::vector<std::optional<DesignResult>> profile_best_;
   std::vector<std::vector<double>> ratios_;

@@ -6,6 +6,7 @@
 #include <algorithm>
 #include <chrono>
 #include <cmath>
+#include <limits>
 #include <stdexcept>
 
 #include "model/bank.h"
@@ -75,6 +76,18 @@ struct StorageMilp::Impl {
   double unmet_price = 0;     // back-up price, or the penalty when there is no back-up
   double inverter_eff = 1;
   double pa = 1;              // P/A(i, N)
+  // What set_setpoint() needs to rewrite the rows that depend on the setpoint.
+  struct ChoiceRows {
+    int n_min = 0, n_max = 0;
+    std::vector<int> soc_rows, soc_cols;  // per hour
+    std::vector<double> e_soc;            // per hour, kWh per unit SOC of one string
+    std::vector<int> wear_rows;
+    std::vector<double> wear_slope, wear_n, wear_y;  // per wear row: beta_k, n and y coefficients
+    std::vector<int> dis_cols;            // hours where discharge is possible
+    std::vector<double> dis_wear;         // w a_t / e_soc at those hours
+    double rho1 = 0;
+  };
+  std::vector<ChoiceRows> rows;
 
   ~Impl() {
     if (lp) glp_delete_prob(lp);
@@ -82,7 +95,7 @@ struct StorageMilp::Impl {
 };
 
 StorageMilp::StorageMilp(const Study& study, std::vector<MilpChoice> choices,
-                         const RepresentativeDays& days)
+                         const RepresentativeDays& days, bool unserved_limit)
     : impl_(std::make_unique<Impl>()) {
   if (choices.empty()) throw InvalidValue("choices", "at least one choice is needed");
   for (std::size_t c = 0; c < choices.size(); ++c) {
@@ -175,7 +188,7 @@ StorageMilp::StorageMilp(const Study& study, std::vector<MilpChoice> choices,
   }
 
   const int pick = add_row("choose_one", GLP_FX, 1, 1);
-  const bool unserved_row = !has_backup && site.unserved_limit_fraction.has_value() &&
+  const bool unserved_row = unserved_limit && !has_backup && site.unserved_limit_fraction.has_value() &&
                             weighted_deficit - *site.unserved_limit_fraction * weighted_load > 0;
   const int unserved =
       unserved_row
@@ -184,8 +197,10 @@ StorageMilp::StorageMilp(const Study& study, std::vector<MilpChoice> choices,
           : 0;
   const double pf_end = present_worth_factor(i, n_years + 1);
 
+  m.rows.resize(C);
   for (std::size_t c = 0; c < C; ++c) {
     const MilpChoice& ch = m.choices[c];
+    Impl::ChoiceRows& cr = m.rows[c];
     const ChemistryProfile& p = *ch.profile;
     const ProfileCosts& costs = p.costs;
     const int y = m.col_y[c], n = m.col_n[c], z = m.col_z[c], first = m.col_hours[c];
@@ -208,6 +223,9 @@ StorageMilp::StorageMilp(const Study& study, std::vector<MilpChoice> choices,
     const int hi = add_row(name("n_max", c), GLP_UP, 0, 0);
     coef(hi, n, 1);
     coef(hi, y, -ch.max_strings);
+    cr.n_min = lo;
+    cr.n_max = hi;
+    cr.rho1 = rho1;
 
     glp_set_obj_coef(lp, y, costs.installation_fixed - rho0);
     glp_set_obj_coef(lp, n,
@@ -229,6 +247,8 @@ StorageMilp::StorageMilp(const Study& study, std::vector<MilpChoice> choices,
       coef(row, y, -(alpha * rho0 + slope * rho0 * cal));
       wear_rows.push_back(row);
       wear_slope.push_back(slope);
+      cr.wear_n.push_back(-(alpha * rho1 + slope * rho1 * cal));
+      cr.wear_y.push_back(-(alpha * rho0 + slope * rho0 * cal));
     }
     if (p.max_service_years) {
       const double g = renewal_cost_factor(1 / *p.max_service_years, i_repl, n_years);
@@ -277,6 +297,9 @@ StorageMilp::StorageMilp(const Study& study, std::vector<MilpChoice> choices,
       const int soc_row = add_row(name("soc_max", c, t), GLP_UP, 0, 0);
       coef(soc_row, col_soc, 1);
       coef(soc_row, n, -ch.dod_setpoint * e_soc);
+      cr.soc_rows.push_back(soc_row);
+      cr.soc_cols.push_back(col_soc);
+      cr.e_soc.push_back(e_soc);
       if (ch_ub > 0) {
         const int r = add_row(name("ch_max", c, t), GLP_UP, 0, 0);
         coef(r, col_ch, 1);
@@ -292,8 +315,12 @@ StorageMilp::StorageMilp(const Study& study, std::vector<MilpChoice> choices,
           coef(wear_rows[k], col_dis, -wear_slope[k] * rho1 * wear_per_kwh);
         }
         if (unserved_row) coef(unserved, col_dis, w * site.inverter_efficiency);
+        cr.dis_cols.push_back(col_dis);
+        cr.dis_wear.push_back(w * ch.acceleration->per_hour[h] / e_soc);
       }
     }
+    cr.wear_rows = wear_rows;
+    cr.wear_slope = wear_slope;
   }
   glp_load_matrix(lp, static_cast<int>(ia.size()) - 1, ia.data(), ja.data(), ar.data());
 }
@@ -305,62 +332,27 @@ int StorageMilp::columns() const { return glp_get_num_cols(impl_->lp); }
 int StorageMilp::integer_columns() const { return glp_get_num_int(impl_->lp); }
 double StorageMilp::objective_constant() const { return impl_->constant; }
 
-SolveReport StorageMilp::solve(const MilpOptions& options) {
-  options.validate();
-  Impl& m = *impl_;
-  SolveReport report;
-  const auto start = std::chrono::steady_clock::now();
-  glp_term_out(GLP_OFF);
-  glp_iocp parm;
-  glp_init_iocp(&parm);
-  parm.msg_lev = GLP_MSG_OFF;
-  parm.presolve = GLP_ON;
-  parm.mip_gap = options.relative_gap;
-  parm.tm_lim = static_cast<int>(std::min(options.time_limit_s * 1000.0, 2.0e9));
-  const int rc = glp_intopt(m.lp, &parm);
-  glp_term_out(GLP_ON);
-  report.seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
-  const int status = glp_mip_status(m.lp);
-  if (rc == GLP_ENOPFS || status == GLP_NOFEAS) {
-    report.outcome = SolveOutcome::Infeasible;
-    report.message = "the model has no feasible solution";
-    return report;
-  }
-  if (rc == GLP_ETMLIM) {
-    report.outcome = status == GLP_FEAS || status == GLP_OPT ? SolveOutcome::TimeLimit
-                                                             : SolveOutcome::NoSolution;
-    report.message = "GLPK stopped at the time limit";
-    if (report.outcome == SolveOutcome::NoSolution) return report;
-  } else if (rc == 0 || rc == GLP_EMIPGAP) {
-    if (status != GLP_OPT && status != GLP_FEAS) {
-      report.outcome = SolveOutcome::Error;
-      report.message = "GLPK returned no solution (status " + std::to_string(status) + ")";
-      return report;
-    }
-    report.outcome = SolveOutcome::Optimal;
-    report.message = "optimal within the relative gap";
-  } else {
-    report.outcome = SolveOutcome::Error;
-    report.message = "glp_intopt failed with code " + std::to_string(rc);
-    return report;
-  }
-  report.glpk_objective = glp_mip_obj_val(m.lp);
-  report.estimate_npc = report.glpk_objective + m.constant;
+namespace {
+
+// Fills the estimate fields of `report` from a solution read through `value(column)`.
+template <typename Value>
+void read_solution(const StorageMilp::Impl& m, SolveReport& report, double objective,
+                   Value value) {
+  report.glpk_objective = objective;
+  report.estimate_npc = objective + m.constant;
   double best_y = -1;
   for (std::size_t c = 0; c < m.choices.size(); ++c) {
-    const double y = glp_mip_col_val(m.lp, m.col_y[c]);
+    const double y = value(m.col_y[c]);
     if (y > best_y) {
       best_y = y;
       report.choice = c;
     }
   }
-  report.strings = static_cast<int>(std::lround(glp_mip_col_val(m.lp, m.col_n[report.choice])));
+  report.strings = static_cast<int>(std::lround(value(m.col_n[report.choice])));
   double discharged = 0, unmet = 0;
   for (int t = 0; t < m.hours; ++t) {
     double given = 0;
-    for (std::size_t c = 0; c < m.choices.size(); ++c) {
-      given += glp_mip_col_val(m.lp, m.col_hours[c] + 3 * t + 1);
-    }
+    for (std::size_t c = 0; c < m.choices.size(); ++c) given += value(m.col_hours[c] + 3 * t + 1);
     discharged += m.hour_weight[t] * given;
     unmet += m.hour_weight[t] * std::max(0.0, m.hour_deficit[t] - m.inverter_eff * given);
   }
@@ -368,7 +360,169 @@ SolveReport StorageMilp::solve(const MilpOptions& options) {
   report.estimate_storage_pv = report.estimate_npc - m.pa * m.unmet_price * unmet;
   report.estimate_lcos_per_kwh =
       discharged > 0 ? report.estimate_storage_pv / (m.pa * discharged) : 0.0;
-  return report;
+}
+
+// Simplex from the current basis; falls back to an advanced starting basis when the current
+// one cannot be factorised. Returns true when an optimal basic solution was found;
+// `infeasible` tells a proven empty feasible set from a failure.
+bool simplex(glp_prob* lp, int method, int time_limit_ms, bool& infeasible, bool& timed_out) {
+  glp_smcp parm;
+  glp_init_smcp(&parm);
+  parm.msg_lev = GLP_MSG_OFF;
+  parm.meth = method;
+  parm.tm_lim = time_limit_ms;
+  int rc = glp_simplex(lp, &parm);
+  if (rc == GLP_EBADB || rc == GLP_ESING || rc == GLP_ECOND) {
+    glp_adv_basis(lp, 0);
+    parm.meth = GLP_PRIMAL;
+    rc = glp_simplex(lp, &parm);
+  }
+  infeasible = rc == 0 && (glp_get_status(lp) == GLP_NOFEAS || glp_get_prim_stat(lp) == GLP_NOFEAS);
+  timed_out = rc == GLP_ETMLIM;
+  return rc == 0 && glp_get_status(lp) == GLP_OPT;
+}
+
+}  // namespace
+
+void StorageMilp::set_setpoint(std::size_t choice, double dod_setpoint, int min_strings,
+                               int max_strings) {
+  Impl& m = *impl_;
+  if (choice >= m.choices.size()) throw InvalidValue("choice", "out of range");
+  if (!(dod_setpoint > 0 && dod_setpoint <= 1)) {
+    throw InvalidValue("dod_setpoint", "must be in (0, 1]");
+  }
+  if (min_strings < 1 || min_strings > max_strings) {
+    throw InvalidValue("min_strings", "needs 1 <= min_strings <= max_strings");
+  }
+  MilpChoice& ch = m.choices[choice];
+  ch.dod_setpoint = dod_setpoint;
+  ch.min_strings = min_strings;
+  ch.max_strings = max_strings;
+  const Impl::ChoiceRows& cr = m.rows[choice];
+  const int n = m.col_n[choice], y = m.col_y[choice], z = m.col_z[choice];
+  glp_set_col_bnds(m.lp, n, GLP_DB, 0, max_strings);
+  {
+    const int ind[] = {0, n, y};
+    const double lo[] = {0, 1.0, -static_cast<double>(min_strings)};
+    const double hi[] = {0, 1.0, -static_cast<double>(max_strings)};
+    glp_set_mat_row(m.lp, cr.n_min, 2, ind, lo);
+    glp_set_mat_row(m.lp, cr.n_max, 2, ind, hi);
+  }
+  for (std::size_t t = 0; t < cr.soc_rows.size(); ++t) {
+    const int ind[] = {0, cr.soc_cols[t], n};
+    const double val[] = {0, 1.0, -dod_setpoint * cr.e_soc[t]};
+    glp_set_mat_row(m.lp, cr.soc_rows[t], 2, ind, val);
+  }
+  const double cycles = ch.profile->cycle_life.cycles_to_end_of_life(dod_setpoint);
+  std::vector<int> ind(4 + cr.dis_cols.size());
+  std::vector<double> val(ind.size());
+  for (std::size_t k = 0; k < cr.wear_rows.size(); ++k) {
+    int len = 0;
+    ind[++len] = z;
+    val[len] = 1;
+    ind[++len] = n;
+    val[len] = cr.wear_n[k];
+    if (cr.wear_y[k] != 0) {
+      ind[++len] = y;
+      val[len] = cr.wear_y[k];
+    }
+    for (std::size_t j = 0; j < cr.dis_cols.size(); ++j) {
+      const double v = -cr.wear_slope[k] * cr.rho1 * cr.dis_wear[j] / (cycles * dod_setpoint);
+      if (v == 0) continue;
+      ind[++len] = cr.dis_cols[j];
+      val[len] = v;
+    }
+    glp_set_mat_row(m.lp, cr.wear_rows[k], len, ind.data(), val.data());
+  }
+}
+
+SolveReport StorageMilp::solve(const MilpOptions& options) {
+  options.validate();
+  Impl& m = *impl_;
+  SolveReport report;
+  const auto start = std::chrono::steady_clock::now();
+  const int time_limit_ms = static_cast<int>(std::min(options.time_limit_s * 1000.0, 2.0e9));
+  glp_term_out(GLP_OFF);
+  auto finish = [&](SolveOutcome outcome, std::string message) {
+    glp_term_out(GLP_ON);
+    report.outcome = outcome;
+    report.message = std::move(message);
+    report.seconds =
+        std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
+    return report;
+  };
+
+  if (m.choices.size() == 1) {
+    // One integer variable n: the LP optimum as a function of a fixed n is convex (parametric
+    // right-hand side), so the integer optimum is at the floor or the ceiling of the LP
+    // relaxation's n. Three warm-started LPs solve the sub-model exactly, much faster than
+    // GLPK's general branch and bound.
+    const int n_col = m.col_n[0];
+    const MilpChoice& ch = m.choices[0];
+    bool infeasible = false, timed_out = false;
+    if (!simplex(m.lp, GLP_PRIMAL, time_limit_ms, infeasible, timed_out)) {
+      if (infeasible) return finish(SolveOutcome::Infeasible, "the model has no feasible solution");
+      return finish(timed_out ? SolveOutcome::NoSolution : SolveOutcome::Error,
+                    timed_out ? "stopped at the time limit" : "the LP relaxation failed");
+    }
+    const double n_lp = glp_get_col_prim(m.lp, n_col);
+    const double nearest = std::round(n_lp);
+    if (std::fabs(n_lp - nearest) > 1e-7) {
+      double best_value = std::numeric_limits<double>::infinity();
+      int best_n = 0;
+      for (int v : {static_cast<int>(std::floor(n_lp)), static_cast<int>(std::ceil(n_lp))}) {
+        if (v < ch.min_strings || v > ch.max_strings) continue;
+        glp_set_col_bnds(m.lp, n_col, GLP_FX, v, v);
+        if (simplex(m.lp, GLP_DUALP, time_limit_ms, infeasible, timed_out) &&
+            glp_get_obj_val(m.lp) < best_value) {
+          best_value = glp_get_obj_val(m.lp);
+          best_n = v;
+        }
+      }
+      if (best_n == 0) {
+        glp_set_col_bnds(m.lp, n_col, GLP_DB, 0, ch.max_strings);
+        return finish(timed_out ? SolveOutcome::NoSolution : SolveOutcome::Infeasible,
+                      "no integer number of strings is feasible in the model");
+      }
+      glp_set_col_bnds(m.lp, n_col, GLP_FX, best_n, best_n);
+      simplex(m.lp, GLP_DUALP, time_limit_ms, infeasible, timed_out);
+      read_solution(m, report, glp_get_obj_val(m.lp),
+                    [&](int j) { return glp_get_col_prim(m.lp, j); });
+      glp_set_col_bnds(m.lp, n_col, GLP_DB, 0, ch.max_strings);
+    } else {
+      read_solution(m, report, glp_get_obj_val(m.lp),
+                    [&](int j) { return glp_get_col_prim(m.lp, j); });
+    }
+    return finish(SolveOutcome::Optimal, "optimal (LP relaxation and its neighbouring integers)");
+  }
+
+  glp_iocp parm;
+  glp_init_iocp(&parm);
+  parm.msg_lev = GLP_MSG_OFF;
+  parm.presolve = GLP_ON;
+  parm.mip_gap = options.relative_gap;
+  parm.tm_lim = time_limit_ms;
+  const int rc = glp_intopt(m.lp, &parm);
+  const int status = glp_mip_status(m.lp);
+  if (rc == GLP_ENOPFS || status == GLP_NOFEAS) {
+    return finish(SolveOutcome::Infeasible, "the model has no feasible solution");
+  }
+  SolveOutcome outcome = SolveOutcome::Optimal;
+  std::string message = "optimal within the relative gap";
+  if (rc == GLP_ETMLIM) {
+    if (status != GLP_FEAS && status != GLP_OPT) {
+      return finish(SolveOutcome::NoSolution, "GLPK stopped at the time limit");
+    }
+    outcome = SolveOutcome::TimeLimit;
+    message = "GLPK stopped at the time limit";
+  } else if (rc != 0 && rc != GLP_EMIPGAP) {
+    return finish(SolveOutcome::Error, "glp_intopt failed with code " + std::to_string(rc));
+  } else if (status != GLP_OPT && status != GLP_FEAS) {
+    return finish(SolveOutcome::Error, "GLPK returned no solution (status " +
+                                           std::to_string(status) + ")");
+  }
+  read_solution(m, report, glp_mip_obj_val(m.lp), [&](int j) { return glp_mip_col_val(m.lp, j); });
+  return finish(outcome, message);
 }
 
 void StorageMilp::write_mps(const std::string& path) const {

@@ -89,13 +89,22 @@ class StorageMilp {
  public:
   // Builds the model; `study`, the choices' profiles and accelerations must outlive it.
   // Throws InvalidValue when `choices` is empty or a choice has min > max or min < 1.
+  // `unserved_limit` false leaves out the unserved-limit row (to price a given bank that
+  // misses the limit on the representative days).
   StorageMilp(const Study& study, std::vector<MilpChoice> choices,
-              const RepresentativeDays& days);
+              const RepresentativeDays& days, bool unserved_limit = true);
   ~StorageMilp();
   StorageMilp(const StorageMilp&) = delete;
   StorageMilp& operator=(const StorageMilp&) = delete;
 
+  // A model with one choice (a sub-model) is solved exactly through its LP relaxation and the
+  // two integers around its n (the LP value is convex in n); several choices go to GLPK's
+  // branch and bound (glp_intopt with its presolver).
   SolveReport solve(const MilpOptions& options);
+
+  // Moves choice `choice` to another setpoint and strings range of the same profile, keeping
+  // the rest of the model (and GLPK's basis, for a warm start). Throws InvalidValue.
+  void set_setpoint(std::size_t choice, double dod_setpoint, int min_strings, int max_strings);
 
   // Writes the model in free MPS (GLPK's GLP_MPS_FILE); throws std::runtime_error naming the
   // path on failure.
@@ -108,8 +117,9 @@ class StorageMilp {
   int integer_columns() const;
   double objective_constant() const;
 
+  struct Impl;  // GLPK problem and the bookkeeping to read and modify it
+
  private:
-  struct Impl;
   std::unique_ptr<Impl> impl_;
 };
 

@@ -86,7 +86,7 @@ Study make_synthetic_study(const SyntheticStudySpec& spec) {
   site.bus_voltage_v = 48;
   const double base = spec.daily_load_kwh / 24.0 / 1.15;
   const double winter_share = uniform(rng, 0.1, 0.4);
-  const double pv_peak = spec.daily_load_kwh * uniform(rng, 0.25, 0.45);
+  const double pv_peak = spec.daily_load_kwh * uniform(rng, spec.backup ? 0.25 : 0.5, spec.backup ? 0.45 : 0.8);
   const double temp_mean = uniform(rng, 5, 22);
   const double temp_amplitude = uniform(rng, 5, 15);
   for (int day = 0; day < 365; ++day) {
