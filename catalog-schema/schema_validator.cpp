@@ -202,7 +202,9 @@ YAML::Node SchemaValidator::resolve(const YAML::Node& schema) const {
   if (ref.compare(0, prefix.size(), prefix) != 0) {
     throw std::invalid_argument("unsupported $ref " + ref);
   }
-  const YAML::Node target = schema_["$defs"][ref.substr(prefix.size())];
+  const YAML::Node defs = schema_["$defs"];
+  if (!defs || !defs.IsMap()) throw std::invalid_argument("unresolved $ref " + ref);
+  const YAML::Node target = defs[ref.substr(prefix.size())];
   if (!target || !target.IsMap()) throw std::invalid_argument("unresolved $ref " + ref);
   return target;
 }
