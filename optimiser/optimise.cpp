@@ -318,7 +318,8 @@ class Search {
     std::size_t solved_count = 0;
     for (std::size_t p = 0; p < study_.profiles.size(); ++p) {
       double profile_estimate = kInf;
-      std::size_t profile_pick = pairs_total;  // none
+      constexpr std::size_t kNone = std::numeric_limits<std::size_t>::max();
+      std::size_t profile_pick = kNone;
       for (std::size_t c : order) {
         if (space_.choices[c].profile_index != p) continue;
         if (time_up()) return false;
@@ -333,7 +334,7 @@ class Search {
           profile_pick = c;
         }
       }
-      if (profile_pick == pairs_total) {
+      if (profile_pick == kNone) {
         // No pair of this profile is feasible in the model: try its cheapest pair by bound.
         for (std::size_t c : order) {
           if (space_.choices[c].profile_index == p) {
@@ -342,7 +343,7 @@ class Search {
           }
         }
       }
-      if (profile_pick < pairs_total && pairs_[profile_pick].solved) local_search(profile_pick);
+      if (profile_pick != kNone && pairs_[profile_pick].solved) local_search(profile_pick);
     }
 
     // 3. Every other pair, cheapest estimate (or bound, when unsolved) first.
