@@ -1,11 +1,12 @@
 // SPDX-License-Identifier: MIT
 #include "catalog-schema/csv_table.h"
 
+#include "catalog-schema/decimal_text.h"
+
 #include <cctype>
 #include <cmath>
 #include <limits>
 #include <locale>
-#include <regex>
 #include <sstream>
 #include <utility>
 
@@ -118,17 +119,10 @@ InputError CsvTable::error(int line, int column, const std::string& field,
 }
 
 CsvNumberStatus parse_csv_number(const std::string& text, double& value) {
-  static const std::regex decimal("[-+]?(\\.[0-9]+|[0-9]+(\\.[0-9]*)?)([eE][-+]?[0-9]+)?");
   if (text.empty()) return CsvNumberStatus::Empty;
-  if (std::regex_match(text, decimal)) {
-    std::istringstream in(text);
-    in.imbue(std::locale::classic());
-    in >> value;
-    if (in.fail() || !std::isfinite(value)) {
-      value = std::numeric_limits<double>::infinity();
-      return CsvNumberStatus::NotFinite;
-    }
-    return CsvNumberStatus::Ok;
+  if (is_decimal_text(text)) {
+    value = decimal_value(text);
+    return std::isfinite(value) ? CsvNumberStatus::Ok : CsvNumberStatus::NotFinite;
   }
   std::string word = lower(text);
   if (!word.empty() && (word[0] == '+' || word[0] == '-')) word.erase(0, 1);

@@ -7,6 +7,7 @@
 #include <regex>
 
 #include "catalog-schema/csv_table.h"
+#include "catalog-schema/decimal_text.h"
 #include "catalog-schema/input_error.h"
 #include "catalog-schema/input_file.h"
 #include "catalog-schema/schema_validator.h"
@@ -27,9 +28,13 @@ std::string lower(std::string s) {
   return s;
 }
 
+bool is_price_column(const std::string& name) {
+  return name.size() <= kMaxPatternText && std::regex_match(name, price_column());
+}
+
 bool allowed_name(const std::string& name) {
   return name == "load_kw" || name == "source_kw" || name == "temp_c" || name == "hour" ||
-         std::regex_match(name, price_column());
+         is_price_column(name);
 }
 
 }  // namespace
@@ -42,6 +47,9 @@ std::string hourly_column_problem(const std::string& name) {
   static const std::regex power("(load|source)_([A-Za-z0-9]+)");
   static const std::regex temperature("(temp|temperature)_([A-Za-z0-9]+)");
   static const std::regex price("(price(_[a-z0-9]+)*)_per_([A-Za-z0-9]+)");
+  if (name.size() > kMaxPatternText) {
+    return "unknown column (a name of " + std::to_string(name.size()) + " characters)";
+  }
   std::smatch m;
   if (std::regex_match(name, m, power)) {
     return "expected kW: name it " + m[1].str() + "_kw and give the values in kilowatts";
@@ -87,7 +95,7 @@ HourlySeries read_hourly_csv(std::istream& in, const std::string& source_name) {
     if (name == "load_kw") load = i;
     if (name == "source_kw") source = i;
     if (name == "temp_c") temp = i;
-    if (std::regex_match(name, price_column())) price_index[name] = i;
+    if (is_price_column(name)) price_index[name] = i;
   }
   for (const char* required : {"load_kw", "source_kw", "temp_c"}) {
     bool present = false;

@@ -11,6 +11,7 @@
 #include <sstream>
 #include <stdexcept>
 
+#include "catalog-schema/decimal_text.h"
 #include "catalog-schema/embedded_schemas.h"
 
 namespace stowage {
@@ -326,6 +327,12 @@ void SchemaValidator::check_node(const YAML::Node& schema_in, const YAML::Node& 
       }
     }
     if (schema["pattern"]) {
+      if (text.size() > kMaxPatternText) {
+        out.push_back(document.error_at(where, path,
+                                        "is too long (" + std::to_string(text.size()) +
+                                            " characters) for this field"));
+        return;
+      }
       const std::regex re(schema["pattern"].Scalar(), std::regex::ECMAScript);
       if (!std::regex_search(text, re)) {
         std::string message = "'" + text + "' is not in the expected form";

@@ -6,6 +6,7 @@
 #include <regex>
 
 #include "catalog-schema/csv_table.h"
+#include "catalog-schema/decimal_text.h"
 #include "catalog-schema/input_error.h"
 #include "catalog-schema/input_file.h"
 #include "catalog-schema/schema_validator.h"
@@ -18,6 +19,9 @@ constexpr double kInf = std::numeric_limits<double>::infinity();
 std::string column_problem(const std::string& name) {
   static const std::regex soc_like("(soc|state_of_charge|charge)_?([A-Za-z%]*)");
   static const std::regex temperature("(temp|temperature)_([A-Za-z0-9]+)");
+  if (name.size() > kMaxPatternText) {
+    return "unknown column (a name of " + std::to_string(name.size()) + " characters)";
+  }
   std::smatch m;
   if (std::regex_match(name, m, temperature)) {
     return "expected degrees Celsius: name it temp_c and give the values in degrees Celsius";

@@ -1,6 +1,8 @@
 // SPDX-License-Identifier: MIT
 #include "catalog-schema/yaml_document.h"
 
+#include "catalog-schema/decimal_text.h"
+
 #include <algorithm>
 #include <cctype>
 #include <cmath>
@@ -17,33 +19,13 @@ namespace {
 
 bool is_plain(const YAML::Node& node) { return node.Tag() == "?"; }
 
-// YAML 1.2 core schema, decimal forms only (hex and octal forms are not used in these files
-// and are better reported as text than silently converted).
-const std::regex& integer_form() {
-  static const std::regex re("[-+]?[0-9]+");
-  return re;
-}
-const std::regex& number_form() {
-  static const std::regex re("[-+]?(\\.[0-9]+|[0-9]+(\\.[0-9]*)?)([eE][-+]?[0-9]+)?");
-  return re;
-}
-const std::regex& non_finite_form() {
-  static const std::regex re("[-+]?\\.(inf|Inf|INF)|\\.(nan|NaN|NAN)");
-  return re;
-}
-
-// strtod with the decimal point fixed to '.', whatever the process locale says.
-double parse_decimal(const std::string& text) {
-  std::istringstream in(text);
-  in.imbue(std::locale::classic());
-  double value = 0;
-  in >> value;
-  if (in.fail()) {
-    // Out of the range of double ("1e999"): the text is a number, but not a usable one.
-    return text.find('-') == 0 ? -std::numeric_limits<double>::infinity()
-                               : std::numeric_limits<double>::infinity();
+bool non_finite_text(const std::string& s) {
+  static const char* const forms[] = {".inf", "+.inf", "-.inf", ".Inf", "+.Inf", "-.Inf",
+                                      ".INF", "+.INF", "-.INF", ".nan", ".NaN", ".NAN"};
+  for (const char* form : forms) {
+    if (s == form) return true;
   }
-  return value;
+  return false;
 }
 
 std::string trim(const std::string& s) {
@@ -62,7 +44,7 @@ std::string guess_path(const std::string& text, int line) {
   std::string row;
   for (int i = 0; i <= line && std::getline(in, row); ++i) {
     std::smatch m;
-    if (!std::regex_search(row, m, key_line)) continue;
+    if (row.size() > kMaxPatternText || !std::regex_search(row, m, key_line)) continue;
     std::size_t indent = m[1].length() + m[2].length();
     while (!stack.empty() && stack.back().first >= indent) stack.pop_back();
     stack.emplace_back(indent, m[3].str());
@@ -112,11 +94,11 @@ ScalarKind scalar_kind(const YAML::Node& node) {
   if (s == "true" || s == "True" || s == "TRUE" || s == "false" || s == "False" ||
       s == "FALSE")
     return ScalarKind::Boolean;
-  if (std::regex_match(s, integer_form())) return ScalarKind::Integer;
-  if (std::regex_match(s, number_form())) {
-    return std::isfinite(parse_decimal(s)) ? ScalarKind::Number : ScalarKind::NonFiniteNumber;
+  if (is_decimal_text(s)) {
+    if (!std::isfinite(decimal_value(s))) return ScalarKind::NonFiniteNumber;
+    return is_integer_text(s) ? ScalarKind::Integer : ScalarKind::Number;
   }
-  if (std::regex_match(s, non_finite_form())) return ScalarKind::NonFiniteNumber;
+  if (non_finite_text(s)) return ScalarKind::NonFiniteNumber;
   return ScalarKind::Text;
 }
 
@@ -125,13 +107,14 @@ std::optional<double> scalar_number(const YAML::Node& node) {
   switch (scalar_kind(node)) {
     case ScalarKind::Integer:
     case ScalarKind::Number:
-      return parse_decimal(node.Scalar());
+      return decimal_value(node.Scalar());
     case ScalarKind::NonFiniteNumber: {
       const std::string& s = node.Scalar();
       if (s.find("nan") != std::string::npos || s.find("NaN") != std::string::npos ||
           s.find("NAN") != std::string::npos)
         return std::numeric_limits<double>::quiet_NaN();
-      return parse_decimal(s == ".inf" || s == "+.inf" || s.find('-') != 0 ? "1e999" : "-1e999");
+      return s[0] == '-' ? -std::numeric_limits<double>::infinity()
+                         : std::numeric_limits<double>::infinity();
     }
     default:
       return std::nullopt;
