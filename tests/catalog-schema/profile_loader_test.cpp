@@ -280,6 +280,13 @@ TEST_CASE("values that relate to each other are checked", "[catalog][profile][ba
   }
 }
 
+TEST_CASE("a rule only the model checks is still located in the file", "[catalog][profile][bad]") {
+  // Below absolute zero: the schema only asks for a number, TemperatureBehaviour refuses it.
+  const std::string text = replace_once(full_profile(), "reference_c: 25", "reference_c: -300");
+  CHECK_THAT(profile_error(text, "reference_c", "profile.temperature.reference_c"),
+             Catch::Contains("absolute zero"));
+}
+
 TEST_CASE("a key given twice is refused", "[catalog][profile][bad]") {
   const std::string text =
       replace_once(full_profile(), "    capacity_ah: 100\n", "    capacity_ah: 100\n    capacity_ah: 120\n");
