@@ -96,6 +96,7 @@ class Search {
     result.pairs_pruned_by_bound = pruned_bound_;
     result.pairs_pruned_by_estimate = pruned_estimate_;
     result.time_limit_reached = hit_limit_;
+    result.model_seconds = model_seconds_;
     result.proven_optimal = complete && !hit_limit_ && milp_all_optimal_;
     result.model_estimate_npc = result.model_estimate_per_kwh = result.gap = kNaN;
     if (result.feasible()) {
@@ -185,6 +186,12 @@ class Search {
 
   // One sub-model per profile, moved from setpoint to setpoint so GLPK starts warm.
   SolveReport solve_submodel(std::size_t c, int lo, int hi) {
+    const auto start = Clock::now();
+    struct AddTime {
+      double& total;
+      Clock::time_point start;
+      ~AddTime() { total += std::chrono::duration<double>(Clock::now() - start).count(); }
+    } add_time{model_seconds_, start};
     const std::size_t p = space_.choices[c].profile_index;
     if (submodels_.size() != study_.profiles.size()) submodels_.resize(study_.profiles.size());
     if (!submodels_[p]) {
@@ -443,6 +450,7 @@ class Search {
   std::optional<DesignResult> best_;
   std::size_t best_choice_ = 0;
   std::size_t evaluated_ = 0, submodels_solved_ = 0, pruned_bound_ = 0, pruned_estimate_ = 0;
+  double model_seconds_ = 0;
   bool hit_limit_ = false;
   bool milp_all_optimal_ = true;
   double least_unserved_ = kInf;

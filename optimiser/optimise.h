@@ -77,6 +77,7 @@ struct OptimiseResult {
   double model_estimate_per_kwh = 0;   // model estimate of its LCOS (NaN if none)
   double gap = 0;                      // (exact npc - estimate) / |exact npc| (NaN if none)
   double solve_seconds = 0;
+  double model_seconds = 0;            // of solve_seconds, spent building and solving sub-models
   std::size_t designs_evaluated_exactly = 0;
   std::size_t admissible_designs = 0;  // size of the design space within the constraints
   std::size_t submodels_solved = 0;
