@@ -20,6 +20,8 @@
 #include <string>
 #include <vector>
 
+#include "catalog-schema/input_error.h"  // what the readers throw
+
 namespace stowage {
 
 struct HourlySeries {

@@ -18,6 +18,7 @@
 #include <map>
 #include <string>
 
+#include "catalog-schema/input_error.h"  // what the readers throw
 #include "model/chemistry_profile.h"
 
 namespace stowage {

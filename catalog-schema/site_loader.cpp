@@ -47,7 +47,7 @@ LoadedSite build_site(const YamlDocument& doc, const std::string& base_dir) {
   std::ifstream csv;
   std::string reason;
   if (!open_input(loaded.hourly_path, csv, reason)) {
-    throw doc.error_at(s["hourly"], "site.hourly", "the hourly CSV " + reason);
+    throw doc.error_at(s["hourly"], "site.hourly", "hourly CSV: " + reason);
   }
   HourlySeries hourly = read_hourly_csv(csv, loaded.hourly_path);
   site.load_kw = std::move(hourly.load_kw);

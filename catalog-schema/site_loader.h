@@ -14,6 +14,7 @@
 #include <optional>
 #include <string>
 
+#include "catalog-schema/input_error.h"  // what the readers throw
 #include "model/site.h"
 
 namespace stowage {

@@ -46,7 +46,7 @@ std::ifstream open_referenced(const YamlDocument& doc, const YAML::Node& node,
                               const std::string& what) {
   std::ifstream in;
   std::string reason;
-  if (!open_input(path, in, reason)) throw doc.error_at(node, field, "the " + what + " " + reason);
+  if (!open_input(path, in, reason)) throw doc.error_at(node, field, what + ": " + reason);
   return in;
 }
 

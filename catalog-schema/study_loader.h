@@ -23,6 +23,7 @@
 #include <string>
 #include <vector>
 
+#include "catalog-schema/input_error.h"  // what the readers throw
 #include "catalog-schema/profile_loader.h"
 #include "catalog-schema/site_loader.h"
 #include "catalog-schema/soc_series.h"

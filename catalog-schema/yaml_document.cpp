@@ -1,8 +1,6 @@
 // SPDX-License-Identifier: MIT
 #include "catalog-schema/yaml_document.h"
 
-#include "catalog-schema/decimal_text.h"
-
 #include <algorithm>
 #include <cctype>
 #include <cmath>
@@ -13,6 +11,8 @@
 #include <sstream>
 #include <utility>
 #include <vector>
+
+#include "catalog-schema/decimal_text.h"
 
 namespace stowage {
 namespace {
