@@ -2,7 +2,7 @@
 # SPDX-License-Identifier: MIT
 # Every bad-input fixture (tests/catalog-schema/bad-inputs/NN-name/) must make `stowage check`
 # exit 2 with a message holding each line of its expect.txt (file, line and field).
-source "$(dirname "$0")/common.sh"
+source "$(dirname "$0")/common.bash"
 count=0
 for dir in "$SRC"/tests/catalog-schema/bad-inputs/*/; do
   dir=${dir%/}

@@ -4,7 +4,7 @@
 # -2, 1, -3, 5, -1, 3, -4, 4, -2 mapped to SOC = (x + 5) / 10. Expected ranges /10 with counts
 # 0.3 -> 0.5, 0.4 -> 1.5, 0.6 -> 0.5, 0.8 -> 1.0, 0.9 -> 0.5 (check-values.md 1.1, READ-3P),
 # so equivalent full cycles = sum count x depth = 2.3.
-source "$(dirname "$0")/common.sh"
+source "$(dirname "$0")/common.bash"
 "$PY" - "$WORK/soc.csv" "$WORK/soc_pct.csv" <<'PY'
 import sys
 history = [-2, 1, -3, 5, -1, 3, -4, 4, -2]

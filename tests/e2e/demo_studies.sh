@@ -2,7 +2,7 @@
 # SPDX-License-Identifier: MIT
 # The shipped demo studies check, evaluate to JSON with the stable fields, and write their CSV
 # files completely (invented data: only shapes and identities are checked here, no values).
-source "$(dirname "$0")/common.sh"
+source "$(dirname "$0")/common.bash"
 studies=("$SRC"/studies/*/study.yaml)
 [ "${#studies[@]}" -ge 3 ] || fail "expected the three demo studies, found ${#studies[@]}"
 for study in "${studies[@]}"; do

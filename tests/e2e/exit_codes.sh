@@ -1,7 +1,7 @@
 #!/usr/bin/env bash
 # SPDX-License-Identifier: MIT
 # Exit codes (0 success, 2 bad input, 1 internal error) and output safety of the command line.
-source "$(dirname "$0")/common.sh"
+source "$(dirname "$0")/common.bash"
 study="$SRC/studies/tarnbeck-saddle/study.yaml"
 expect_exit 0 -- "$STOWAGE" --help || true
 expect_exit 0 -- "$STOWAGE" --version && grep -q "stowage" "$WORK/out" || fail "--version"
