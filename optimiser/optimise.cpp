@@ -86,8 +86,12 @@ class Search {
       complete = settle_unserved_limit() && complete;
     }
 
-    for (auto& best : profile_best_) {
-      if (best) result.ranking.push_back(*best);
+    for (std::size_t p = 0; p < profile_best_.size(); ++p) {
+      if (profile_best_[p]) {
+        result.ranking.push_back(*profile_best_[p]);
+      } else if (!hit_limit_) {
+        result.notes.push_back("profile " + study_.profiles[p].id + ": " + why_absent(p));
+      }
     }
     std::stable_sort(result.ranking.begin(), result.ranking.end(),
                      [](const DesignResult& a, const DesignResult& b) { return a.npc < b.npc; });
@@ -396,6 +400,34 @@ class Search {
       local_search(c);
     }
     return !time_up();
+  }
+
+  // Why a profile has no design in the ranking.
+  std::string why_absent(std::size_t p) const {
+    bool admissible = false, capped_below_autonomy = false, capped_below_power = false;
+    int cap = 0;
+    StringCap cap_kind = StringCap::MaxStrings;
+    for (const DesignChoice& c : space_.choices) {
+      if (c.profile_index != p) continue;
+      admissible |= c.admissible();
+      capped_below_autonomy |= c.autonomy_strings > c.max_strings;
+      capped_below_power |= c.c_rate_strings > c.max_strings;
+      cap = c.max_strings;
+      cap_kind = c.cap;
+    }
+    if (admissible) {
+      return "no design searched meets the unserved-energy limit";
+    }
+    if (dod_ladder(study_.search, study_.profiles[p]).empty()) {
+      return "its allowed DoD range holds no setpoint of the ladder";
+    }
+    std::string why = "no admissible design: ";
+    if (capped_below_autonomy) why += "the autonomy needs more strings ";
+    if (capped_below_power) {
+      why += std::string(capped_below_autonomy ? "and " : "") + "the peak draw needs more strings ";
+    }
+    return why + "than the " + std::to_string(std::max(cap, 0)) + " allowed by " +
+           to_string(cap_kind) + " at every setpoint";
   }
 
   UnmetRequirement unserved_diagnosis() const {
