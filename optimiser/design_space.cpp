@@ -40,7 +40,8 @@ double bank_investment(const ChemistryProfile& profile, double bus_voltage_v, in
          c.capital_per_string * strings + c.installation_fixed;
 }
 
-double npc_lower_bound(const ChemistryProfile& profile, const Study& study, int strings) {
+double npc_lower_bound(const ChemistryProfile& profile, const Study& study, int strings,
+                       double calendar_damage_per_year) {
   const Economics& e = study.economics;
   const int n_years = e.project_years;
   const double i = e.real_discount_rate;
@@ -54,6 +55,23 @@ double npc_lower_bound(const ChemistryProfile& profile, const Study& study, int 
   if (c.end_of_life_per_kwh < 0 && n_years > 1) {
     // A salvage credit at every possible replacement (at most one per year, years 1..N-1).
     bound += c.end_of_life_per_kwh * nameplate * series_present_worth_factor(i, n_years - 1);
+  }
+  // The longest a bank can serve, in whole years. The simulator retires a bank when its damage
+  // reaches 1 - 1e-9; asking for 1 - 1e-9 + 1e-7 here can only make Y later (a weaker bound)
+  // when rounding in the simulator's year-by-year sum differs from y x cal.
+  long life = std::numeric_limits<long>::max();
+  if (calendar_damage_per_year > 0) {
+    life = static_cast<long>(std::ceil((1.0 - 1e-9 + 1e-7) / calendar_damage_per_year));
+  }
+  if (profile.max_service_years) {
+    life = std::min(life, static_cast<long>(std::ceil(*profile.max_service_years)));
+  }
+  life = std::max(life, 1L);
+  for (long year = life; year < n_years; year += life) {
+    const double y = static_cast<double>(year);
+    double replacement = i0 * c.replacement_share * std::pow(1 - c.price_decline_per_year, y);
+    if (c.end_of_life_per_kwh > 0) replacement += c.end_of_life_per_kwh * nameplate;
+    bound += replacement * present_worth_factor(i, y);
   }
   return bound;
 }

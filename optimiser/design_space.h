@@ -82,12 +82,19 @@ double bank_investment(const ChemistryProfile& profile, double bus_voltage_v, in
 
 // A lower bound on DesignResult::npc of any design of `profile` with `strings` strings,
 // whatever the setpoint and dispatch: the year-0 investment, plus fixed O&M (exact:
-// proportional to nameplate every year), minus the largest residual credit the conventions of
-// model/lifecycle.h allow (at most the price paid for the bank in service, credited at N),
-// plus end-of-life flows bounded below (a salvage value may be credited at most once a year
-// and once at N + 1). Every other item (replacements, variable O&M, charging, back-up,
-// penalty) is >= 0 and left out. Non-decreasing in `strings` when the string price is
-// positive and the residual credit factor is below one.
-double npc_lower_bound(const ChemistryProfile& profile, const Study& study, int strings);
+// proportional to nameplate every year), plus the replacements that calendar ageing alone
+// forces, minus the largest residual credit the conventions of model/lifecycle.h allow (at most
+// the price paid for the bank in service, credited at N), plus end-of-life flows bounded below
+// (a salvage value may be credited at most once a year and once at N + 1). Every other item
+// (variable O&M, charging, back-up, penalty, cycle wear) is >= 0 and left out.
+// Forced replacements: damage grows by at least `calendar_damage_per_year` (the site's exact
+// calendar damage, AccelerationSeries::calendar_damage_per_year; 0 when unknown) every year and
+// a bank is retired at max_service_years, so each bank lasts at most Y whole years and the k-th
+// replacement comes no later than year kY; as a replacement's present price falls with time,
+// pricing replacements k = 1, 2, ... with kY < N at year kY bounds their cost from below.
+// Non-decreasing in `strings` when the string price is positive and the residual credit
+// factor is below one.
+double npc_lower_bound(const ChemistryProfile& profile, const Study& study, int strings,
+                       double calendar_damage_per_year = 0);
 
 }  // namespace stowage

@@ -64,7 +64,8 @@ class Search {
     for (std::size_t c = 0; c < space_.choices.size(); ++c) {
       const DesignChoice& ch = space_.choices[c];
       if (ch.admissible()) {
-        lower_bound_[c] = npc_lower_bound(study.profiles[ch.profile_index], study, ch.min_strings);
+        lower_bound_[c] = npc_lower_bound(study.profiles[ch.profile_index], study, ch.min_strings,
+                                          calendar_damage(ch.profile_index));
       }
     }
   }
@@ -118,6 +119,10 @@ class Search {
     bool feasible = false;
     double unserved_fraction = kInf;
   };
+
+  double calendar_damage(std::size_t p) const {
+    return evaluators_[p]->acceleration().calendar_damage_per_year;
+  }
 
   double elapsed() const { return std::chrono::duration<double>(Clock::now() - start_).count(); }
   bool time_up() {
@@ -273,7 +278,8 @@ class Search {
       int misses = 0;
       for (int n = n0 + dir; n >= ch.min_strings && n <= ch.max_strings; n += dir) {
         if (time_up()) return pair_best;
-        if (dir > 0 && npc_lower_bound(profile, study_, n) >= std::min(best_npc(), pair_best)) {
+        if (dir > 0 && npc_lower_bound(profile, study_, n, calendar_damage(ch.profile_index)) >=
+                           std::min(best_npc(), pair_best)) {
           break;
         }
         const Exact& e = evaluate(c, n);
