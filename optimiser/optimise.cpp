@@ -166,10 +166,7 @@ class Search {
     if (e.feasible) {
       auto& pb = profile_best_[ch.profile_index];
       if (!pb || r.npc < pb->npc) pb = r;
-      if (!best_ || r.npc < best_->npc) {
-        best_ = r;
-        best_choice_ = c;
-      }
+      if (!best_ || r.npc < best_->npc) best_ = r;
     }
     return cache_.emplace(key, e).first->second;
   }
@@ -486,7 +483,6 @@ class Search {
   std::vector<std::optional<DesignResult>> profile_best_;
   std::vector<std::vector<double>> ratios_;
   std::optional<DesignResult> best_;
-  std::size_t best_choice_ = 0;
   std::size_t evaluated_ = 0, submodels_solved_ = 0, pruned_bound_ = 0, pruned_estimate_ = 0;
   double model_seconds_ = 0;
   bool hit_limit_ = false;
