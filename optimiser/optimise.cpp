@@ -460,13 +460,20 @@ class Search {
     }
     if (c == space_.choices.size()) return;
     const int n = best.bank.strings_parallel;
-    StorageMilp model(study_, {milp_choice(c, n, n)}, days_, /*unserved_limit=*/false);
     MilpOptions mo;
     mo.time_limit_s = 60;
-    const SolveReport r = model.solve(mo);
+    // With the unserved limit first (the dispatch the model would plan for this bank); if the
+    // representative days cannot meet it with this bank, without it.
+    SolveReport r;
+    for (bool limit : {true, false}) {
+      StorageMilp model(study_, {milp_choice(c, n, n)}, days_, limit);
+      r = model.solve(mo);
+      if (r.solution_usable()) break;
+    }
     if (!r.solution_usable()) return;
     result.model_estimate_npc = r.estimate_npc;
-    result.model_estimate_per_kwh = r.estimate_lcos_per_kwh;
+    result.model_estimate_per_kwh =
+        r.estimate_discharged_kwh_per_year > 0 ? r.estimate_lcos_per_kwh : kNaN;
     result.gap = (best.npc - r.estimate_npc) / std::max(std::fabs(best.npc), 1e-9);
   }
 

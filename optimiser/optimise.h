@@ -74,7 +74,7 @@ struct OptimiseResult {
   // sorted by npc (ties: profile order). ranking.front() is the answer.
   std::vector<DesignResult> ranking;
   double model_estimate_npc = 0;       // model estimate of the answer's design (NaN if none)
-  double model_estimate_per_kwh = 0;   // model estimate of its LCOS (NaN if none)
+  double model_estimate_per_kwh = 0;   // its LCOS estimate (NaN if none or nothing discharged)
   double gap = 0;                      // (exact npc - estimate) / |exact npc| (NaN if none)
   double solve_seconds = 0;
   double model_seconds = 0;            // of solve_seconds, spent building and solving sub-models

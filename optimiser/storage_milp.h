@@ -75,7 +75,7 @@ struct SolveReport {
   double estimate_npc = 0;            // glpk_objective + constant: model estimate of the NPC
   double estimate_storage_pv = 0;     // estimate_npc less back-up and penalty
   double estimate_discharged_kwh_per_year = 0;
-  double estimate_lcos_per_kwh = 0;   // storage PV / (P/A(N) x discharged per year)
+  double estimate_lcos_per_kwh = 0;   // storage PV / (P/A(N) x discharged per year); 0 if none
   std::size_t choice = 0;             // index into the choices
   int strings = 0;
   double seconds = 0;

@@ -109,11 +109,14 @@ void print_text(const Study& study, const OptimiseResult& r) {
   print_design_table(out, best);
   out << "\n";
   if (std::isfinite(r.model_estimate_npc)) {
+    const std::string lcos = std::isfinite(r.model_estimate_per_kwh)
+                                 ? fmt::format("{:.4f} {}/kWh", r.model_estimate_per_kwh, cur)
+                                 : std::string("n/a (no discharge planned)");
     fmt::print(out,
-               "Model estimate of this design: NPC {} {}, LCOS {:.4f} {}/kWh; exact NPC {} {} "
-               "(gap {:+.2f} % of the exact value)\n",
-               format_amount(r.model_estimate_npc), cur, r.model_estimate_per_kwh, cur,
-               format_amount(best.npc), cur, 100 * r.gap);
+               "Model estimate of this design: NPC {} {}, LCOS {}; exact NPC {} {}, LCOS "
+               "{:.4f} {}/kWh (gap {:+.2f} % of the exact NPC)\n",
+               format_amount(r.model_estimate_npc), cur, lcos, format_amount(best.npc), cur,
+               best.lcos_per_kwh, cur, 100 * r.gap);
   }
   if (r.method == SearchMethod::Milp) {
     fmt::print(out,
