@@ -23,11 +23,12 @@ namespace {
 // The issue's acceptance rule: the same design, or one within 0.1 % of the optimum's NPC.
 constexpr double kObjectiveTolerance = 1e-3;
 
-void require_same_optimum(const Study& study, const std::string& label) {
+void require_same_optimum(const Study& study, const std::string& label,
+                          const OptimiseOptions& milp_options = {}) {
   OptimiseOptions exhaustive_options;
   exhaustive_options.method = SearchMethod::Exhaustive;
   const OptimiseResult exhaustive = optimise(study, exhaustive_options);
-  const OptimiseResult milp = optimise(study);
+  const OptimiseResult milp = optimise(study, milp_options);
   INFO(label);
   REQUIRE(exhaustive.feasible() == milp.feasible());
   REQUIRE(exhaustive.proven_optimal);
@@ -69,6 +70,37 @@ TEST_CASE("optimise finds the exhaustive optimum on randomised studies with an u
     spec.dod_step = 0.05;
     require_same_optimum(make_synthetic_study(spec), "seed " + std::to_string(seed));
   }
+}
+
+TEST_CASE("optimise finds the exhaustive optimum with three representative days a month",
+          "[optimiser][optimise]") {
+  OptimiseOptions options;
+  options.days_per_block = 3;
+  for (std::uint64_t seed = 301; seed <= 304; ++seed) {
+    SyntheticStudySpec spec;
+    spec.seed = seed;
+    spec.backup = seed % 2 == 1;
+    spec.max_strings = 20;
+    require_same_optimum(make_synthetic_study(spec), "seed " + std::to_string(seed), options);
+  }
+}
+
+TEST_CASE("optimise finds the exhaustive optimum on a generated 8 x 17 x 40 design space",
+          "[optimiser][optimise][large]") {
+  // The benchmark's generated study (bench/bench_optimise.cpp): 8 profiles, DoD 0.20..1.00 in
+  // 0.05 steps, up to 40 strings, 20 years.
+  SyntheticStudySpec spec;
+  spec.seed = 2026;
+  spec.profiles = 8;
+  spec.full_dod_range = true;
+  spec.dod_step = 0.05;
+  spec.max_strings = 40;
+  spec.project_years = 20;
+  spec.daily_load_kwh = 14;
+  spec.autonomy_days = 1.0;
+  const Study study = make_synthetic_study(spec);
+  for (const ChemistryProfile& p : study.profiles) CHECK(dod_ladder(study.search, p).size() == 17);
+  require_same_optimum(study, "seed 2026, 8 profiles");
 }
 
 TEST_CASE("optimise finds the exhaustive optimum on the demo studies", "[optimiser][optimise][demo]") {
