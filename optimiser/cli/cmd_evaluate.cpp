@@ -38,13 +38,8 @@ std::vector<DesignResult> evaluate_all(const Study& study) {
 
 void print_text(const Study& study, const std::vector<DesignResult>& results) {
   auto& out = std::cout;
-  fmt::print(out, "stowage {}: lifecycle evaluation\n", STOWAGE_VERSION_STRING);
-  fmt::print(out, "Study: {}\nSite:  {} ({:g} V bus, {} kWh demand a year)\n", study.title,
-             study.site.name, study.site.bus_voltage_v,
-             format_amount(study.site.annual_demand_kwh()));
-  fmt::print(out, "Economics: {} years, {:.1f} % real discount rate, {}\n\n",
-             study.economics.project_years, 100 * study.economics.real_discount_rate,
-             study.economics.currency);
+  print_study_header(out, study, "lifecycle evaluation");
+  out << "\n";
   for (std::size_t i = 0; i < results.size(); ++i) {
     fmt::print(out, "Design {}: ", i + 1);
     print_design_table(out, results[i]);

@@ -65,14 +65,8 @@ std::vector<CostItem> differences(const DesignResult& design, const DesignResult
 std::string signed_amount(double v) { return (v >= 0 ? "+" : "-") + format_amount(std::fabs(v)); }
 
 void print_header(std::ostream& out, const Study& study, const OptimiseResult& r) {
-  fmt::print(out, "stowage {}: design optimisation (method {})\n", STOWAGE_VERSION_STRING,
-             to_string(r.method));
-  fmt::print(out, "Study: {}\nSite:  {} ({:g} V bus, {} kWh demand a year)\n", study.title,
-             study.site.name, study.site.bus_voltage_v,
-             format_amount(study.site.annual_demand_kwh()));
-  fmt::print(out, "Economics: {} years, {:.1f} % real discount rate, {}\n",
-             study.economics.project_years, 100 * study.economics.real_discount_rate,
-             study.economics.currency);
+  print_study_header(out, study,
+                     std::string("design optimisation (method ") + to_string(r.method) + ")");
   fmt::print(out,
              "Search space: {} profiles, DoD ladder {:g} to {:g} step {:g}, 1 to {} strings; "
              "{} admissible designs\n",

@@ -7,6 +7,7 @@
 #include <sstream>
 
 #include "optimiser/cli/cli_support.h"
+#include "stowage_version.h"
 
 namespace stowage::cli {
 
@@ -167,6 +168,16 @@ std::string cash_flows_csv(const std::vector<DesignResult>& designs) {
         << csv_number(d.final_end_of_life * df_last) << "\n";
   }
   return out.str();
+}
+
+void print_study_header(std::ostream& out, const Study& study, const std::string& what) {
+  fmt::print(out, "stowage {}: {}\n", STOWAGE_VERSION_STRING, what);
+  fmt::print(out, "Study: {}\nSite:  {} ({:g} V bus, {} kWh demand a year)\n", study.title,
+             study.site.name, study.site.bus_voltage_v,
+             format_amount(study.site.annual_demand_kwh()));
+  fmt::print(out, "Economics: {} years, {:.1f} % real discount rate, {}\n",
+             study.economics.project_years, 100 * study.economics.real_discount_rate,
+             study.economics.currency);
 }
 
 void print_safety_notice(std::ostream& out) {

@@ -9,6 +9,7 @@
 #include <vector>
 
 #include "model/lifecycle.h"
+#include "model/study.h"
 #include "optimiser/cli/json_writer.h"
 
 namespace stowage::cli {
@@ -27,6 +28,9 @@ void print_design_table(std::ostream& out, const DesignResult& design);
 // CSV texts: one summary row per design, and the year-by-year cash flows of every design.
 std::string designs_summary_csv(const std::vector<DesignResult>& designs);
 std::string cash_flows_csv(const std::vector<DesignResult>& designs);
+
+// The opening lines of a report: tool and version, what it does, the study, site and economics.
+void print_study_header(std::ostream& out, const Study& study, const std::string& what);
 
 // The caution every report and the README carry: planning estimate, hazards, defer to codes.
 void print_safety_notice(std::ostream& out);
