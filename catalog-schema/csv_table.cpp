@@ -13,14 +13,6 @@
 namespace stowage {
 namespace {
 
-std::string number_text(double x) {
-  std::ostringstream out;
-  out.imbue(std::locale::classic());
-  out.precision(10);
-  out << x;
-  return out.str();
-}
-
 bool blank(const std::string& s) {
   for (const char c : s) {
     if (!std::isspace(static_cast<unsigned char>(c))) return false;

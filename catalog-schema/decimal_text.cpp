@@ -56,4 +56,12 @@ double decimal_value(const std::string& text) {
   return value;
 }
 
+std::string number_text(double value) {
+  std::ostringstream out;
+  out.imbue(std::locale::classic());
+  out.precision(10);
+  out << value;
+  return out.str();
+}
+
 }  // namespace stowage

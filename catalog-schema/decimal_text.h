@@ -19,6 +19,9 @@ bool is_decimal_text(std::string_view text);  // the accepted form above
 // of double (e.g. "1e999").
 double decimal_value(const std::string& text);
 
+// A number as messages show it: up to 10 significant digits, '.' as the decimal point.
+std::string number_text(double value);
+
 // std::regex_search / regex_match recurse once per character in common implementations; text
 // longer than this is refused before any pattern is applied to it.
 constexpr std::size_t kMaxPatternText = 256;

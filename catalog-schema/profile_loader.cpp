@@ -7,6 +7,7 @@
 #include <utility>
 #include <vector>
 
+#include "catalog-schema/decimal_text.h"
 #include "catalog-schema/input_error.h"
 #include "catalog-schema/input_file.h"
 #include "catalog-schema/schema_validator.h"
@@ -15,14 +16,6 @@
 
 namespace stowage {
 namespace {
-
-std::string text_of(double x) {
-  std::ostringstream out;
-  out.imbue(std::locale::classic());
-  out.precision(10);
-  out << x;
-  return out.str();
-}
 
 // Reading after the schema has checked types: a present key is of the declared type.
 double number(const YAML::Node& node) { return *scalar_number(node); }
@@ -42,7 +35,7 @@ void check_cell(const YamlDocument& doc, const YAML::Node& cell) {
   const double discharge_v = number(cell["mean_discharge_v"]);
   if (!(charge_v > discharge_v)) {
     throw doc.error_at(cell["mean_charge_v"], "profile.cell.mean_charge_v",
-                       "must be above mean_discharge_v (" + text_of(discharge_v) +
+                       "must be above mean_discharge_v (" + number_text(discharge_v) +
                            " V): charging takes a higher voltage than discharging");
   }
 }
@@ -51,12 +44,12 @@ void check_dod(const YamlDocument& doc, const YAML::Node& dod) {
   const double lo = number(dod["min"]), hi = number(dod["max"]), setpoint = number(dod["default"]);
   if (lo > hi) {
     throw doc.error_at(dod["min"], "profile.dod.min",
-                       "must not exceed dod.max (" + text_of(hi) + "), found " + text_of(lo));
+                       "must not exceed dod.max (" + number_text(hi) + "), found " + number_text(lo));
   }
   if (setpoint < lo || setpoint > hi) {
     throw doc.error_at(dod["default"], "profile.dod.default",
-                       "must lie within [dod.min, dod.max] = [" + text_of(lo) + ", " +
-                           text_of(hi) + "], found " + text_of(setpoint));
+                       "must lie within [dod.min, dod.max] = [" + number_text(lo) + ", " +
+                           number_text(hi) + "], found " + number_text(setpoint));
   }
 }
 
@@ -78,17 +71,17 @@ std::vector<CycleLifePoint> read_cycle_life(const YamlDocument& doc, const YAML:
     const std::size_t at = std::max(lo, hi), other = std::min(lo, hi);
     if (points[hi].dod == points[lo].dod) {
       throw doc.error_at(list[at]["dod"], join_index(path, at) + ".dod",
-                         "DoD " + text_of(points[at].dod) + " appears twice (also in entry " +
+                         "DoD " + number_text(points[at].dod) + " appears twice (also in entry " +
                              std::to_string(other) + "); each point needs its own DoD");
     }
     if (!(points[hi].cycles < points[lo].cycles)) {
       const bool deeper = at == hi;  // is the reported point the deeper one of the pair?
       throw doc.error_at(
           list[at]["cycles"], join_index(path, at) + ".cycles",
-          "cycle life must fall as DoD grows: " + text_of(points[at].cycles) + " cycles at DoD " +
-              text_of(points[at].dod) + (deeper ? " is not fewer than " : " is not more than ") +
-              text_of(points[other].cycles) + " cycles at the " +
-              (deeper ? "shallower" : "deeper") + " DoD " + text_of(points[other].dod) +
+          "cycle life must fall as DoD grows: " + number_text(points[at].cycles) + " cycles at DoD " +
+              number_text(points[at].dod) + (deeper ? " is not fewer than " : " is not more than ") +
+              number_text(points[other].cycles) + " cycles at the " +
+              (deeper ? "shallower" : "deeper") + " DoD " + number_text(points[other].dod) +
               " (entry " + std::to_string(other) + ")");
     }
   }
@@ -104,8 +97,8 @@ TemperatureSpec read_temperature(const YamlDocument& doc, const YAML::Node& t) {
     const CapacityFactorPoint row{number(rows[i]["temp_c"]), number(rows[i]["factor"])};
     if (!spec.capacity_factor.empty() && !(row.temp_c > spec.capacity_factor.back().temp_c)) {
       throw doc.error_at(rows[i]["temp_c"], join_index(path + ".capacity_factor", i) + ".temp_c",
-                         "temperatures must increase from row to row: " + text_of(row.temp_c) +
-                             " follows " + text_of(spec.capacity_factor.back().temp_c));
+                         "temperatures must increase from row to row: " + number_text(row.temp_c) +
+                             " follows " + number_text(spec.capacity_factor.back().temp_c));
     }
     spec.capacity_factor.push_back(row);
   }
@@ -121,8 +114,8 @@ TemperatureSpec read_temperature(const YamlDocument& doc, const YAML::Node& t) {
     const double lo = number(t[range]["min"]), hi = number(t[range]["max"]);
     if (!(lo < hi)) {
       throw doc.error_at(t[range]["min"], path + "." + range + ".min",
-                         "must be below " + std::string(range) + ".max (" + text_of(hi) +
-                             "), found " + text_of(lo));
+                         "must be below " + std::string(range) + ".max (" + number_text(hi) +
+                             "), found " + number_text(lo));
     }
   }
   spec.operating_min_c = number(t["operating_c"]["min"]);

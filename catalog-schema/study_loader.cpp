@@ -5,6 +5,7 @@
 #include <fstream>
 #include <sstream>
 
+#include "catalog-schema/decimal_text.h"
 #include "catalog-schema/input_error.h"
 #include "catalog-schema/input_file.h"
 #include "catalog-schema/schema_validator.h"
@@ -15,14 +16,6 @@ namespace stowage {
 namespace {
 
 double number(const YAML::Node& node) { return *scalar_number(node); }
-
-std::string text_of(double x) {
-  std::ostringstream out;
-  out.imbue(std::locale::classic());
-  out.precision(10);
-  out << x;
-  return out.str();
-}
 
 std::string where(const SourcePosition& p) {
   return p.file + ":" + std::to_string(p.line) + ":" + std::to_string(p.column);
@@ -109,8 +102,8 @@ void read_designs(const YamlDocument& doc, LoadedStudy& loaded) {
       if (setpoint < profile->dod.min || setpoint > profile->dod.max) {
         throw doc.error_at(d["dod_setpoint"], base + ".dod_setpoint",
                            "must lie within profile " + profile->id + "'s dod range [" +
-                               text_of(profile->dod.min) + ", " + text_of(profile->dod.max) +
-                               "], found " + text_of(setpoint));
+                               number_text(profile->dod.min) + ", " + number_text(profile->dod.max) +
+                               "], found " + number_text(setpoint));
       }
       design.dod_setpoint = setpoint;
     }
@@ -131,8 +124,8 @@ void read_search(const YamlDocument& doc, LoadedStudy& loaded) {
     search.dod_step = number(ladder["step"]);
     if (search.dod_from > search.dod_to) {
       throw doc.error_at(ladder["from"], "study.search.dod_ladder.from",
-                         "must not exceed dod_ladder.to (" + text_of(search.dod_to) +
-                             "), found " + text_of(search.dod_from));
+                         "must not exceed dod_ladder.to (" + number_text(search.dod_to) +
+                             "), found " + number_text(search.dod_from));
     }
   }
   if (s["max_strings_parallel"]) {
