@@ -104,7 +104,8 @@ DesignResult LifecycleEvaluator::evaluate(double dod_setpoint, int strings_paral
     if (year == econ.project_years) {
       double used = std::min(1.0, damage);
       if (p.max_service_years) used = std::max(used, age_years / *p.max_service_years);
-      rec.residual_value = -bank_price * std::max(0.0, 1.0 - used);
+      const double remaining = 1.0 - used;
+      if (remaining > 0) rec.residual_value = -bank_price * remaining;  // a credit
     }
 
     rec.discount_factor = present_worth_factor(econ.real_discount_rate, year);
@@ -126,8 +127,8 @@ DesignResult LifecycleEvaluator::evaluate(double dod_setpoint, int strings_paral
 
   // End of life of the last bank one year after the last operating year (Schmidt et al. 2019).
   r.final_end_of_life = end_of_life_cost;
-  pv.end_of_life += end_of_life_cost *
-                    present_worth_factor(econ.real_discount_rate, econ.project_years + 1);
+  r.final_discount_factor = present_worth_factor(econ.real_discount_rate, econ.project_years + 1);
+  pv.end_of_life += end_of_life_cost * r.final_discount_factor;
 
   r.npc = pv.total();
   r.lcos_per_kwh = r.discounted_discharged_kwh > 0

@@ -78,6 +78,7 @@ struct DesignResult {
   std::vector<YearRecord> years;
   double investment = 0;              // year 0
   double final_end_of_life = 0;       // year N + 1, undiscounted
+  double final_discount_factor = 1;   // P/F at N + 1
   CostBreakdown present_value;
   double npc = 0;
   double lcos_per_kwh = 0;

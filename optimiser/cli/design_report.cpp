@@ -160,9 +160,7 @@ std::string cash_flows_csv(const std::vector<DesignResult>& designs) {
     }
     // Year N + 1: end of life of the bank in service at the end of the project.
     const int last = static_cast<int>(d.years.size()) + 1;
-    const double df = d.years.empty() ? 1.0 : d.years.back().discount_factor;
-    const double rate = d.years.empty() ? 0.0 : 1.0 / (d.years.front().discount_factor) - 1.0;
-    const double df_last = df / (1.0 + rate);
+    const double df_last = d.final_discount_factor;
     out << id << ',' << last << ",,,,,,,,,,,,0,0,0,0,0,0,0," << csv_number(d.final_end_of_life)
         << ",0," << csv_number(d.final_end_of_life) << ',' << csv_number(df_last) << ','
         << csv_number(d.final_end_of_life * df_last) << "\n";

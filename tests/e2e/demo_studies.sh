@@ -38,6 +38,23 @@ PY
     [ -s "$out/$f" ] || fail "$name: $f missing or empty"
   done
   ls "$out" | grep -q partial && fail "$name: a temporary file was left behind"
+  # Every row has the header's width, and each design's discounted cash flows add up to its NPC
+  # (identity of the report).
+  "$PY" - "$out/designs.csv" "$out/cash-flows.csv" <<'PY' || fail "$name: CSV identities"
+import csv, math, sys
+designs = list(csv.DictReader(open(sys.argv[1])))
+flows = list(csv.reader(open(sys.argv[2])))
+assert len({len(r) for r in flows}) == 1, "ragged cash-flows.csv"
+header = flows[0]
+sums = {}
+for row in flows[1:]:
+    rec = dict(zip(header, row))
+    key = (rec["profile"], float(rec["dod_setpoint"]), int(rec["strings_parallel"]))
+    sums[key] = sums.get(key, 0.0) + float(rec["present_value"])
+for d in designs:
+    key = (d["profile"], float(d["dod_setpoint"]), int(d["strings_parallel"]))
+    assert math.isclose(sums[key], float(d["npc"]), rel_tol=1e-6), (key, sums[key], d["npc"])
+PY
   expect_exit 0 -- "$STOWAGE" evaluate --format json "$study" || continue
   designs=$("$PY" -c "import json,sys; print(len(json.load(open(sys.argv[1]))['designs']))" "$WORK/out")
   rows=$(($(wc -l <"$out/designs.csv") - 1))
