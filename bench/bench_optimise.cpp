@@ -7,8 +7,8 @@
 // the same design space (time-limited; a run stopped by the limit is reported as such).
 #include "bench/bench_optimise.h"
 
-#include <chrono>
 #include <algorithm>
+#include <chrono>
 #include <cmath>
 #include <cstdio>
 #include <filesystem>
@@ -44,8 +44,8 @@ SolveReport solve_monolithic(const Study& study, int* columns) {
   for (const DesignChoice& c : space.choices) {
     if (!c.admissible()) continue;
     choices.push_back({&study.profiles[c.profile_index],
-                       &evaluators[c.profile_index]->acceleration(), c.dod_setpoint,
-                       c.min_strings, c.max_strings});
+                       &evaluators[c.profile_index]->acceleration(), c.dod_setpoint, c.min_strings,
+                       c.max_strings});
   }
   const auto start = std::chrono::steady_clock::now();
   StorageMilp model(study, std::move(choices), select_representative_days(study.site, 1));
@@ -66,9 +66,9 @@ double milp_best_submodel_objective(const Study& study) {
     if (!c.admissible()) continue;
     const ChemistryProfile& p = study.profiles[c.profile_index];
     LifecycleEvaluator evaluator(p, study.site, study.economics);
-    StorageMilp model(study, {{&p, &evaluator.acceleration(), c.dod_setpoint, c.min_strings,
-                               c.max_strings}},
-                      days);
+    StorageMilp model(
+        study, {{&p, &evaluator.acceleration(), c.dod_setpoint, c.min_strings, c.max_strings}},
+        days);
     const SolveReport r = model.solve(MilpOptions{});
     if (r.solution_usable()) best = std::min(best, r.glpk_objective);
   }
@@ -96,11 +96,11 @@ void compare(const char* label, const Study& study) {
   std::printf("  exhaustive:         %8.3f s, %zu exact evaluations -> %s DoD %.2f x%d, NPC %.0f\n",
               exhaustive.solve_seconds, exhaustive.designs_evaluated_exactly, b.profile_id.c_str(),
               b.dod_setpoint, b.bank.strings_parallel, b.npc);
-  std::printf("  optimise (milp):    %8.3f s, %zu exact evaluations, %zu sub-models (%.3f s) "
-              "-> %s DoD %.2f x%d, NPC %.0f\n",
-              milp.solve_seconds, milp.designs_evaluated_exactly, milp.submodels_solved,
-              milp.model_seconds, a.profile_id.c_str(), a.dod_setpoint, a.bank.strings_parallel,
-              a.npc);
+  std::printf(
+      "  optimise (milp):    %8.3f s, %zu exact evaluations, %zu sub-models (%.3f s) "
+      "-> %s DoD %.2f x%d, NPC %.0f\n",
+      milp.solve_seconds, milp.designs_evaluated_exactly, milp.submodels_solved, milp.model_seconds,
+      a.profile_id.c_str(), a.dod_setpoint, a.bank.strings_parallel, a.npc);
   std::printf("  speed-up:           %8.1f x (target >= 20)\n",
               exhaustive.solve_seconds / milp.solve_seconds);
   std::printf("  same answer:        %s (NPC difference %+.4f %%)\n",
@@ -110,10 +110,11 @@ void compare(const char* label, const Study& study) {
   int columns = 0;
   const SolveReport mono = solve_monolithic(study, &columns);
   const bool stopped = mono.outcome != SolveOutcome::Optimal;
-  std::printf("  monolithic GLPK:    %8.3f s for %d columns, %s; decomposed sub-models %.3f s "
-              "(%s%.1f x faster)\n",
-              mono.seconds, columns, to_string(mono.outcome), milp.model_seconds,
-              stopped ? "at least " : "", mono.seconds / std::max(milp.model_seconds, 1e-9));
+  std::printf(
+      "  monolithic GLPK:    %8.3f s for %d columns, %s; decomposed sub-models %.3f s "
+      "(%s%.1f x faster)\n",
+      mono.seconds, columns, to_string(mono.outcome), milp.model_seconds,
+      stopped ? "at least " : "", mono.seconds / std::max(milp.model_seconds, 1e-9));
   if (mono.solution_usable()) {
     std::printf("  monolithic optimum: %s\n",
                 std::fabs(mono.glpk_objective - milp_best_submodel_objective(study)) <=

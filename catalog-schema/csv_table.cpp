@@ -1,14 +1,14 @@
 // SPDX-License-Identifier: MIT
 #include "catalog-schema/csv_table.h"
 
-#include "catalog-schema/decimal_text.h"
-
 #include <cctype>
 #include <cmath>
 #include <limits>
 #include <locale>
 #include <sstream>
 #include <utility>
+
+#include "catalog-schema/decimal_text.h"
 
 namespace stowage {
 namespace {

@@ -88,8 +88,7 @@ HourlySeries read_hourly_csv(std::istream& in, const std::string& source_name) {
     for (std::size_t j = 0; j < i; ++j) {
       if (header.fields[j].text == name) {
         throw table.error(header.line, field.column, name,
-                          "the column appears twice (also column " + std::to_string(j + 1) +
-                              ")");
+                          "the column appears twice (also column " + std::to_string(j + 1) + ")");
       }
     }
     if (name == "load_kw") load = i;

@@ -43,8 +43,9 @@ void check_cell(const YamlDocument& doc, const YAML::Node& cell) {
 void check_dod(const YamlDocument& doc, const YAML::Node& dod) {
   const double lo = number(dod["min"]), hi = number(dod["max"]), setpoint = number(dod["default"]);
   if (lo > hi) {
-    throw doc.error_at(dod["min"], "profile.dod.min",
-                       "must not exceed dod.max (" + number_text(hi) + "), found " + number_text(lo));
+    throw doc.error_at(
+        dod["min"], "profile.dod.min",
+        "must not exceed dod.max (" + number_text(hi) + "), found " + number_text(lo));
   }
   if (setpoint < lo || setpoint > hi) {
     throw doc.error_at(dod["default"], "profile.dod.default",
@@ -76,13 +77,14 @@ std::vector<CycleLifePoint> read_cycle_life(const YamlDocument& doc, const YAML:
     }
     if (!(points[hi].cycles < points[lo].cycles)) {
       const bool deeper = at == hi;  // is the reported point the deeper one of the pair?
-      throw doc.error_at(
-          list[at]["cycles"], join_index(path, at) + ".cycles",
-          "cycle life must fall as DoD grows: " + number_text(points[at].cycles) + " cycles at DoD " +
-              number_text(points[at].dod) + (deeper ? " is not fewer than " : " is not more than ") +
-              number_text(points[other].cycles) + " cycles at the " +
-              (deeper ? "shallower" : "deeper") + " DoD " + number_text(points[other].dod) +
-              " (entry " + std::to_string(other) + ")");
+      throw doc.error_at(list[at]["cycles"], join_index(path, at) + ".cycles",
+                         "cycle life must fall as DoD grows: " + number_text(points[at].cycles) +
+                             " cycles at DoD " + number_text(points[at].dod) +
+                             (deeper ? " is not fewer than " : " is not more than ") +
+                             number_text(points[other].cycles) + " cycles at the " +
+                             (deeper ? "shallower" : "deeper") + " DoD " +
+                             number_text(points[other].dod) + " (entry " + std::to_string(other) +
+                             ")");
     }
   }
   return points;

@@ -18,12 +18,32 @@ namespace stowage {
 namespace {
 
 const std::set<std::string>& supported_keywords() {
-  static const std::set<std::string> keywords = {
-      "type",     "properties", "required",  "additionalProperties", "enum",
-      "minimum",  "maximum",    "exclusiveMinimum", "exclusiveMaximum", "minLength",
-      "minItems", "maxItems",   "items",     "pattern",   "oneOf",   "$ref",
-      "$defs",    "$schema",    "$id",       "$comment",  "title",   "description",
-      "default",  "examples",   "errorMessage", "patternErrorMessage"};
+  static const std::set<std::string> keywords = {"type",
+                                                 "properties",
+                                                 "required",
+                                                 "additionalProperties",
+                                                 "enum",
+                                                 "minimum",
+                                                 "maximum",
+                                                 "exclusiveMinimum",
+                                                 "exclusiveMaximum",
+                                                 "minLength",
+                                                 "minItems",
+                                                 "maxItems",
+                                                 "items",
+                                                 "pattern",
+                                                 "oneOf",
+                                                 "$ref",
+                                                 "$defs",
+                                                 "$schema",
+                                                 "$id",
+                                                 "$comment",
+                                                 "title",
+                                                 "description",
+                                                 "default",
+                                                 "examples",
+                                                 "errorMessage",
+                                                 "patternErrorMessage"};
   return keywords;
 }
 
@@ -215,9 +235,9 @@ std::vector<InputError> SchemaValidator::check(const YamlDocument& document) con
   if (document.root().IsNull() && schema_["required"]) {
     // An empty file: say which top-level key it needs rather than "expected a mapping".
     for (const YAML::Node& key : schema_["required"]) {
-      out.push_back(document.error_at(document.root(), key.Scalar(),
-                                      "the file is empty; it must start with '" + key.Scalar() +
-                                          ":'"));
+      out.push_back(
+          document.error_at(document.root(), key.Scalar(),
+                            "the file is empty; it must start with '" + key.Scalar() + ":'"));
     }
     return out;
   }
@@ -233,8 +253,7 @@ void SchemaValidator::enforce(const YamlDocument& document) const {
 
 void SchemaValidator::check_node(const YAML::Node& schema_in, const YAML::Node& value,
                                  const YAML::Node& anchor, const std::string& path,
-                                 const YamlDocument& document,
-                                 std::vector<InputError>& out) const {
+                                 const YamlDocument& document, std::vector<InputError>& out) const {
   // Keywords beside a $ref apply together with the referenced schema (draft 2020-12).
   if (schema_in["$ref"]) {
     const std::size_t before = out.size();
@@ -252,16 +271,15 @@ void SchemaValidator::check_node(const YAML::Node& schema_in, const YAML::Node& 
       const bool numeric = std::find(types.begin(), types.end(), "number") != types.end() ||
                            std::find(types.begin(), types.end(), "integer") != types.end();
       if (numeric && value.IsScalar() && scalar_kind(value) == ScalarKind::NonFiniteNumber) {
-        out.push_back(document.error_at(where, path,
-                                        "must be a finite number, found " + value.Scalar()));
+        out.push_back(
+            document.error_at(where, path, "must be a finite number, found " + value.Scalar()));
         return;
       }
       std::vector<std::string> phrases;
       for (const std::string& t : types) phrases.push_back(type_phrase(t));
-      std::string message = "expected " + join_words(phrases, " or ") + ", found " +
-                            describe_node(value);
-      if (std::find(types.begin(), types.end(), "integer") != types.end() &&
-          scalar_number(value)) {
+      std::string message =
+          "expected " + join_words(phrases, " or ") + ", found " + describe_node(value);
+      if (std::find(types.begin(), types.end(), "integer") != types.end() && scalar_number(value)) {
         message = "expected a whole number, found " + value.Scalar();
       } else if (value.IsScalar() && scalar_kind(value) == ScalarKind::Text && numeric &&
                  value.Tag() == "!") {
@@ -280,8 +298,8 @@ void SchemaValidator::check_node(const YAML::Node& schema_in, const YAML::Node& 
       if (value.IsScalar() && value.Scalar() == option.Scalar()) found = true;
     }
     if (!found) {
-      std::string message = describe_node(value) + " is not allowed; use one of: " +
-                            join_words(allowed, ", ");
+      std::string message =
+          describe_node(value) + " is not allowed; use one of: " + join_words(allowed, ", ");
       if (value.IsScalar()) {
         const std::string hint = closest_match(value.Scalar(), allowed);
         if (!hint.empty()) message += " (did you mean '" + hint + "'?)";
@@ -309,8 +327,7 @@ void SchemaValidator::check_node(const YAML::Node& schema_in, const YAML::Node& 
       if (!bound.holds(*x, limit)) {
         out.push_back(document.error_at(where, path,
                                         std::string("must be ") + bound.relation + " " +
-                                            format_number(limit) + ", found " +
-                                            value.Scalar()));
+                                            format_number(limit) + ", found " + value.Scalar()));
         return;
       }
     }
@@ -328,9 +345,9 @@ void SchemaValidator::check_node(const YAML::Node& schema_in, const YAML::Node& 
     }
     if (schema["pattern"]) {
       if (text.size() > kMaxPatternText) {
-        out.push_back(document.error_at(where, path,
-                                        "is too long (" + std::to_string(text.size()) +
-                                            " characters) for this field"));
+        out.push_back(document.error_at(
+            where, path,
+            "is too long (" + std::to_string(text.size()) + " characters) for this field"));
         return;
       }
       const std::regex re(schema["pattern"].Scalar(), std::regex::ECMAScript);
@@ -350,16 +367,15 @@ void SchemaValidator::check_node(const YAML::Node& schema_in, const YAML::Node& 
   if (value.IsSequence()) {
     if (schema["minItems"] && value.size() < schema["minItems"].as<std::size_t>()) {
       const std::size_t n = schema["minItems"].as<std::size_t>();
-      out.push_back(document.error_at(
-          where, path,
-          "needs at least " + std::to_string(n) + (n == 1 ? " entry" : " entries") +
-              ", found " + std::to_string(value.size())));
+      out.push_back(document.error_at(where, path,
+                                      "needs at least " + std::to_string(n) +
+                                          (n == 1 ? " entry" : " entries") + ", found " +
+                                          std::to_string(value.size())));
     }
     if (schema["maxItems"] && value.size() > schema["maxItems"].as<std::size_t>()) {
-      out.push_back(document.error_at(
-          where, path,
-          "allows at most " + schema["maxItems"].Scalar() + " entries, found " +
-              std::to_string(value.size())));
+      out.push_back(document.error_at(where, path,
+                                      "allows at most " + schema["maxItems"].Scalar() +
+                                          " entries, found " + std::to_string(value.size())));
     }
     if (schema["items"]) {
       for (std::size_t i = 0; i < value.size(); ++i) {

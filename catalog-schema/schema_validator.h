@@ -17,11 +17,11 @@
 // .nan and .inf fail every numeric type.
 #pragma once
 
+#include <yaml-cpp/yaml.h>
+
 #include <string>
 #include <string_view>
 #include <vector>
-
-#include <yaml-cpp/yaml.h>
 
 #include "catalog-schema/input_error.h"
 #include "catalog-schema/yaml_document.h"
@@ -51,9 +51,8 @@ class SchemaValidator {
   void check_node(const YAML::Node& schema, const YAML::Node& value, const YAML::Node& anchor,
                   const std::string& path, const YamlDocument& document,
                   std::vector<InputError>& out) const;
-  void check_object(const YAML::Node& schema, const YAML::Node& value,
-                    const std::string& path, const YamlDocument& document,
-                    std::vector<InputError>& out) const;
+  void check_object(const YAML::Node& schema, const YAML::Node& value, const std::string& path,
+                    const YamlDocument& document, std::vector<InputError>& out) const;
   void check_one_of(const YAML::Node& schema, const YAML::Node& value, const YAML::Node& anchor,
                     const std::string& path, const YamlDocument& document,
                     std::vector<InputError>& out) const;

@@ -106,8 +106,6 @@ SiteConditions load_site(std::istream& in, const std::string& source_name,
   return load_site_details(in, source_name, base_dir).site;
 }
 
-SiteConditions load_site_file(const std::string& path) {
-  return load_site_details_file(path).site;
-}
+SiteConditions load_site_file(const std::string& path) { return load_site_details_file(path).site; }
 
 }  // namespace stowage

@@ -30,8 +30,9 @@ std::string column_problem(const std::string& name) {
     return "expected a fraction or percent: name it soc (values 0 to 1) or soc_pct (values 0 to "
            "100)";
   }
-  std::string message = "unknown column; the columns are soc or soc_pct, and optionally temp_c "
-                        "and time";
+  std::string message =
+      "unknown column; the columns are soc or soc_pct, and optionally temp_c "
+      "and time";
   const std::string hint = closest_match(name, {"soc", "soc_pct", "temp_c", "time"});
   if (!hint.empty()) message += " (did you mean '" + hint + "'?)";
   return message;
@@ -52,13 +53,14 @@ SocSeries read_soc_series(std::istream& in, const std::string& source_name) {
     if (name == "temp_c") slot = &temp;
     if (name == "time") continue;
     if (slot == nullptr) {
-      throw table.error(header.line, field.column, name.empty() ? "(column " + std::to_string(i + 1) + ")" : name,
+      throw table.error(header.line, field.column,
+                        name.empty() ? "(column " + std::to_string(i + 1) + ")" : name,
                         name.empty() ? "empty column name" : column_problem(name));
     }
     if (*slot) {
-      throw table.error(header.line, field.column, name,
-                        "the column appears twice (also column " + std::to_string(**slot + 1) +
-                            ")");
+      throw table.error(
+          header.line, field.column, name,
+          "the column appears twice (also column " + std::to_string(**slot + 1) + ")");
     }
     *slot = i;
   }
@@ -78,9 +80,9 @@ SocSeries read_soc_series(std::istream& in, const std::string& source_name) {
   CsvRow row;
   while (table.next(row)) {
     if (soc) {
-      series.soc_fraction.push_back(csv_number(
-          table, row, *soc, "soc", 0, 1,
-          " (soc is a fraction; for percent values name the column soc_pct)"));
+      series.soc_fraction.push_back(
+          csv_number(table, row, *soc, "soc", 0, 1,
+                     " (soc is a fraction; for percent values name the column soc_pct)"));
     } else {
       series.soc_fraction.push_back(csv_number(table, row, *pct, "soc_pct", 0, 100) / 100.0);
     }

@@ -57,8 +57,8 @@ void read_profiles(const YamlDocument& doc, const std::string& base_dir, LoadedS
       if (loaded.profiles[j].profile.id == profile.profile.id) {
         throw doc.error_at(list[i], field,
                            "profile id '" + profile.profile.id + "' (" + where(profile.id_at) +
-                               ") is already used by study.profiles[" + std::to_string(j) +
-                               "] (" + where(loaded.profiles[j].id_at) +
+                               ") is already used by study.profiles[" + std::to_string(j) + "] (" +
+                               where(loaded.profiles[j].id_at) +
                                "); ids must be unique within a study");
       }
     }
@@ -102,8 +102,8 @@ void read_designs(const YamlDocument& doc, LoadedStudy& loaded) {
       if (setpoint < profile->dod.min || setpoint > profile->dod.max) {
         throw doc.error_at(d["dod_setpoint"], base + ".dod_setpoint",
                            "must lie within profile " + profile->id + "'s dod range [" +
-                               number_text(profile->dod.min) + ", " + number_text(profile->dod.max) +
-                               "], found " + number_text(setpoint));
+                               number_text(profile->dod.min) + ", " +
+                               number_text(profile->dod.max) + "], found " + number_text(setpoint));
       }
       design.dod_setpoint = setpoint;
     }

@@ -33,9 +33,9 @@ namespace stowage {
 
 struct LoadedStudy {
   Study study;
-  std::string path;                    // source name of the study file
-  std::string site_path;               // the site file as opened
-  std::string hourly_path;             // the site's hourly CSV as opened
+  std::string path;                        // source name of the study file
+  std::string site_path;                   // the site file as opened
+  std::string hourly_path;                 // the site's hourly CSV as opened
   std::vector<std::string> profile_paths;  // as opened, in the order of study.profiles
   std::vector<LoadedProfile> profiles;     // same order; currency and sources of each
   std::string soc_log_path;                // study.soc_log as opened; empty when not given

@@ -21,7 +21,7 @@ bool is_plain(const YAML::Node& node) { return node.Tag() == "?"; }
 
 bool non_finite_text(const std::string& s) {
   static const char* const forms[] = {".inf", "+.inf", "-.inf", ".Inf", "+.Inf", "-.Inf",
-                                      ".INF", "+.INF", "-.INF", ".nan", ".NaN", ".NAN"};
+                                      ".INF", "+.INF", "-.INF", ".nan", ".NaN",  ".NAN"};
   for (const char* form : forms) {
     if (s == form) return true;
   }
@@ -91,8 +91,7 @@ ScalarKind scalar_kind(const YAML::Node& node) {
   if (node.IsNull()) return ScalarKind::Null;
   if (!is_plain(node)) return ScalarKind::Text;
   const std::string& s = node.Scalar();
-  if (s == "true" || s == "True" || s == "TRUE" || s == "false" || s == "False" ||
-      s == "FALSE")
+  if (s == "true" || s == "True" || s == "TRUE" || s == "false" || s == "False" || s == "FALSE")
     return ScalarKind::Boolean;
   if (is_decimal_text(s)) {
     if (!std::isfinite(decimal_value(s))) return ScalarKind::NonFiniteNumber;
@@ -149,9 +148,7 @@ std::string join_index(const std::string& parent, std::size_t index) {
   return parent + "[" + std::to_string(index) + "]";
 }
 
-std::string display_path(const std::string& path) {
-  return path.empty() ? "(top level)" : path;
-}
+std::string display_path(const std::string& path) { return path.empty() ? "(top level)" : path; }
 
 YamlDocument::YamlDocument(std::string source_name, YAML::Node root)
     : source_(std::move(source_name)), root_(std::move(root)) {}
@@ -220,8 +217,7 @@ YAML::Node YamlDocument::locate(const std::string& path, bool* exact) const {
   return node;
 }
 
-InputError YamlDocument::error_at_path(const std::string& field,
-                                       const std::string& message) const {
+InputError YamlDocument::error_at_path(const std::string& field, const std::string& message) const {
   return error_at(locate(field), field, message);
 }
 

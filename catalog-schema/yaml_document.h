@@ -10,11 +10,11 @@
 // .inf/.nan counting as non-finite numbers) or else text; a quoted scalar is always text.
 #pragma once
 
+#include <yaml-cpp/yaml.h>
+
 #include <istream>
 #include <optional>
 #include <string>
-
-#include <yaml-cpp/yaml.h>
 
 #include "catalog-schema/input_error.h"
 

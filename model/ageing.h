@@ -27,8 +27,8 @@ struct YearDamage {
 // Per-hour temperature acceleration of a profile at a site, with prefix sums, computed once
 // per (profile, site) and shared by every year and design.
 struct AccelerationSeries {
-  std::vector<double> per_hour;   // a(T_h), 8760 values
-  std::vector<double> prefix;     // prefix[i] = sum of per_hour[0..i), 8761 values
+  std::vector<double> per_hour;         // a(T_h), 8760 values
+  std::vector<double> prefix;           // prefix[i] = sum of per_hour[0..i), 8761 values
   double calendar_damage_per_year = 0;  // sum per_hour / (calendar_life_years x 8760)
 };
 AccelerationSeries acceleration_series(const ChemistryProfile& profile,

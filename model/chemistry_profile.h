@@ -22,25 +22,26 @@
 namespace stowage {
 
 struct ProfileCosts {
-  double capital_per_kwh = 0;           // per kWh nameplate, > 0
-  double capital_per_string = 0;        // per string in parallel (racks, fusing, BMS), >= 0
-  double installation_fixed = 0;        // per bank, >= 0
-  double fixed_om_per_kwh_year = 0;     // per kWh nameplate and year, >= 0
-  double variable_om_per_mwh = 0;       // per MWh discharged, >= 0
-  double replacement_share = 1.0;       // replacement price / initial price (capital + install)
-  double price_decline_per_year = 0;    // real annual decline of the replacement price, [0, 1)
-  double end_of_life_per_kwh = 0;       // disposal cost (> 0) or salvage value (< 0) per kWh
+  double capital_per_kwh = 0;         // per kWh nameplate, > 0
+  double capital_per_string = 0;      // per string in parallel (racks, fusing, BMS), >= 0
+  double installation_fixed = 0;      // per bank, >= 0
+  double fixed_om_per_kwh_year = 0;   // per kWh nameplate and year, >= 0
+  double variable_om_per_mwh = 0;     // per MWh discharged, >= 0
+  double replacement_share = 1.0;     // replacement price / initial price (capital + install)
+  double price_decline_per_year = 0;  // real annual decline of the replacement price, [0, 1)
+  double end_of_life_per_kwh = 0;     // disposal cost (> 0) or salvage value (< 0) per kWh
 };
 
 // Extra ageing when a bank goes too long without a full charge (sulfation of lead-acid).
 struct PartialChargeStress {
-  double full_charge_soc = 0.98;             // SOC that counts as a full charge, (0, 1]
-  double max_days_without_full_charge = 7;   // grace period, days > 0
-  double damage_per_extra_day = 0;           // Miner damage per day beyond the grace period
+  double full_charge_soc = 0.98;            // SOC that counts as a full charge, (0, 1]
+  double max_days_without_full_charge = 7;  // grace period, days > 0
+  double damage_per_extra_day = 0;          // Miner damage per day beyond the grace period
 };
 
 struct DodRange {
-  double min = 0.2, max = 0.8, default_setpoint = 0.5;  // fractions in (0, 1], min <= default <= max
+  double min = 0.2, max = 0.8,
+         default_setpoint = 0.5;  // fractions in (0, 1], min <= default <= max
 };
 
 struct ChemistryProfile {
@@ -49,19 +50,19 @@ struct ChemistryProfile {
   std::string description;
   double cell_nominal_v = 0;
   double cell_capacity_ah = 0;
-  double capacity_rate_hours = 10;       // H of the rated capacity (e.g. 10 for C10)
-  double coulombic_efficiency = 1;       // (0, 1]
-  double mean_charge_v = 0;              // per cell, > mean_discharge_v
-  double mean_discharge_v = 0;           // per cell
-  double max_charge_c_rate = 0;          // per hour, > 0
-  double max_discharge_c_rate = 0;       // per hour, > 0
-  double peukert_exponent = 1;           // [1, 2]
-  double self_discharge_per_month = 0;   // fraction of stored charge lost per 730 h, [0, 1)
+  double capacity_rate_hours = 10;      // H of the rated capacity (e.g. 10 for C10)
+  double coulombic_efficiency = 1;      // (0, 1]
+  double mean_charge_v = 0;             // per cell, > mean_discharge_v
+  double mean_discharge_v = 0;          // per cell
+  double max_charge_c_rate = 0;         // per hour, > 0
+  double max_discharge_c_rate = 0;      // per hour, > 0
+  double peukert_exponent = 1;          // [1, 2]
+  double self_discharge_per_month = 0;  // fraction of stored charge lost per 730 h, [0, 1)
   CycleLifeCurve cycle_life{{{0.5, 2}, {1.0, 1}}};
-  double calendar_life_years = 10;       // at the reference temperature, > 0
+  double calendar_life_years = 10;          // at the reference temperature, > 0
   std::optional<double> max_service_years;  // hard replacement age regardless of wear
   TemperatureBehaviour temperature{TemperatureSpec{25, {{25, 1}}}};
-  double eol_capacity_fraction = 0.80;   // (0, 1)
+  double eol_capacity_fraction = 0.80;  // (0, 1)
   std::optional<PartialChargeStress> partial_charge;
   DodRange dod;
   ProfileCosts costs;

@@ -27,31 +27,31 @@ namespace stowage {
 
 // Carried from one year into the next.
 struct DispatchState {
-  double soc = 1.0;                     // fraction of effective capacity
-  double hours_since_full_charge = 0;   // for partial-state-of-charge stress
+  double soc = 1.0;                    // fraction of effective capacity
+  double hours_since_full_charge = 0;  // for partial-state-of-charge stress
 };
 
 struct YearDispatch {
-  double demand_kwh = 0;                // sum of load
-  double source_to_load_kwh = 0;        // load met directly by the source
-  double charge_source_kwh = 0;         // source energy drawn for charging (before the charger)
-  double charge_cost = 0;               // sum of charge_source_kwh x hourly price
-  double charged_terminal_kwh = 0;      // into the bank terminals
-  double discharged_terminal_kwh = 0;   // out of the bank terminals
-  double delivered_kwh = 0;             // to the load, after the inverter
+  double demand_kwh = 0;               // sum of load
+  double source_to_load_kwh = 0;       // load met directly by the source
+  double charge_source_kwh = 0;        // source energy drawn for charging (before the charger)
+  double charge_cost = 0;              // sum of charge_source_kwh x hourly price
+  double charged_terminal_kwh = 0;     // into the bank terminals
+  double discharged_terminal_kwh = 0;  // out of the bank terminals
+  double delivered_kwh = 0;            // to the load, after the inverter
   double backup_kwh = 0;
   double unserved_kwh = 0;
   double curtailed_kwh = 0;
-  double equivalent_full_cycles = 0;    // sum of SOC decrease by discharge (fractions)
+  double equivalent_full_cycles = 0;      // sum of SOC decrease by discharge (fractions)
   double partial_charge_excess_days = 0;  // days beyond the grace period without full charge
 };
 
 // Per-hour quantities that depend only on the profile and the site, computed once per pair so
 // that many designs and years reuse them.
 struct HourlyFactors {
-  std::vector<double> capacity_factor;      // f_T(T_h), 8760 values
-  std::vector<unsigned char> can_charge;    // 1 where the hour is within the charging limits
-  std::vector<unsigned char> can_discharge; // 1 where the hour is within the operating limits
+  std::vector<double> capacity_factor;       // f_T(T_h), 8760 values
+  std::vector<unsigned char> can_charge;     // 1 where the hour is within the charging limits
+  std::vector<unsigned char> can_discharge;  // 1 where the hour is within the operating limits
 };
 HourlyFactors hourly_factors(const ChemistryProfile& profile, const SiteConditions& site);
 
@@ -60,7 +60,7 @@ struct DispatchInputs {
   const SiteConditions* site = nullptr;
   BankGeometry bank;
   double dod_setpoint = 0.5;
-  double health = 1.0;  // capacity remaining, fraction of rated, (0, 1]
+  double health = 1.0;                     // capacity remaining, fraction of rated, (0, 1]
   const HourlyFactors* factors = nullptr;  // optional; computed here when null
 };
 

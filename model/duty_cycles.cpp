@@ -53,8 +53,7 @@ DutyDamage duty_damage(const ChemistryProfile& profile, const DutyCycleSummary& 
   } else {
     const double per_hour = total / d.series_hours;
     d.remaining_life_years = (1.0 - total) / per_hour / kHoursPerYear;
-    d.remaining_equivalent_full_cycles =
-        summary.equivalent_full_cycles * (1.0 - total) / total;
+    d.remaining_equivalent_full_cycles = summary.equivalent_full_cycles * (1.0 - total) / total;
   }
   return d;
 }

@@ -31,8 +31,8 @@ struct DutyCycleSummary {
 DutyCycleSummary summarise_cycles(const std::vector<double>& soc_fraction, int bins = 10);
 
 struct DutyDamage {
-  double cycle = 0;       // Miner damage of the counted cycles
-  double calendar = 0;    // calendar damage over the series' duration
+  double cycle = 0;     // Miner damage of the counted cycles
+  double calendar = 0;  // calendar damage over the series' duration
   double total() const { return cycle + calendar; }
   double series_hours = 0;
   // At the same duty: remaining life after the series (0 when already worn out), and the

@@ -11,8 +11,8 @@
 namespace stowage {
 
 struct Economics {
-  int project_years = 20;           // 1..100
-  double real_discount_rate = 0.06; // [0, 1)
+  int project_years = 20;            // 1..100
+  double real_discount_rate = 0.06;  // [0, 1)
   std::string currency = "EUR";
 
   void validate() const;  // throws InvalidValue

@@ -57,8 +57,8 @@ DesignResult LifecycleEvaluator::evaluate(double dod_setpoint, int strings_paral
   in.factors = &factors_;
 
   DispatchState state;
-  double damage = 0;          // of the bank in service
-  int age_years = 0;          // of the bank in service
+  double damage = 0;                 // of the bank in service
+  int age_years = 0;                 // of the bank in service
   double bank_price = r.investment;  // what the bank in service cost when installed
   CostBreakdown& pv = r.present_value;
   pv.investment = r.investment;
@@ -82,17 +82,17 @@ DesignResult LifecycleEvaluator::evaluate(double dod_setpoint, int strings_paral
     rec.fixed_om = c.fixed_om_per_kwh_year * nameplate;
     rec.variable_om = c.variable_om_per_mwh * rec.dispatch.discharged_terminal_kwh / 1000.0;
     rec.charging = rec.dispatch.charge_cost;
-    rec.backup = site.backup_price_per_kwh ? rec.dispatch.backup_kwh * *site.backup_price_per_kwh
-                                           : 0.0;
+    rec.backup =
+        site.backup_price_per_kwh ? rec.dispatch.backup_kwh * *site.backup_price_per_kwh : 0.0;
     rec.unserved_penalty = rec.dispatch.unserved_kwh * site.unserved_penalty_per_kwh;
 
     const bool worn_out = damage >= 1.0 - kEndOfLifeTolerance;
-    const bool too_old = p.max_service_years &&
-                         static_cast<double>(age_years) >= *p.max_service_years - kEndOfLifeTolerance;
+    const bool too_old = p.max_service_years && static_cast<double>(age_years) >=
+                                                    *p.max_service_years - kEndOfLifeTolerance;
     if ((worn_out || too_old) && year < econ.project_years) {
       rec.replaced_at_end = true;
-      rec.replacement = r.investment * c.replacement_share *
-                        std::pow(1.0 - c.price_decline_per_year, year);
+      rec.replacement =
+          r.investment * c.replacement_share * std::pow(1.0 - c.price_decline_per_year, year);
       rec.end_of_life = end_of_life_cost;
       r.replacement_years.push_back(year);
       bank_price = rec.replacement;
@@ -134,8 +134,8 @@ DesignResult LifecycleEvaluator::evaluate(double dod_setpoint, int strings_paral
   r.lcos_per_kwh = r.discounted_discharged_kwh > 0
                        ? pv.storage_total() / r.discounted_discharged_kwh
                        : std::numeric_limits<double>::infinity();
-  r.meets_unserved_limit =
-      !site.unserved_limit_fraction || r.unserved_fraction_max <= *site.unserved_limit_fraction + 1e-12;
+  r.meets_unserved_limit = !site.unserved_limit_fraction ||
+                           r.unserved_fraction_max <= *site.unserved_limit_fraction + 1e-12;
   return r;
 }
 

@@ -55,9 +55,9 @@ struct CostBreakdown {
 // plus the year-0 investment and the year N+1 end-of-life flow in the result.
 struct YearRecord {
   int year = 0;
-  double health_start = 1;       // capacity fraction during the year
+  double health_start = 1;  // capacity fraction during the year
   double damage_cycle = 0, damage_calendar = 0, damage_partial_charge = 0;
-  double damage_end = 0;         // accumulated damage of the bank in service at year end
+  double damage_end = 0;  // accumulated damage of the bank in service at year end
   bool replaced_at_end = false;
   YearDispatch dispatch;
   double fixed_om = 0, variable_om = 0, charging = 0, backup = 0, unserved_penalty = 0;
@@ -66,7 +66,7 @@ struct YearRecord {
     return fixed_om + variable_om + charging + backup + unserved_penalty + replacement +
            end_of_life + residual_value;
   }
-  double discount_factor = 1;    // P/F at the end of this year
+  double discount_factor = 1;  // P/F at the end of this year
 };
 
 struct DesignResult {
@@ -76,18 +76,20 @@ struct DesignResult {
   std::string currency;
   std::vector<int> replacement_years;
   std::vector<YearRecord> years;
-  double investment = 0;              // year 0
-  double final_end_of_life = 0;       // year N + 1, undiscounted
-  double final_discount_factor = 1;   // P/F at N + 1
+  double investment = 0;             // year 0
+  double final_end_of_life = 0;      // year N + 1, undiscounted
+  double final_discount_factor = 1;  // P/F at N + 1
   CostBreakdown present_value;
   double npc = 0;
   double lcos_per_kwh = 0;
   double discounted_discharged_kwh = 0;
-  double unserved_fraction_max = 0;   // worst year unserved / demand
+  double unserved_fraction_max = 0;  // worst year unserved / demand
   bool meets_unserved_limit = true;
 
   // First-year figures quoted in reports.
-  double discharged_kwh_first_year() const { return years.front().dispatch.discharged_terminal_kwh; }
+  double discharged_kwh_first_year() const {
+    return years.front().dispatch.discharged_terminal_kwh;
+  }
   double unserved_kwh_first_year() const { return years.front().dispatch.unserved_kwh; }
   double backup_kwh_first_year() const { return years.front().dispatch.backup_kwh; }
   double equivalent_full_cycles_first_year() const {

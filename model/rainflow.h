@@ -14,9 +14,9 @@
 namespace stowage {
 
 struct RainflowCycle {
-  double depth = 0;  // range |a - b|, in the series' units
-  double mean = 0;   // (a + b) / 2
-  double count = 0;  // 1.0 full cycle, 0.5 half cycle
+  double depth = 0;             // range |a - b|, in the series' units
+  double mean = 0;              // (a + b) / 2
+  double count = 0;             // 1.0 full cycle, 0.5 half cycle
   std::size_t first_index = 0;  // index of the earlier bounding reversal in the input
   std::size_t last_index = 0;   // index of the later bounding reversal
 };

@@ -38,8 +38,7 @@ void SiteConditions::validate() const {
     throw InvalidValue("inverter_efficiency", "must be in (0, 1]");
   if (backup_price_per_kwh && !(*backup_price_per_kwh >= 0))
     throw InvalidValue("backup.price_per_kwh", "must be >= 0");
-  if (unserved_limit_fraction &&
-      !(*unserved_limit_fraction >= 0 && *unserved_limit_fraction <= 1))
+  if (unserved_limit_fraction && !(*unserved_limit_fraction >= 0 && *unserved_limit_fraction <= 1))
     throw InvalidValue("unserved.limit_fraction", "must be in [0, 1]");
   if (!(unserved_penalty_per_kwh >= 0))
     throw InvalidValue("unserved.penalty_per_kwh", "must be >= 0");

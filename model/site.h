@@ -23,14 +23,14 @@ constexpr double kHoursPerMonth = 730.0;
 struct SiteConditions {
   std::string name;
   double bus_voltage_v = 48;
-  std::vector<double> load_kw;               // 8760 values >= 0
-  std::vector<double> source_kw;             // 8760 values >= 0
-  std::vector<double> temp_c;                // battery-space temperature, 8760 values
-  std::vector<double> charge_price_per_kwh;  // 8760 values >= 0
-  double autonomy_days = 0;                  // days the bank alone carries the load, >= 0
-  double design_margin = 1.0;                // sizing margin on the autonomy energy, >= 1
-  double charger_efficiency = 1;             // (0, 1]
-  double inverter_efficiency = 1;            // (0, 1]
+  std::vector<double> load_kw;                    // 8760 values >= 0
+  std::vector<double> source_kw;                  // 8760 values >= 0
+  std::vector<double> temp_c;                     // battery-space temperature, 8760 values
+  std::vector<double> charge_price_per_kwh;       // 8760 values >= 0
+  double autonomy_days = 0;                       // days the bank alone carries the load, >= 0
+  double design_margin = 1.0;                     // sizing margin on the autonomy energy, >= 1
+  double charger_efficiency = 1;                  // (0, 1]
+  double inverter_efficiency = 1;                 // (0, 1]
   std::optional<double> backup_price_per_kwh;     // back-up energy price; unset: no back-up
   std::optional<double> unserved_limit_fraction;  // max unserved / demand over a year
   double unserved_penalty_per_kwh = 0;            // value of lost load, >= 0

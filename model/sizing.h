@@ -18,11 +18,11 @@ namespace stowage {
 struct AutonomySizing {
   double design_daily_load_kwh = 0;
   double coldest_month_temp_c = 0;
-  double temperature_factor = 1;      // f_T at the coldest month, <= 1
-  double required_usable_kwh = 0;     // at the bank terminals
+  double temperature_factor = 1;   // f_T at the coldest month, <= 1
+  double required_usable_kwh = 0;  // at the bank terminals
   double required_nameplate_kwh = 0;
   int cells_series = 0;
-  int strings_parallel = 0;           // at least 1
+  int strings_parallel = 0;  // at least 1
 };
 
 AutonomySizing size_for_autonomy(const ChemistryProfile& profile, const SiteConditions& site,

@@ -15,17 +15,17 @@ namespace stowage {
 
 struct DesignSpec {
   std::string profile_id;
-  std::optional<double> dod_setpoint;     // unset: the profile's default
-  std::optional<int> strings_parallel;    // unset: sized for autonomy
+  std::optional<double> dod_setpoint;   // unset: the profile's default
+  std::optional<int> strings_parallel;  // unset: sized for autonomy
 };
 
 // The optimiser's search space and optional limits.
 struct SearchSpace {
   double dod_from = 0.20, dod_to = 1.00, dod_step = 0.05;  // ladder, narrowed per profile
   int max_strings_parallel = 40;
-  std::optional<double> budget;           // upper bound on year-0 investment
-  std::optional<double> max_mass_kg;      // needs cell_mass_kg in the profiles
-  std::optional<double> max_volume_l;     // needs cell_volume_l in the profiles
+  std::optional<double> budget;        // upper bound on year-0 investment
+  std::optional<double> max_mass_kg;   // needs cell_mass_kg in the profiles
+  std::optional<double> max_volume_l;  // needs cell_volume_l in the profiles
 };
 
 struct Study {
@@ -33,7 +33,7 @@ struct Study {
   SiteConditions site;
   std::vector<ChemistryProfile> profiles;
   Economics economics;
-  std::vector<DesignSpec> designs;        // empty: each profile at its default, autonomy-sized
+  std::vector<DesignSpec> designs;  // empty: each profile at its default, autonomy-sized
   SearchSpace search;
 
   const ChemistryProfile* find_profile(const std::string& id) const;

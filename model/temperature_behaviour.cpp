@@ -66,8 +66,7 @@ bool TemperatureBehaviour::can_discharge(double temp_c) const {
 }
 
 bool TemperatureBehaviour::can_charge(double temp_c) const {
-  return temp_c >= spec_.charge_min_c && temp_c <= spec_.charge_max_c &&
-         can_discharge(temp_c);
+  return temp_c >= spec_.charge_min_c && temp_c <= spec_.charge_max_c && can_discharge(temp_c);
 }
 
 }  // namespace stowage

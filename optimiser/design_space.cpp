@@ -14,12 +14,18 @@ namespace stowage {
 
 const char* to_string(StringCap cap) {
   switch (cap) {
-    case StringCap::MaxStrings: return "max_strings_parallel";
-    case StringCap::Budget: return "budget";
-    case StringCap::Mass: return "max_mass_kg";
-    case StringCap::Volume: return "max_volume_l";
-    case StringCap::MissingMass: return "max_mass_kg (profile gives no cell_mass_kg)";
-    case StringCap::MissingVolume: return "max_volume_l (profile gives no cell_volume_l)";
+    case StringCap::MaxStrings:
+      return "max_strings_parallel";
+    case StringCap::Budget:
+      return "budget";
+    case StringCap::Mass:
+      return "max_mass_kg";
+    case StringCap::Volume:
+      return "max_volume_l";
+    case StringCap::MissingMass:
+      return "max_mass_kg (profile gives no cell_mass_kg)";
+    case StringCap::MissingVolume:
+      return "max_volume_l (profile gives no cell_volume_l)";
   }
   return "?";
 }
@@ -120,8 +126,8 @@ DesignSpace build_design_space(const Study& study) {
       }
     };
     if (s.budget) {
-      const double per_string = bank_investment(profile, site.bus_voltage_v, 1) -
-                                profile.costs.installation_fixed;
+      const double per_string =
+          bank_investment(profile, site.bus_voltage_v, 1) - profile.costs.installation_fixed;
       apply(cap_by(*s.budget - profile.costs.installation_fixed, per_string), StringCap::Budget);
       if (*s.budget < profile.costs.installation_fixed) apply(0, StringCap::Budget);
     }
@@ -149,8 +155,8 @@ DesignSpace build_design_space(const Study& study) {
     const int c_rate_n =
         space.peak_discharge_terminal_kw <= 0
             ? 1
-            : std::max(1, static_cast<int>(std::ceil(space.peak_discharge_terminal_kw / power *
-                                                     (1 - 1e-12))));
+            : std::max(1, static_cast<int>(
+                              std::ceil(space.peak_discharge_terminal_kw / power * (1 - 1e-12))));
     for (double dod : dod_ladder(s, profile)) {
       DesignChoice c;
       c.profile_index = p;
@@ -210,8 +216,7 @@ std::vector<UnmetRequirement> DesignSpace::diagnose(const Study& study) const {
     // Report the cap that rules out the most profiles, with the smallest bank it would need.
     double cheapest = std::numeric_limits<double>::infinity();
     double lightest = cheapest, smallest = cheapest;
-    bool missing_mass = false, missing_volume = false, budget = false, mass = false,
-         volume = false;
+    bool missing_mass = false, missing_volume = false, budget = false, mass = false, volume = false;
     for (const DesignChoice& c : choices) {
       const ChemistryProfile& p = study.profiles[c.profile_index];
       const int cells = cells_in_series(p, site.bus_voltage_v);
@@ -254,8 +259,7 @@ std::vector<UnmetRequirement> DesignSpace::diagnose(const Study& study) const {
     return unmet;
   }
   // Some bank is allowed, but too small: compare what is needed with the most allowed.
-  double need_energy = 0, best_energy = 0, need_power = peak_discharge_terminal_kw,
-         best_power = 0;
+  double need_energy = 0, best_energy = 0, need_power = peak_discharge_terminal_kw, best_power = 0;
   std::string best_energy_at, best_power_at, cap_note;
   bool energy_met = false, power_met = false;
   for (const DesignChoice& c : choices) {
@@ -266,8 +270,8 @@ std::vector<UnmetRequirement> DesignSpace::diagnose(const Study& study) const {
     if (usable > best_energy) {
       best_energy = usable;
       best_energy_at = p.id + " at DoD " + fmt(c.dod_setpoint, 3) + " with " +
-                       std::to_string(c.max_strings) + " strings (capped by " +
-                       to_string(c.cap) + ")";
+                       std::to_string(c.max_strings) + " strings (capped by " + to_string(c.cap) +
+                       ")";
     }
     const double power = string_discharge_power_kw(p, site.bus_voltage_v) * c.max_strings;
     if (power > best_power) {
@@ -288,8 +292,7 @@ std::vector<UnmetRequirement> DesignSpace::diagnose(const Study& study) const {
   }
   if (!energy_met) {
     unmet.push_back({"autonomy",
-                     "autonomy of " + fmt(site.autonomy_days) + " days needs " +
-                         fmt(need_energy) +
+                     "autonomy of " + fmt(site.autonomy_days) + " days needs " + fmt(need_energy) +
                          " kWh usable at the terminals (coldest month, end of life, within the "
                          "DoD setpoint); the most any allowed bank gives is " +
                          fmt(best_energy) + " kWh (" + best_energy_at + "), short by " +

@@ -42,10 +42,10 @@ const char* to_string(StringCap cap);
 struct DesignChoice {
   std::size_t profile_index = 0;  // into Study::profiles
   double dod_setpoint = 0;
-  int autonomy_strings = 1;       // least n meeting the autonomy rule
-  int c_rate_strings = 1;         // least n meeting the peak discharge
-  int min_strings = 1;            // max(autonomy_strings, c_rate_strings, 1)
-  int max_strings = 0;            // least of the caps; may be < 1
+  int autonomy_strings = 1;  // least n meeting the autonomy rule
+  int c_rate_strings = 1;    // least n meeting the peak discharge
+  int min_strings = 1;       // max(autonomy_strings, c_rate_strings, 1)
+  int max_strings = 0;       // least of the caps; may be < 1
   StringCap cap = StringCap::MaxStrings;
   double required_usable_kwh = 0;  // autonomy requirement at the terminals
 
@@ -62,9 +62,9 @@ struct UnmetRequirement {
 };
 
 struct DesignSpace {
-  std::vector<DesignChoice> choices;       // every (profile, ladder setpoint) pair
-  double peak_discharge_terminal_kw = 0;   // max (load - source)^+ / inverter_efficiency
-  std::vector<std::string> notes;          // e.g. profiles excluded by a missing cell mass
+  std::vector<DesignChoice> choices;      // every (profile, ladder setpoint) pair
+  double peak_discharge_terminal_kw = 0;  // max (load - source)^+ / inverter_efficiency
+  std::vector<std::string> notes;         // e.g. profiles excluded by a missing cell mass
 
   std::size_t admissible_designs() const;  // sum of strings_count()
   std::size_t admissible_choices() const;

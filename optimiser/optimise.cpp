@@ -31,8 +31,10 @@ void OptimiseOptions::validate() const {
   if (days_per_block < 1 || days_per_block > 28) {
     throw InvalidValue("days_per_block", "must be between 1 and 28");
   }
-  if (!(base_margin >= 0 && base_margin < 1)) throw InvalidValue("base_margin", "must be in [0, 1)");
-  if (!(lone_margin >= 0 && lone_margin < 1)) throw InvalidValue("lone_margin", "must be in [0, 1)");
+  if (!(base_margin >= 0 && base_margin < 1))
+    throw InvalidValue("base_margin", "must be in [0, 1)");
+  if (!(lone_margin >= 0 && lone_margin < 1))
+    throw InvalidValue("lone_margin", "must be in [0, 1)");
   if (patience < 1) throw InvalidValue("patience", "must be >= 1");
 }
 
@@ -440,8 +442,8 @@ class Search {
     u.best_available = least_unserved_;
     std::ostringstream s;
     s << "no admissible design keeps unserved energy within " << u.needed * 100
-      << " % of demand in every year; the least reached is " << least_unserved_ * 100
-      << " % (" << least_unserved_at_ << ")";
+      << " % of demand in every year; the least reached is " << least_unserved_ * 100 << " % ("
+      << least_unserved_at_ << ")";
     u.detail = s.str();
     return u;
   }

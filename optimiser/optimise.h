@@ -50,11 +50,11 @@ const char* to_string(SearchMethod method);
 std::optional<SearchMethod> search_method_from_string(std::string_view text);
 
 struct OptimiseProgress {
-  const char* phase = "";       // "model", "verify", "exhaustive"
-  std::size_t done = 0;         // units of the phase done (designs or sub-models)
-  std::size_t total = 0;        // units in the phase (an upper bound for "verify")
-  double seconds = 0;           // since the start
-  double best_npc = 0;          // best exact value so far; NaN when none yet
+  const char* phase = "";  // "model", "verify", "exhaustive"
+  std::size_t done = 0;    // units of the phase done (designs or sub-models)
+  std::size_t total = 0;   // units in the phase (an upper bound for "verify")
+  double seconds = 0;      // since the start
+  double best_npc = 0;     // best exact value so far; NaN when none yet
 };
 
 struct OptimiseOptions {
@@ -65,7 +65,7 @@ struct OptimiseOptions {
   double lone_margin = 0.15;           // margin while a profile has < 3 observed ratios, [0, 1)
   int patience = 2;                    // local-search steps past the last improvement, >= 1
   std::function<void(const OptimiseProgress&)> progress;  // called now and then; may be empty
-  void validate() const;               // throws InvalidValue naming the field
+  void validate() const;                                  // throws InvalidValue naming the field
 };
 
 struct OptimiseResult {
@@ -73,11 +73,11 @@ struct OptimiseResult {
   // Best design found for each profile that has an admissible one meeting the unserved limit,
   // sorted by npc (ties: profile order). ranking.front() is the answer.
   std::vector<DesignResult> ranking;
-  double model_estimate_npc = 0;       // model estimate of the answer's design (NaN if none)
-  double model_estimate_per_kwh = 0;   // its LCOS estimate (NaN if none or nothing discharged)
-  double gap = 0;                      // (exact npc - estimate) / |exact npc| (NaN if none)
+  double model_estimate_npc = 0;      // model estimate of the answer's design (NaN if none)
+  double model_estimate_per_kwh = 0;  // its LCOS estimate (NaN if none or nothing discharged)
+  double gap = 0;                     // (exact npc - estimate) / |exact npc| (NaN if none)
   double solve_seconds = 0;
-  double model_seconds = 0;            // of solve_seconds, spent building and solving sub-models
+  double model_seconds = 0;  // of solve_seconds, spent building and solving sub-models
   std::size_t designs_evaluated_exactly = 0;
   std::size_t admissible_designs = 0;  // size of the design space within the constraints
   std::size_t submodels_solved = 0;

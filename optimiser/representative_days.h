@@ -19,10 +19,10 @@
 namespace stowage {
 
 struct RepresentativeBlock {
-  int first_hour = 0;   // hour of the year, a multiple of 24
-  int hours = 0;        // 24 x days_per_block
-  double weight = 0;    // number of such blocks the year holds
-  int month = 0;        // 0..11
+  int first_hour = 0;  // hour of the year, a multiple of 24
+  int hours = 0;       // 24 x days_per_block
+  double weight = 0;   // number of such blocks the year holds
+  int month = 0;       // 0..11
 };
 
 struct RepresentativeDays {

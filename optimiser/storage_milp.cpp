@@ -25,11 +25,16 @@ void MilpOptions::validate() const {
 
 const char* to_string(SolveOutcome outcome) {
   switch (outcome) {
-    case SolveOutcome::Optimal: return "optimal";
-    case SolveOutcome::TimeLimit: return "time limit (feasible, not proven)";
-    case SolveOutcome::Infeasible: return "infeasible";
-    case SolveOutcome::NoSolution: return "time limit (no solution)";
-    case SolveOutcome::Error: return "error";
+    case SolveOutcome::Optimal:
+      return "optimal";
+    case SolveOutcome::TimeLimit:
+      return "time limit (feasible, not proven)";
+    case SolveOutcome::Infeasible:
+      return "infeasible";
+    case SolveOutcome::NoSolution:
+      return "time limit (no solution)";
+    case SolveOutcome::Error:
+      return "error";
   }
   return "?";
 }
@@ -55,8 +60,8 @@ double renewal_cost_factor_slope(double rate_per_year, double discount_rate, int
 namespace {
 
 // Bank lives (years) at which g(r) is touched by a tangent: dense where designs usually live.
-constexpr double kTangentLives[] = {0.25, 0.5, 0.75, 1,  1.5, 2,  2.5, 3,  4,  5,  6,   7,
-                                    8,    9,   10,   12, 14,  16, 18,  20, 25, 30, 40, 60, 100};
+constexpr double kTangentLives[] = {0.25, 0.5, 0.75, 1,  1.5, 2,  2.5, 3,  4,  5,  6,  7,  8,
+                                    9,    10,  12,   14, 16,  18, 20,  25, 30, 40, 60, 100};
 
 std::string name(const char* stem, std::size_t c, int t = -1) {
   std::string s = std::string(stem) + "_" + std::to_string(c);
@@ -73,9 +78,9 @@ struct StorageMilp::Impl {
   int hours = 0;
   double constant = 0;
   std::vector<double> hour_weight, hour_deficit;
-  double unmet_price = 0;     // back-up price, or the penalty when there is no back-up
+  double unmet_price = 0;  // back-up price, or the penalty when there is no back-up
   double inverter_eff = 1;
-  double pa = 1;              // P/A(i, N)
+  double pa = 1;  // P/A(i, N)
   // What set_setpoint() needs to rewrite the rows that depend on the setpoint.
   struct ChoiceRows {
     int n_min = 0, n_max = 0;
@@ -83,8 +88,8 @@ struct StorageMilp::Impl {
     std::vector<double> e_soc;            // per hour, kWh per unit SOC of one string
     std::vector<int> wear_rows;
     std::vector<double> wear_slope, wear_n, wear_y;  // per wear row: beta_k, n and y coefficients
-    std::vector<int> dis_cols;            // hours where discharge is possible
-    std::vector<double> dis_wear;         // w a_t / e_soc at those hours
+    std::vector<int> dis_cols;                       // hours where discharge is possible
+    std::vector<double> dis_wear;                    // w a_t / e_soc at those hours
     double rho1 = 0;
   };
   std::vector<ChoiceRows> rows;
@@ -188,13 +193,13 @@ StorageMilp::StorageMilp(const Study& study, std::vector<MilpChoice> choices,
   }
 
   const int pick = add_row("choose_one", GLP_FX, 1, 1);
-  const bool unserved_row = unserved_limit && !has_backup && site.unserved_limit_fraction.has_value() &&
+  const bool unserved_row = unserved_limit && !has_backup &&
+                            site.unserved_limit_fraction.has_value() &&
                             weighted_deficit - *site.unserved_limit_fraction * weighted_load > 0;
   const int unserved =
-      unserved_row
-          ? add_row("unserved_limit", GLP_LO,
-                    weighted_deficit - *site.unserved_limit_fraction * weighted_load, 0)
-          : 0;
+      unserved_row ? add_row("unserved_limit", GLP_LO,
+                             weighted_deficit - *site.unserved_limit_fraction * weighted_load, 0)
+                   : 0;
   const double pf_end = present_worth_factor(i, n_years + 1);
 
   m.rows.resize(C);
@@ -207,7 +212,8 @@ StorageMilp::StorageMilp(const Study& study, std::vector<MilpChoice> choices,
     const int cells = cells_in_series(p, site.bus_voltage_v);
     const double e_string = string_nameplate_kwh(p, site.bus_voltage_v);
     const double price_string = costs.capital_per_kwh * e_string + costs.capital_per_string;
-    const double rho1 = costs.replacement_share * price_string + costs.end_of_life_per_kwh * e_string;
+    const double rho1 =
+        costs.replacement_share * price_string + costs.end_of_life_per_kwh * e_string;
     const double rho0 = costs.replacement_share * costs.installation_fixed;
     const double i_repl = (1 + i) / (1 - costs.price_decline_per_year) - 1;
     const double cal = ch.acceleration->calendar_damage_per_year;
@@ -263,9 +269,9 @@ StorageMilp::StorageMilp(const Study& study, std::vector<MilpChoice> choices,
       const double temp = site.temp_c[h];
       const double q_ah = p.cell_capacity_ah * mid_health * p.temperature.capacity_factor(temp);
       const double e_soc = q_ah * cells * p.mean_discharge_v / 1000.0;  // kWh per unit SOC
-      const double charge_cap =
-          p.temperature.can_charge(temp) ? p.max_charge_c_rate * q_ah * cells * p.mean_charge_v / 1000.0
-                                         : 0.0;
+      const double charge_cap = p.temperature.can_charge(temp)
+                                    ? p.max_charge_c_rate * q_ah * cells * p.mean_charge_v / 1000.0
+                                    : 0.0;
       const double discharge_cap =
           p.temperature.can_discharge(temp) ? p.max_discharge_c_rate * e_soc : 0.0;
       const int col_ch = first + 3 * t, col_dis = col_ch + 1, col_soc = col_ch + 2;
@@ -277,10 +283,10 @@ StorageMilp::StorageMilp(const Study& study, std::vector<MilpChoice> choices,
       glp_set_col_bnds(lp, col_dis, dis_ub > 0 ? GLP_DB : GLP_FX, 0, dis_ub);
 
       glp_set_obj_coef(lp, col_ch, m.pa * w * price[t] / site.charger_efficiency);
-      glp_set_obj_coef(lp, col_dis,
-                       m.pa * w *
-                           (costs.variable_om_per_mwh / 1000.0 -
-                            m.unmet_price * site.inverter_efficiency));
+      glp_set_obj_coef(
+          lp, col_dis,
+          m.pa * w *
+              (costs.variable_om_per_mwh / 1000.0 - m.unmet_price * site.inverter_efficiency));
 
       // soc[next] - keep soc[t] - eta ch[t] + dis[t] = 0
       const int bal = add_row(name("balance", c, t), GLP_FX, 0, 0);
@@ -336,8 +342,7 @@ namespace {
 
 // Fills the estimate fields of `report` from a solution read through `value(column)`.
 template <typename Value>
-void read_solution(const StorageMilp::Impl& m, SolveReport& report, double objective,
-                   Value value) {
+void read_solution(const StorageMilp::Impl& m, SolveReport& report, double objective, Value value) {
   report.glpk_objective = objective;
   report.estimate_npc = objective + m.constant;
   double best_y = -1;
@@ -518,8 +523,8 @@ SolveReport StorageMilp::solve(const MilpOptions& options) {
   } else if (rc != 0 && rc != GLP_EMIPGAP) {
     return finish(SolveOutcome::Error, "glp_intopt failed with code " + std::to_string(rc));
   } else if (status != GLP_OPT && status != GLP_FEAS) {
-    return finish(SolveOutcome::Error, "GLPK returned no solution (status " +
-                                           std::to_string(status) + ")");
+    return finish(SolveOutcome::Error,
+                  "GLPK returned no solution (status " + std::to_string(status) + ")");
   }
   read_solution(m, report, glp_mip_obj_val(m.lp), [&](int j) { return glp_mip_col_val(m.lp, j); });
   return finish(outcome, message);

@@ -53,17 +53,17 @@ struct MilpChoice {
 };
 
 struct MilpOptions {
-  double relative_gap = 1e-7;   // GLPK mip_gap, [0, 1)
-  double time_limit_s = 600;    // > 0
-  void validate() const;        // throws InvalidValue naming the field
+  double relative_gap = 1e-7;  // GLPK mip_gap, [0, 1)
+  double time_limit_s = 600;   // > 0
+  void validate() const;       // throws InvalidValue naming the field
 };
 
 enum class SolveOutcome {
-  Optimal,      // solved to the gap tolerance
-  TimeLimit,    // stopped by the time limit with a feasible solution (not proven)
-  Infeasible,   // the model has no solution
-  NoSolution,   // stopped by the time limit before any feasible solution
-  Error,        // GLPK failed; `message` says how
+  Optimal,     // solved to the gap tolerance
+  TimeLimit,   // stopped by the time limit with a feasible solution (not proven)
+  Infeasible,  // the model has no solution
+  NoSolution,  // stopped by the time limit before any feasible solution
+  Error,       // GLPK failed; `message` says how
 };
 const char* to_string(SolveOutcome outcome);
 
@@ -71,12 +71,12 @@ const char* to_string(SolveOutcome outcome);
 struct SolveReport {
   SolveOutcome outcome = SolveOutcome::Error;
   std::string message;
-  double glpk_objective = 0;          // GLPK's objective (no constant): what CBC/HiGHS reproduce
-  double estimate_npc = 0;            // glpk_objective + constant: model estimate of the NPC
-  double estimate_storage_pv = 0;     // estimate_npc less back-up and penalty
+  double glpk_objective = 0;       // GLPK's objective (no constant): what CBC/HiGHS reproduce
+  double estimate_npc = 0;         // glpk_objective + constant: model estimate of the NPC
+  double estimate_storage_pv = 0;  // estimate_npc less back-up and penalty
   double estimate_discharged_kwh_per_year = 0;
-  double estimate_lcos_per_kwh = 0;   // storage PV / (P/A(N) x discharged per year); 0 if none
-  std::size_t choice = 0;             // index into the choices
+  double estimate_lcos_per_kwh = 0;  // storage PV / (P/A(N) x discharged per year); 0 if none
+  std::size_t choice = 0;            // index into the choices
   int strings = 0;
   double seconds = 0;
 
@@ -91,8 +91,8 @@ class StorageMilp {
   // Throws InvalidValue when `choices` is empty or a choice has min > max or min < 1.
   // `unserved_limit` false leaves out the unserved-limit row (to price a given bank that
   // misses the limit on the representative days).
-  StorageMilp(const Study& study, std::vector<MilpChoice> choices,
-              const RepresentativeDays& days, bool unserved_limit = true);
+  StorageMilp(const Study& study, std::vector<MilpChoice> choices, const RepresentativeDays& days,
+              bool unserved_limit = true);
   ~StorageMilp();
   StorageMilp(const StorageMilp&) = delete;
   StorageMilp& operator=(const StorageMilp&) = delete;

@@ -48,8 +48,10 @@ ChemistryProfile make_profile(std::mt19937_64& rng, int index, bool full_range) 
   if (rng() % 3 == 0) p.max_service_years = std::round(uniform(rng, 8, 15));
   TemperatureSpec t;
   t.reference_temp_c = 25;
-  t.capacity_factor = {{-20, uniform(rng, 0.5, 0.8)}, {0, uniform(rng, 0.82, 0.92)},
-                       {25, 1.0}, {40, uniform(rng, 1.0, 1.05)}};
+  t.capacity_factor = {{-20, uniform(rng, 0.5, 0.8)},
+                       {0, uniform(rng, 0.82, 0.92)},
+                       {25, 1.0},
+                       {40, uniform(rng, 1.0, 1.05)}};
   t.law = AgeingLaw::Halving;
   t.halving_interval_k = uniform(rng, 8, 12);
   t.operating_min_c = -30;
@@ -86,7 +88,8 @@ Study make_synthetic_study(const SyntheticStudySpec& spec) {
   site.bus_voltage_v = 48;
   const double base = spec.daily_load_kwh / 24.0 / 1.15;
   const double winter_share = uniform(rng, 0.1, 0.4);
-  const double pv_peak = spec.daily_load_kwh * uniform(rng, spec.backup ? 0.25 : 0.5, spec.backup ? 0.45 : 0.8);
+  const double pv_peak =
+      spec.daily_load_kwh * uniform(rng, spec.backup ? 0.25 : 0.5, spec.backup ? 0.45 : 0.8);
   const double temp_mean = uniform(rng, 5, 22);
   const double temp_amplitude = uniform(rng, 5, 15);
   for (int day = 0; day < 365; ++day) {
@@ -98,8 +101,7 @@ Study make_synthetic_study(const SyntheticStudySpec& spec) {
       const double sun =
           hour >= 6 && hour < 18 ? std::max(0.0, std::sin(kPi * (hour - 6) / 12.0)) : 0.0;
       site.source_kw.push_back(pv_peak * sun *
-                               (0.75 + 0.25 * std::cos(2 * kPi * (day - 172) / 365.0)) *
-                               clearness);
+                               (0.75 + 0.25 * std::cos(2 * kPi * (day - 172) / 365.0)) * clearness);
       site.temp_c.push_back(temp_mean + temp_amplitude * std::sin(2 * kPi * (day - 105) / 365.0) +
                             3 * std::sin(2 * kPi * (hour - 9) / 24.0));
       site.charge_price_per_kwh.push_back(0.0);

@@ -26,9 +26,9 @@ struct SyntheticStudySpec {
   int project_years = 10;
   int max_strings = 16;
   double dod_from = 0.20, dod_to = 1.00, dod_step = 0.10;
-  bool backup = true;             // back-up at a random price; otherwise an unserved limit
-  bool full_dod_range = false;    // every profile allows DoD 0.20..1.00 (the whole ladder)
-  double daily_load_kwh = 12;     // mean
+  bool backup = true;           // back-up at a random price; otherwise an unserved limit
+  bool full_dod_range = false;  // every profile allows DoD 0.20..1.00 (the whole ladder)
+  double daily_load_kwh = 12;   // mean
   double autonomy_days = 1.5;
 };
 

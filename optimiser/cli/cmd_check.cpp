@@ -13,8 +13,9 @@ namespace stowage::cli {
 
 void register_check(CLI::App& app, int& exit_code) {
   auto* cmd = app.add_subcommand(
-      "check", "Validate a study, its site, hourly series and profiles; report every problem's "
-               "file, line and field");
+      "check",
+      "Validate a study, its site, hourly series and profiles; report every problem's "
+      "file, line and field");
   auto path = std::make_shared<std::string>();
   cmd->add_option("study", *path, "Study file (YAML)")->required();
   cmd->callback([path, &exit_code]() {
@@ -23,7 +24,8 @@ void register_check(CLI::App& app, int& exit_code) {
       const SiteConditions& site = study.site;
       fmt::print(std::cout, "{}: valid\n", *path);
       fmt::print(std::cout, "  study     {}\n", study.title);
-      fmt::print(std::cout, "  site      {}: {:g} V bus, {} kWh demand a year, {:g} days autonomy\n",
+      fmt::print(std::cout,
+                 "  site      {}: {:g} V bus, {} kWh demand a year, {:g} days autonomy\n",
                  site.name, site.bus_voltage_v, format_amount(site.annual_demand_kwh()),
                  site.autonomy_days);
       fmt::print(std::cout, "  economics {} years at {:.1f} % real, {}\n",

@@ -97,8 +97,9 @@ void print_json(const SocSeries& series, const DutyCycleSummary& s,
 void register_cycles(CLI::App& app, int& exit_code) {
   auto args = std::make_shared<CyclesArgs>();
   auto* cmd = app.add_subcommand(
-      "cycles", "Count the cycles in a logged SOC series (rainflow); with --profile, the damage "
-                "and the life left at that duty");
+      "cycles",
+      "Count the cycles in a logged SOC series (rainflow); with --profile, the damage "
+      "and the life left at that duty");
   cmd->add_option("series", args->series_path,
                   "CSV with a soc (fraction) or soc_pct (percent) column, optional temp_c")
       ->required();

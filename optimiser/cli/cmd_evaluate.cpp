@@ -58,8 +58,8 @@ void print_text(const Study& study, const std::vector<DesignResult>& results) {
     const auto& d = results[i];
     fmt::print(out, "{:>4}  {:<28}{:>5.2f}{:>9}{:>11}{:>14}{:>13.4f}{:>14}{}\n", rank++,
                d.profile_id, d.dod_setpoint, d.bank.strings_parallel,
-               format_amount(d.bank.nameplate_kwh, 1), d.replacement_years.size(),
-               d.lcos_per_kwh, format_amount(d.npc),
+               format_amount(d.bank.nameplate_kwh, 1), d.replacement_years.size(), d.lcos_per_kwh,
+               format_amount(d.npc),
                d.meets_unserved_limit ? "" : "  (misses the unserved-energy limit)");
   }
   out << "\n";

@@ -42,10 +42,14 @@ struct CostItem {
 };
 
 std::vector<CostItem> items(const CostBreakdown& b) {
-  return {{"investment", b.investment},     {"replacements", b.replacements},
-          {"fixed O&M", b.fixed_om},        {"variable O&M", b.variable_om},
-          {"charging energy", b.charging},  {"back-up energy", b.backup},
-          {"unserved penalty", b.unserved_penalty}, {"end of life", b.end_of_life},
+  return {{"investment", b.investment},
+          {"replacements", b.replacements},
+          {"fixed O&M", b.fixed_om},
+          {"variable O&M", b.variable_om},
+          {"charging energy", b.charging},
+          {"back-up energy", b.backup},
+          {"unserved penalty", b.unserved_penalty},
+          {"end of life", b.end_of_life},
           {"residual value", b.residual_value}};
 }
 
@@ -71,8 +75,7 @@ void print_header(std::ostream& out, const Study& study, const OptimiseResult& r
              "Search space: {} profiles, DoD ladder {:g} to {:g} step {:g}, 1 to {} strings; "
              "{} admissible designs\n",
              study.profiles.size(), study.search.dod_from, study.search.dod_to,
-             study.search.dod_step, study.search.max_strings_parallel,
-             r.admissible_designs);
+             study.search.dod_step, study.search.max_strings_parallel, r.admissible_designs);
   for (const std::string& note : r.notes) fmt::print(out, "Note: {}\n", note);
   out << "\n";
 }
@@ -87,7 +90,8 @@ void print_text(const Study& study, const OptimiseResult& r) {
     } else {
       out << "No feasible design: no design meets every requirement.\n";
     }
-    for (const UnmetRequirement& u : r.unmet) fmt::print(out, "  {}: {}\n", u.requirement, u.detail);
+    for (const UnmetRequirement& u : r.unmet)
+      fmt::print(out, "  {}: {}\n", u.requirement, u.detail);
     out << "\n";
     print_safety_notice(out);
     return;
@@ -129,14 +133,14 @@ void print_text(const Study& study, const OptimiseResult& r) {
              "strings", "kWh", "LCOS " + cur, "NPC " + cur, "vs best");
   for (std::size_t i = 0; i < r.ranking.size(); ++i) {
     const DesignResult& d = r.ranking[i];
-    fmt::print(out, "{:>4}  {:<28}{:>5.2f}{:>9}{:>11}{:>13.4f}{:>14}{:>14}\n", i + 1,
-               d.profile_id, d.dod_setpoint, d.bank.strings_parallel,
-               format_amount(d.bank.nameplate_kwh, 1), d.lcos_per_kwh, format_amount(d.npc),
+    fmt::print(out, "{:>4}  {:<28}{:>5.2f}{:>9}{:>11}{:>13.4f}{:>14}{:>14}\n", i + 1, d.profile_id,
+               d.dod_setpoint, d.bank.strings_parallel, format_amount(d.bank.nameplate_kwh, 1),
+               d.lcos_per_kwh, format_amount(d.npc),
                i == 0 ? std::string("-") : signed_amount(d.npc - best.npc));
   }
   if (r.ranking.size() > 1) {
-    out << "\nWhy each loses against " << best.profile_id << " (present-value difference, "
-        << cur << ", biggest first):\n";
+    out << "\nWhy each loses against " << best.profile_id << " (present-value difference, " << cur
+        << ", biggest first):\n";
     for (std::size_t i = 1; i < r.ranking.size(); ++i) {
       const DesignResult& d = r.ranking[i];
       fmt::print(out, "  {:<28}", d.profile_id);
@@ -240,8 +244,8 @@ class ProgressLine {
   void update(const OptimiseProgress& p) {
     if (!enabled_ || p.seconds < 1.0) return;
     std::string best = std::isfinite(p.best_npc) ? format_amount(p.best_npc) : "none yet";
-    fmt::print(std::cerr, "\r  {} {}/{}, best NPC {}, {:.1f} s   ", p.phase, p.done, p.total,
-               best, p.seconds);
+    fmt::print(std::cerr, "\r  {} {}/{}, best NPC {}, {:.1f} s   ", p.phase, p.done, p.total, best,
+               p.seconds);
     std::cerr.flush();
     shown_ = true;
   }
@@ -304,9 +308,8 @@ void register_optimise(CLI::App& app, int& exit_code) {
       const OptimiseResult result = optimise(study, options);
       progress.finish();
       if (!args->out_dir.empty() && result.feasible()) {
-        write_output_files(args->out_dir,
-                           {{"designs.csv", designs_summary_csv(result.ranking)},
-                            {"cash-flows.csv", cash_flows_csv(result.ranking)}});
+        write_output_files(args->out_dir, {{"designs.csv", designs_summary_csv(result.ranking)},
+                                           {"cash-flows.csv", cash_flows_csv(result.ranking)}});
       }
       if (args->format == OutputFormat::Json) {
         print_json(study, result);

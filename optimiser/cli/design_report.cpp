@@ -80,20 +80,24 @@ void print_design_table(std::ostream& out, const DesignResult& d) {
              d.profile_id, d.dod_setpoint, d.bank.strings_parallel,
              d.bank.strings_parallel == 1 ? "" : "s", d.bank.cells_series,
              format_amount(d.bank.nameplate_kwh, 1), d.bank.nominal_voltage_v);
-  fmt::print(out, "  first year    discharged {} kWh, back-up {} kWh, unserved {} kWh, "
-                  "curtailed {} kWh, {:.0f} equivalent full cycles\n",
+  fmt::print(out,
+             "  first year    discharged {} kWh, back-up {} kWh, unserved {} kWh, "
+             "curtailed {} kWh, {:.0f} equivalent full cycles\n",
              format_amount(first.discharged_terminal_kwh), format_amount(first.backup_kwh),
              format_amount(first.unserved_kwh, 1), format_amount(first.curtailed_kwh),
              first.equivalent_full_cycles);
   const auto& y1 = d.years.front();
-  fmt::print(out, "  ageing        year-1 damage: cycling {:.3f}, calendar {:.3f}, partial charge {:.3f}\n",
-             y1.damage_cycle, y1.damage_calendar, y1.damage_partial_charge);
+  fmt::print(
+      out,
+      "  ageing        year-1 damage: cycling {:.3f}, calendar {:.3f}, partial charge {:.3f}\n",
+      y1.damage_cycle, y1.damage_calendar, y1.damage_partial_charge);
   fmt::print(out, "  replacements  {}\n",
              d.replacement_years.empty() ? std::string("none within the project")
                                          : "end of year " + years_text(d.replacement_years, ", "));
   if (!d.meets_unserved_limit)
-    fmt::print(out, "  WARNING       unserved energy reaches {:.3f} % of demand, above the site's limit\n",
-               100 * d.unserved_fraction_max);
+    fmt::print(
+        out, "  WARNING       unserved energy reaches {:.3f} % of demand, above the site's limit\n",
+        100 * d.unserved_fraction_max);
   fmt::print(out, "  present value ({})\n", d.currency);
   for (const auto& item : kBreakdown) {
     const double v = d.present_value.*item.member;
@@ -101,8 +105,10 @@ void print_design_table(std::ostream& out, const DesignResult& d) {
     fmt::print(out, "    {:<32}{:>14}\n", item.label, format_amount(v));
   }
   fmt::print(out, "    {:<32}{:>14}\n", "net present cost", format_amount(d.npc));
-  fmt::print(out, "  LCOS          {:.4f} {}/kWh discharged (storage costs / discounted discharged energy)\n",
-             d.lcos_per_kwh, d.currency);
+  fmt::print(
+      out,
+      "  LCOS          {:.4f} {}/kWh discharged (storage costs / discounted discharged energy)\n",
+      d.lcos_per_kwh, d.currency);
 }
 
 std::string designs_summary_csv(const std::vector<DesignResult>& designs) {

@@ -1,10 +1,11 @@
 // SPDX-License-Identifier: MIT
 #include "optimiser/cli/output_files.h"
 
+#include <unistd.h>
+
 #include <filesystem>
 #include <fstream>
 #include <system_error>
-#include <unistd.h>
 
 namespace stowage::cli {
 
@@ -15,8 +16,8 @@ void write_output_files(const std::string& directory,
   std::error_code ec;
   fs::create_directories(directory, ec);
   if (ec || !fs::is_directory(directory))
-    throw OutputFileError("cannot create output directory '" + directory + "': " +
-                          (ec ? ec.message() : "a file of that name exists"));
+    throw OutputFileError("cannot create output directory '" + directory +
+                          "': " + (ec ? ec.message() : "a file of that name exists"));
 
   std::vector<fs::path> temporaries;
   auto discard = [&]() {
@@ -38,8 +39,8 @@ void write_output_files(const std::string& directory,
     fs::rename(temporaries[i], fs::path(directory) / files[i].first, ec);
     if (ec) {
       discard();
-      throw OutputFileError("cannot move '" + temporaries[i].string() + "' into place: " +
-                            ec.message());
+      throw OutputFileError("cannot move '" + temporaries[i].string() +
+                            "' into place: " + ec.message());
     }
   }
 }

@@ -4,11 +4,10 @@
 #pragma once
 
 #include <catch2/catch.hpp>
-
 #include <filesystem>
 #include <fstream>
-#include <random>
 #include <functional>
+#include <random>
 #include <sstream>
 #include <string>
 
@@ -43,8 +42,7 @@ inline int line_of(const std::string& text, const std::string& needle) {
 
 // Replaces the first occurrence of `from` in `text` by `to`; fails the test if absent, so an
 // edit that silently does nothing cannot make a bad-input test pass for the wrong reason.
-inline std::string replace_once(std::string text, const std::string& from,
-                                const std::string& to) {
+inline std::string replace_once(std::string text, const std::string& from, const std::string& to) {
   const std::size_t at = text.find(from);
   REQUIRE(at != std::string::npos);
   return text.replace(at, from.size(), to);
@@ -62,8 +60,8 @@ inline InputError expect_input_error(const std::function<void()>& call, const st
     CHECK(e.line() == line);
     CHECK(e.column() >= 1);
     CHECK(e.field() == field);
-    const std::string prefix = file + ":" + std::to_string(line) + ":" +
-                               std::to_string(e.column()) + ": " + field + ": ";
+    const std::string prefix =
+        file + ":" + std::to_string(line) + ":" + std::to_string(e.column()) + ": " + field + ": ";
     CHECK(std::string(e.what()).rfind(prefix, 0) == 0);
     return e;
   } catch (const std::exception& e) {

@@ -1,11 +1,11 @@
 // SPDX-License-Identifier: MIT
 // The hourly CSV of a site: columns by name with the unit in the name, 8760 rows, finite
 // values; errors point at the physical line and name the column.
-#include <catch2/catch.hpp>
+#include "catalog-schema/hourly_csv.h"
 
+#include <catch2/catch.hpp>
 #include <sstream>
 
-#include "catalog-schema/hourly_csv.h"
 #include "catalog_test_support.h"
 
 namespace stowage {
@@ -21,7 +21,10 @@ std::string make_csv(const std::string& header, int rows, const std::string& row
                      const std::vector<std::string>& first_rows = {}) {
   std::string text = "# test data\n" + header + "\n";
   for (int i = 0; i < rows; ++i) {
-    text += (static_cast<std::size_t>(i) < first_rows.size() ? first_rows[static_cast<std::size_t>(i)] : row) + "\n";
+    text +=
+        (static_cast<std::size_t>(i) < first_rows.size() ? first_rows[static_cast<std::size_t>(i)]
+                                                         : row) +
+        "\n";
   }
   return text;
 }
@@ -81,7 +84,8 @@ TEST_CASE("too few rows are refused at the last line", "[catalog][csv][bad]") {
 }
 
 TEST_CASE("non-finite and non-numeric values are refused", "[catalog][csv][bad]") {
-  const std::string nan = make_csv("load_kw,source_kw,temp_c", 8760, "1,0,20", {"1,0,20", "NaN,0,20"});
+  const std::string nan =
+      make_csv("load_kw,source_kw,temp_c", 8760, "1,0,20", {"1,0,20", "NaN,0,20"});
   CHECK_THAT(csv_error(nan, 4, "load_kw"), Catch::Contains("finite number, found 'NaN'"));
   const std::string inf = make_csv("load_kw,source_kw,temp_c", 8760, "1,0,20", {"1,0,-inf"});
   CHECK_THAT(csv_error(inf, 3, "temp_c"), Catch::Contains("finite"));
@@ -112,8 +116,7 @@ TEST_CASE("a column in the wrong unit names the expected unit and name", "[catal
              Catch::Contains("expected kW: name it source_kw"));
   CHECK_THAT(header_error("load_kw,source_kw,temp_f", "temp_f"),
              Catch::Contains("expected degrees Celsius: name it temp_c"));
-  CHECK_THAT(header_error("load_kw,source_kw,temp_k", "temp_k"),
-             Catch::Contains("name it temp_c"));
+  CHECK_THAT(header_error("load_kw,source_kw,temp_k", "temp_k"), Catch::Contains("name it temp_c"));
   CHECK_THAT(csv_error(make_csv("load_kw,source_kw,temp_c,price_per_mwh", 8760, "1,0,20,5"), 2,
                        "price_per_mwh"),
              Catch::Contains("name it price_per_kwh"));

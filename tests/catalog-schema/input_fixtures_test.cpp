@@ -2,9 +2,8 @@
 // The file fixtures: every bad-inputs/NN-name/study.yaml fails with an InputError whose text
 // holds each line of its expect.txt (the same check the end-to-end run of `stowage check` makes
 // on stderr), and the shipped profiles and demo studies load.
-#include <catch2/catch.hpp>
-
 #include <algorithm>
+#include <catch2/catch.hpp>
 #include <filesystem>
 #include <functional>
 #include <vector>
@@ -84,8 +83,7 @@ void numeric_fields(const YAML::Node& node, const std::string& path,
   }
 }
 
-TEST_CASE("the shipped profiles load and give a source for every number",
-          "[catalog][profiles]") {
+TEST_CASE("the shipped profiles load and give a source for every number", "[catalog][profiles]") {
   const fs::path dir = source_path("catalog-schema/profiles");
   std::size_t count = 0;
   if (fs::is_directory(dir)) {

@@ -1,11 +1,11 @@
 // SPDX-License-Identifier: MIT
 // Profile files: a complete and a minimal profile load to the right values; each broken rule
 // gives an InputError at the right line and field.
-#include <catch2/catch.hpp>
+#include "catalog-schema/profile_loader.h"
 
+#include <catch2/catch.hpp>
 #include <sstream>
 
-#include "catalog-schema/profile_loader.h"
 #include "catalog_test_support.h"
 
 namespace stowage {
@@ -141,10 +141,9 @@ TEST_CASE("a value of the wrong type is refused", "[catalog][profile][bad]") {
                Catch::Contains("remove the quotes"));
   }
   SECTION("a list for a mapping") {
-    const std::string text = replace_once(full_profile(), "  dod: {min: 0.2, max: 0.9, default: 0.8}",
-                                          "  dod: [0.2, 0.9, 0.8]");
-    CHECK_THAT(profile_error(text, "dod:", "profile.dod"),
-               Catch::Contains("expected a mapping"));
+    const std::string text = replace_once(
+        full_profile(), "  dod: {min: 0.2, max: 0.9, default: 0.8}", "  dod: [0.2, 0.9, 0.8]");
+    CHECK_THAT(profile_error(text, "dod:", "profile.dod"), Catch::Contains("expected a mapping"));
   }
   SECTION("not-a-number is not a finite number") {
     const std::string text = replace_once(full_profile(), "capacity_ah: 100", "capacity_ah: .nan");
@@ -191,9 +190,9 @@ TEST_CASE("DoD values must lie in (0, 1]", "[catalog][profile][bad]") {
                Catch::Contains("must be <= 1, found 1.2"));
   }
   SECTION("zero") {
-    const std::string text = replace_once(full_profile(), "{min: 0.2, max: 0.9", "{min: 0, max: 0.9");
-    CHECK_THAT(profile_error(text, "dod: {", "profile.dod.min"),
-               Catch::Contains("must be > 0"));
+    const std::string text =
+        replace_once(full_profile(), "{min: 0.2, max: 0.9", "{min: 0, max: 0.9");
+    CHECK_THAT(profile_error(text, "dod: {", "profile.dod.min"), Catch::Contains("must be > 0"));
   }
   SECTION("cycle-life DoD") {
     const std::string text = replace_once(full_profile(), "{dod: 0.2, cycles", "{dod: 1.5, cycles");
@@ -204,10 +203,9 @@ TEST_CASE("DoD values must lie in (0, 1]", "[catalog][profile][bad]") {
 
 TEST_CASE("the default DoD must lie within [min, max]", "[catalog][profile][bad]") {
   const std::string text = replace_once(full_profile(), "default: 0.8}", "default: 0.95}");
-  CHECK_THAT(profile_error(text, "dod: {", "profile.dod.default"),
-             Catch::Contains("[0.2, 0.9]"));
-  const std::string swapped =
-      replace_once(full_profile(), "{min: 0.2, max: 0.9, default: 0.8}", "{min: 0.9, max: 0.2, default: 0.5}");
+  CHECK_THAT(profile_error(text, "dod: {", "profile.dod.default"), Catch::Contains("[0.2, 0.9]"));
+  const std::string swapped = replace_once(full_profile(), "{min: 0.2, max: 0.9, default: 0.8}",
+                                           "{min: 0.9, max: 0.2, default: 0.5}");
   CHECK_THAT(profile_error(swapped, "dod: {", "profile.dod.min"),
              Catch::Contains("must not exceed dod.max"));
 }
@@ -235,8 +233,8 @@ TEST_CASE("an unknown key is refused with a suggestion", "[catalog][profile][bad
   // Only the typo is reported, not also "capacity_ah is missing".
   CHECK(profile_error(text, "capacty_ah", "profile.cell.capacty_ah") ==
         "unknown key 'capacty_ah' (did you mean 'capacity_ah'?)");
-  const std::string far = replace_once(full_profile(), "capacity_ah: 100",
-                                       "capacity_ah: 100\n    colour: blue");
+  const std::string far =
+      replace_once(full_profile(), "capacity_ah: 100", "capacity_ah: 100\n    colour: blue");
   CHECK_THAT(profile_error(far, "colour", "profile.cell.colour"),
              Catch::Contains("allowed here: nominal_v, capacity_ah"));
 }
@@ -255,13 +253,14 @@ TEST_CASE("enumerations and patterns are enforced with hints", "[catalog][profil
 
 TEST_CASE("values that relate to each other are checked", "[catalog][profile][bad]") {
   SECTION("charge voltage above discharge voltage") {
-    const std::string text = replace_once(full_profile(), "mean_charge_v: 3.35", "mean_charge_v: 3.1");
+    const std::string text =
+        replace_once(full_profile(), "mean_charge_v: 3.35", "mean_charge_v: 3.1");
     CHECK_THAT(profile_error(text, "mean_charge_v", "profile.cell.mean_charge_v"),
                Catch::Contains("must be above mean_discharge_v"));
   }
   SECTION("capacity-factor temperatures increase") {
-    const std::string text = replace_once(full_profile(), "{temp_c: 25, factor: 1.0}",
-                                          "{temp_c: -20, factor: 1.0}");
+    const std::string text =
+        replace_once(full_profile(), "{temp_c: 25, factor: 1.0}", "{temp_c: -20, factor: 1.0}");
     CHECK_THAT(profile_error(text, "{temp_c: -20, factor: 1.0}",
                              "profile.temperature.capacity_factor[1].temp_c"),
                Catch::Contains("must increase"));
@@ -273,8 +272,8 @@ TEST_CASE("values that relate to each other are checked", "[catalog][profile][ba
                Catch::Contains("must be below operating_c.max"));
   }
   SECTION("a sources key names a field that exists") {
-    const std::string text = replace_once(full_profile(), "    dod.min: test value",
-                                          "    dod.minimum: test value");
+    const std::string text =
+        replace_once(full_profile(), "    dod.min: test value", "    dod.minimum: test value");
     CHECK_THAT(profile_error(text, "dod.minimum", "profile.sources.dod.minimum"),
                Catch::Contains("names no field of this profile"));
   }
@@ -288,15 +287,15 @@ TEST_CASE("a rule only the model checks is still located in the file", "[catalog
 }
 
 TEST_CASE("a key given twice is refused", "[catalog][profile][bad]") {
-  const std::string text =
-      replace_once(full_profile(), "    capacity_ah: 100\n", "    capacity_ah: 100\n    capacity_ah: 120\n");
+  const std::string text = replace_once(full_profile(), "    capacity_ah: 100\n",
+                                        "    capacity_ah: 100\n    capacity_ah: 120\n");
   CHECK_THAT(profile_error(text, "capacity_ah: 120", "profile.cell.capacity_ah"),
              Catch::Contains("duplicate key 'capacity_ah' (first given on line 10)"));
 }
 
 TEST_CASE("a YAML syntax error names the line and the block", "[catalog][profile][bad]") {
-  const std::string text = replace_once(full_profile(), "charging_c: {min: 0, max: 45}",
-                                        "charging_c: {min: 0, max: 45");
+  const std::string text =
+      replace_once(full_profile(), "charging_c: {min: 0, max: 45}", "charging_c: {min: 0, max: 45");
   try {
     load_text(text);
     FAIL("no error");
@@ -312,27 +311,39 @@ TEST_CASE("a YAML syntax error names the line and the block", "[catalog][profile
 }
 
 TEST_CASE("empty or misshapen documents are refused, not crashed on", "[catalog][profile][bad]") {
-  expect_input_error([] { std::istringstream in(""); load_profile(in, kName); }, kName, 1,
-                     "profile");
-  expect_input_error([] { std::istringstream in("- 1\n- 2\n"); load_profile(in, kName); }, kName,
-                     1, "(top level)");
-  expect_input_error([] { std::istringstream in("profile: 3\n"); load_profile(in, kName); }, kName,
-                     1, "profile");
+  expect_input_error(
+      [] {
+        std::istringstream in("");
+        load_profile(in, kName);
+      },
+      kName, 1, "profile");
+  expect_input_error(
+      [] {
+        std::istringstream in("- 1\n- 2\n");
+        load_profile(in, kName);
+      },
+      kName, 1, "(top level)");
+  expect_input_error(
+      [] {
+        std::istringstream in("profile: 3\n");
+        load_profile(in, kName);
+      },
+      kName, 1, "profile");
 }
 
 TEST_CASE("an unreadable profile file is an InputError naming the path",
           "[catalog][profile][bad]") {
   const std::string missing = fixture_path("no-such-profile.yaml");
-  const InputError e = expect_input_error([&] { load_profile_file(missing); }, missing, 1, "profile");
+  const InputError e =
+      expect_input_error([&] { load_profile_file(missing); }, missing, 1, "profile");
   CHECK_THAT(e.message(), Catch::Contains("No such file"));
   const std::string directory = fixture_path("");
   CHECK_THROWS_AS(load_profile_file(directory), InputError);
 }
 
 TEST_CASE("source coverage counts enclosing keys", "[catalog][profile]") {
-  const std::map<std::string, std::string> sources = {{"ageing.cycle_life", "x"},
-                                                      {"costs", "y"},
-                                                      {"cell.nominal_v", "z"}};
+  const std::map<std::string, std::string> sources = {
+      {"ageing.cycle_life", "x"}, {"costs", "y"}, {"cell.nominal_v", "z"}};
   CHECK(source_covers(sources, "ageing.cycle_life[3].cycles"));
   CHECK(source_covers(sources, "costs.capital_per_kwh"));
   CHECK(source_covers(sources, "cell.nominal_v"));

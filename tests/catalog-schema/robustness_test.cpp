@@ -1,7 +1,6 @@
 // SPDX-License-Identifier: MIT
 // Hostile or broken input never crashes the loaders: every case ends in an InputError.
 #include <catch2/catch.hpp>
-
 #include <sstream>
 
 #include "catalog-schema/hourly_csv.h"
@@ -33,15 +32,15 @@ void profile_text(const std::string& text) {
 TEST_CASE("broken YAML of many kinds is an InputError", "[catalog][robustness]") {
   const std::string deep = std::string(5000, '[') + std::string(5000, ']');
   const std::vector<std::string> inputs = {
-      "profile:\n\tid: x\n",                    // tab indentation
-      "profile: *nowhere\n",                    // alias of an undefined anchor
-      "profile: {id: x\n",                      // unclosed flow mapping at the end
-      "? {a: 1}\n: 2\n",                        // a mapping as a key
-      std::string("\x00\x01\xff\xfe", 4),       // binary bytes
+      "profile:\n\tid: x\n",                                 // tab indentation
+      "profile: *nowhere\n",                                 // alias of an undefined anchor
+      "profile: {id: x\n",                                   // unclosed flow mapping at the end
+      "? {a: 1}\n: 2\n",                                     // a mapping as a key
+      std::string("\x00\x01\xff\xfe", 4),                    // binary bytes
       "profile:\n  id: " + std::string(100000, 'a') + "\n",  // a huge scalar
       "profile:\n  cell:\n    nominal_v: " + std::string(100000, '9') + "\n",
-      "profile: " + deep + "\n",                // nesting deeper than the parser allows
-      "---\nprofile: 1\n---\nprofile: 2\n",     // two documents
+      "profile: " + deep + "\n",             // nesting deeper than the parser allows
+      "---\nprofile: 1\n---\nprofile: 2\n",  // two documents
       "profile: !!binary AAAA\n",
   };
   for (const std::string& text : inputs) {
@@ -54,7 +53,7 @@ TEST_CASE("broken CSV of many kinds is an InputError", "[catalog][robustness]") 
   const std::vector<std::string> inputs = {
       std::string(200000, ',') + "\n",
       "load_kw,source_kw,temp_c\n" + std::string(100000, '7') + "e99999,0,0\n",
-      "\"load_kw,source_kw,temp_c\n1,2,3\n",   // an unclosed quote swallows the header
+      "\"load_kw,source_kw,temp_c\n1,2,3\n",  // an unclosed quote swallows the header
       std::string("load_kw,source_kw,temp_c\n\x00,1,2\n", 30),
       "load_" + std::string(100000, 'x') + ",source_kw,temp_c\n",
   };

@@ -2,9 +2,8 @@
 // The JSON Schemas: embedded as written, fully documented (every field has a description and
 // appears in docs/input-format.md), defaults equal to the model's, and the validator enforces
 // each supported keyword.
-#include <catch2/catch.hpp>
-
 #include <algorithm>
+#include <catch2/catch.hpp>
 #include <cmath>
 #include <functional>
 #include <limits>
@@ -58,7 +57,8 @@ TEST_CASE("the embedded schemas are the files in catalog-schema/schemas", "[cata
   for (const std::string_view n : embedded_schema_names()) names.emplace_back(n);
   CHECK(names == kSchemas);
   for (const std::string& name : kSchemas) {
-    const std::string file = read_text(source_path("catalog-schema/schemas/" + name + ".schema.json"));
+    const std::string file =
+        read_text(source_path("catalog-schema/schemas/" + name + ".schema.json"));
     CHECK(std::string(embedded_schema(name)) == file);
     // Plain ASCII, so the embedding never splits a multi-byte character between literals.
     CHECK(std::none_of(file.begin(), file.end(),
@@ -109,8 +109,10 @@ TEST_CASE("schema defaults are the values an absent field gets", "[catalog][sche
         schema_default("profile", "profile.ageing.end_of_life_capacity"));
   CHECK(p.partial_charge->full_charge_soc ==
         schema_default("profile", "profile.ageing.partial_charge.full_charge_soc"));
-  CHECK(p.costs.capital_per_string == schema_default("profile", "profile.costs.capital_per_string"));
-  CHECK(p.costs.installation_fixed == schema_default("profile", "profile.costs.installation_fixed"));
+  CHECK(p.costs.capital_per_string ==
+        schema_default("profile", "profile.costs.capital_per_string"));
+  CHECK(p.costs.installation_fixed ==
+        schema_default("profile", "profile.costs.installation_fixed"));
   CHECK(p.costs.fixed_om_per_kwh_year ==
         schema_default("profile", "profile.costs.fixed_om_per_kwh_year"));
   CHECK(p.costs.variable_om_per_mwh ==
@@ -118,10 +120,12 @@ TEST_CASE("schema defaults are the values an absent field gets", "[catalog][sche
   CHECK(p.costs.replacement_share == schema_default("profile", "profile.costs.replacement_share"));
   CHECK(p.costs.price_decline_per_year ==
         schema_default("profile", "profile.costs.price_decline_per_year"));
-  CHECK(p.costs.end_of_life_per_kwh == schema_default("profile", "profile.costs.end_of_life_per_kwh"));
+  CHECK(p.costs.end_of_life_per_kwh ==
+        schema_default("profile", "profile.costs.end_of_life_per_kwh"));
   const SiteConditions defaults;
   CHECK(defaults.design_margin == schema_default("site", "site.design_margin"));
-  CHECK(defaults.unserved_penalty_per_kwh == schema_default("site", "site.unserved.penalty_per_kwh"));
+  CHECK(defaults.unserved_penalty_per_kwh ==
+        schema_default("site", "site.unserved.penalty_per_kwh"));
 }
 
 TEST_CASE("the validator refuses schemas it cannot enforce", "[catalog][schema]") {
@@ -152,8 +156,9 @@ TEST_CASE("the validator enforces each keyword it supports", "[catalog][schema]"
     "$defs": {"p": {"type": "object", "properties": {"q": {"type": "number"}},
                     "required": ["q"], "additionalProperties": false}}
   })");
-  CHECK(messages(v, "n: 3\nx: 0.5\nb: true\ns: abc\ne: red\nt: ~\nl: [{q: 1}, {q: 2}]\n"
-                    "m: {k: 1}\no: text\n")
+  CHECK(messages(v,
+                 "n: 3\nx: 0.5\nb: true\ns: abc\ne: red\nt: ~\nl: [{q: 1}, {q: 2}]\n"
+                 "m: {k: 1}\no: text\n")
             .empty());
   const auto one = [&](const std::string& text) {
     const std::vector<std::string> found = messages(v, text);
@@ -194,7 +199,8 @@ TEST_CASE("near misses are suggested, far ones are not", "[catalog][schema]") {
 }
 
 TEST_CASE("YAML scalars are classified by the core schema", "[catalog][schema]") {
-  const YamlDocument doc = parse("a: 3\nb: -2.5e3\nc: '3'\nd: .nan\ne: true\nf: ~\ng: 0x1F\nh: 1e999\n");
+  const YamlDocument doc =
+      parse("a: 3\nb: -2.5e3\nc: '3'\nd: .nan\ne: true\nf: ~\ng: 0x1F\nh: 1e999\n");
   const YAML::Node& r = doc.root();
   CHECK(scalar_kind(r["a"]) == ScalarKind::Integer);
   CHECK(*scalar_number(r["b"]) == -2500);

@@ -1,11 +1,11 @@
 // SPDX-License-Identifier: MIT
 // Site files: values and the hourly CSV reach SiteConditions; errors in the site file name the
 // site file, errors in the CSV name the CSV.
-#include <catch2/catch.hpp>
+#include "catalog-schema/site_loader.h"
 
+#include <catch2/catch.hpp>
 #include <sstream>
 
-#include "catalog-schema/site_loader.h"
 #include "catalog_test_support.h"
 
 namespace stowage {
@@ -79,38 +79,41 @@ TEST_CASE("the charging price can come from a CSV column", "[catalog][site]") {
 
   const std::string absent = replace_once(site_text(), "per_kwh: 0.02", "column: price_per_kwh");
   const InputError e = expect_input_error([&] { load_text(absent); }, kName,
-                                          line_of(absent, "column:"),
-                                          "site.charging_price.column");
+                                          line_of(absent, "column:"), "site.charging_price.column");
   CHECK_THAT(e.message(), Catch::Contains("has no column 'price_per_kwh'"));
 }
 
 TEST_CASE("site errors name the site file, CSV errors the CSV", "[catalog][site][bad]") {
   SECTION("an efficiency above 1") {
-    const std::string text = replace_once(site_text(), "charger_efficiency: 0.96", "charger_efficiency: 1.2");
+    const std::string text =
+        replace_once(site_text(), "charger_efficiency: 0.96", "charger_efficiency: 1.2");
     expect_input_error([&] { load_text(text); }, kName, line_of(text, "charger_efficiency"),
                        "site.charger_efficiency");
   }
   SECTION("both charging price forms") {
-    const std::string text =
-        replace_once(site_text(), "    per_kwh: 0.02\n", "    per_kwh: 0.02\n    column: price_per_kwh\n");
+    const std::string text = replace_once(site_text(), "    per_kwh: 0.02\n",
+                                          "    per_kwh: 0.02\n    column: price_per_kwh\n");
     const InputError e = expect_input_error([&] { load_text(text); }, kName,
                                             line_of(text, "column:"), "site.charging_price.column");
     CHECK_THAT(e.message(), Catch::Contains("exactly one of per_kwh and column"));
   }
   SECTION("a missing hourly CSV is reported at site.hourly") {
     const std::string text = replace_once(site_text(), "hourly: hourly.csv", "hourly: nowhere.csv");
-    const InputError e = expect_input_error([&] { load_text(text); }, kName, line_of(text, "hourly:"), "site.hourly");
+    const InputError e = expect_input_error([&] { load_text(text); }, kName,
+                                            line_of(text, "hourly:"), "site.hourly");
     CHECK_THAT(e.message(), Catch::Contains("nowhere.csv"));
     CHECK_THAT(e.message(), Catch::Contains("No such file"));
   }
   SECTION("a design margin below 1") {
     const std::string text = replace_once(site_text(), "design_margin: 1.1", "design_margin: 0.9");
     CHECK_THAT(expect_input_error([&] { load_text(text); }, kName, line_of(text, "design_margin"),
-                                  "site.design_margin").message(),
+                                  "site.design_margin")
+                   .message(),
                Catch::Contains("must be >= 1"));
   }
   SECTION("an unserved limit above 1") {
-    const std::string text = replace_once(site_text(), "limit_fraction: 0.001", "limit_fraction: 2");
+    const std::string text =
+        replace_once(site_text(), "limit_fraction: 0.001", "limit_fraction: 2");
     expect_input_error([&] { load_text(text); }, kName, line_of(text, "limit_fraction"),
                        "site.unserved.limit_fraction");
   }

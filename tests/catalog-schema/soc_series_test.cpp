@@ -1,11 +1,11 @@
 // SPDX-License-Identifier: MIT
 // Logged SOC series: fraction or percent, optional temperature, at least two rows, values in
 // range; errors name the line and the column.
-#include <catch2/catch.hpp>
+#include "catalog-schema/soc_series.h"
 
+#include <catch2/catch.hpp>
 #include <sstream>
 
-#include "catalog-schema/soc_series.h"
 #include "catalog_test_support.h"
 
 namespace stowage {
@@ -56,8 +56,7 @@ TEST_CASE("SOC values out of range are refused", "[catalog][soc][bad]") {
 }
 
 TEST_CASE("the SOC columns must be given once and named with their unit", "[catalog][soc][bad]") {
-  CHECK_THAT(soc_error("soc,soc_pct\n0.5,50\n0.6,60\n", 1, "soc_pct"),
-             Catch::Contains("not both"));
+  CHECK_THAT(soc_error("soc,soc_pct\n0.5,50\n0.6,60\n", 1, "soc_pct"), Catch::Contains("not both"));
   CHECK_THAT(soc_error("time,temp_c\na,1\nb,2\n", 1, "soc"),
              Catch::Contains("no state-of-charge column"));
   CHECK_THAT(soc_error("soc_percent\n50\n60\n", 1, "soc_percent"),

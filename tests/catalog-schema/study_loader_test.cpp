@@ -1,11 +1,11 @@
 // SPDX-License-Identifier: MIT
 // Study files: the study, its site and profiles load into a Study; rules across files are
 // enforced and reported in the file that must change.
-#include <catch2/catch.hpp>
+#include "catalog-schema/study_loader.h"
 
+#include <catch2/catch.hpp>
 #include <sstream>
 
-#include "catalog-schema/study_loader.h"
 #include "catalog_test_support.h"
 
 namespace stowage {
@@ -86,14 +86,15 @@ TEST_CASE("economics are range-checked", "[catalog][study][bad]") {
   CHECK_THAT(study_error(replace_once(study_text(), "project_years: 20", "project_years: 101"),
                          "project_years", "study.economics.project_years"),
              Catch::Contains("must be <= 100"));
-  CHECK_THAT(study_error(replace_once(study_text(), "real_discount_rate: 0.06", "real_discount_rate: 6"),
-                         "real_discount_rate", "study.economics.real_discount_rate"),
-             Catch::Contains("must be < 1, found 6"));
+  CHECK_THAT(
+      study_error(replace_once(study_text(), "real_discount_rate: 0.06", "real_discount_rate: 6"),
+                  "real_discount_rate", "study.economics.real_discount_rate"),
+      Catch::Contains("must be < 1, found 6"));
 }
 
 TEST_CASE("the same profile id twice is refused", "[catalog][study][bad]") {
-  const std::string text =
-      replace_once(study_text(), "    - lead-test.yaml\n", "    - lead-test.yaml\n    - lfp-test.yaml\n");
+  const std::string text = replace_once(study_text(), "    - lead-test.yaml\n",
+                                        "    - lead-test.yaml\n    - lfp-test.yaml\n");
   const std::string message =
       study_error(text, "    - lfp-test.yaml\n  economics", "study.profiles[2]");
   CHECK_THAT(message, Catch::Contains("'lfp-test'"));
@@ -101,7 +102,8 @@ TEST_CASE("the same profile id twice is refused", "[catalog][study][bad]") {
 }
 
 TEST_CASE("a design must name a loaded profile", "[catalog][study][bad]") {
-  const std::string text = replace_once(study_text(), "{profile: lead-test}", "{profile: lead-tset}");
+  const std::string text =
+      replace_once(study_text(), "{profile: lead-test}", "{profile: lead-tset}");
   const std::string message = study_error(text, "lead-tset", "study.designs[1].profile");
   CHECK_THAT(message, Catch::Contains("did you mean 'lead-test'?"));
   CHECK_THAT(message, Catch::Contains("lfp-test, lead-test"));
@@ -116,8 +118,8 @@ TEST_CASE("a design's DoD must lie within its profile's range", "[catalog][study
 TEST_CASE("the profiles must price in the study's currency", "[catalog][study][bad]") {
   const std::string text = replace_once(study_text(), "currency: EUR", "currency: USD");
   const std::string profile = fixture_path("lfp-test.yaml");
-  const InputError e = expect_input_error([&] { load_text(text); }, profile, 39,
-                                          "profile.costs.currency");
+  const InputError e =
+      expect_input_error([&] { load_text(text); }, profile, 39, "profile.costs.currency");
   CHECK_THAT(e.message(), Catch::Contains("prices in EUR but the study is in USD"));
   CHECK_THAT(e.message(), Catch::Contains(std::string(kName) + ":" +
                                           std::to_string(line_of(text, "currency: USD"))));
@@ -128,11 +130,12 @@ TEST_CASE("search limits are checked against the profiles", "[catalog][study][ba
                                         "    budget: 50000\n    max_mass_kg: 900\n");
   CHECK_THAT(study_error(mass, "max_mass_kg", "study.search.max_mass_kg"),
              Catch::Contains("lead-test"));
-  const std::string ladder = replace_once(study_text(), "{from: 0.3, to: 0.9", "{from: 0.9, to: 0.3");
+  const std::string ladder =
+      replace_once(study_text(), "{from: 0.3, to: 0.9", "{from: 0.9, to: 0.3");
   CHECK_THAT(study_error(ladder, "dod_ladder", "study.search.dod_ladder.from"),
              Catch::Contains("must not exceed dod_ladder.to"));
-  const std::string strings = replace_once(study_text(), "max_strings_parallel: 12",
-                                           "max_strings_parallel: 0");
+  const std::string strings =
+      replace_once(study_text(), "max_strings_parallel: 12", "max_strings_parallel: 0");
   study_error(strings, "max_strings_parallel", "study.search.max_strings_parallel");
 }
 
@@ -148,8 +151,8 @@ TEST_CASE("errors inside referenced files name those files", "[catalog][study][b
   expect_input_error([&] { load_text(text, dir.path()); }, profile_path,
                      line_of(bad_profile, "capacity_ah"), "profile.cell.capacity_ah");
 
-  const std::string site = replace_once(read_text(fixture_path("site.yaml")), "bus_voltage_v: 48",
-                                        "bus_voltage_v: 0");
+  const std::string site =
+      replace_once(read_text(fixture_path("site.yaml")), "bus_voltage_v: 48", "bus_voltage_v: 0");
   const std::string site_path = dir.write("site.yaml", site);
   const std::string lfp_only = replace_once(study_text(), "    - lead-test.yaml\n", "");
   expect_input_error([&] { load_text(lfp_only, dir.path()); }, site_path,

@@ -37,7 +37,7 @@ TEST_CASE("bank energy is nominal voltage times ampere-hours", "[model][bank]") 
 TEST_CASE("SOC plus DoD is one: drawing 2 Ah from 10 Ah leaves SOC 0.8", "[model][dispatch]") {
   // Common practice: a 10 Ah battery drained by 2 Ah is at SOC 80 %, DoD 20 %.
   const auto p = ideal_cell(10);
-  auto s = quiet_site(2.0);  // one 2 V cell
+  auto s = quiet_site(2.0);           // one 2 V cell
   s.load_kw[0] = 2.0 * 2.0 / 1000.0;  // 2 Ah at 2.0 V in one hour
   std::vector<double> trace;
   const auto y = run_year(p, s, 1, 1.0, trace);
@@ -80,8 +80,7 @@ TEST_CASE("round-trip efficiency is voltaic times coulombic efficiency", "[model
   CHECK(trace[6] == Approx(1.0));
 }
 
-TEST_CASE("Peukert's law: 100 Ah at C20 with k = 1.2 lasts 8.7055 h at 10 A",
-          "[model][dispatch]") {
+TEST_CASE("Peukert's law: 100 Ah at C20 with k = 1.2 lasts 8.7055 h at 10 A", "[model][dispatch]") {
   // t = H (C / (I H))^k with C = 100 Ah, H = 20 h, k = 1.2, I = 10 A gives 8.7055 h
   // (check-values.md section 6, CALC; the standard form of Peukert's law).
   auto p = ideal_cell(100);

@@ -15,7 +15,7 @@ TEST_CASE("compound-interest factors match the interest tables", "[model][econom
     double pf, pa, ap;
   };
   const Row rows[] = {
-      {0.05, 10, 0.61391, 7.7217, 0.12950}, {0.05, 20, 0.37689, 12.4622, 0.08024},
+      {0.05, 10, 0.61391, 7.7217, 0.12950},  {0.05, 20, 0.37689, 12.4622, 0.08024},
       {0.06, 20, 0.31180, 11.4699, 0.08718}, {0.08, 15, 0.31524, 8.5595, 0.11683},
       {0.08, 25, 0.14602, 10.6748, 0.09368}, {0.10, 20, 0.14864, 8.5136, 0.11746},
       {0.12, 20, 0.10367, 7.4694, 0.13388},
@@ -29,8 +29,7 @@ TEST_CASE("compound-interest factors match the interest tables", "[model][econom
   }
 }
 
-TEST_CASE("capital recovery reproduces the NumPy pmt documentation example",
-          "[model][economics]") {
+TEST_CASE("capital recovery reproduces the NumPy pmt documentation example", "[model][economics]") {
   // numpy.pmt docs: 200,000 over 15 years at 7.5 %/yr paid monthly -> 1854.0247200054619 per
   // month (check-values.md section 2, READ).
   CHECK(200000.0 * capital_recovery_factor(0.075 / 12, 180) ==

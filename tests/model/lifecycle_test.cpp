@@ -37,8 +37,8 @@ TEST_CASE("a constant daily cycle ages, is replaced and priced as derived by han
   p.validate();
 
   SiteConditions s = quiet_site(48.0, 35.0);
-  every_day(s.load_kw, 2, 5, 100.0);    // far more than the bank holds: the rest is back-up
-  every_day(s.source_kw, 8, 15, 100.0); // ample charging every day
+  every_day(s.load_kw, 2, 5, 100.0);     // far more than the bank holds: the rest is back-up
+  every_day(s.source_kw, 8, 15, 100.0);  // ample charging every day
   s.charge_price_per_kwh.assign(kHoursPerYear, 0.05);
   s.charger_efficiency = 0.96;
   s.inverter_efficiency = 0.94;
@@ -64,7 +64,7 @@ TEST_CASE("a constant daily cycle ages, is replaced and priced as derived by han
     const int bank_year = (y - 1) % 4;  // 0..3 within each bank's life
     const double health = 1.0 - 0.2 * 0.25 * bank_year;
     const double ah_per_day = 0.5 * 1000 * health;
-    const double discharged = 365 * ah_per_day * 48.0 / 1000.0;       // kWh at the terminals
+    const double discharged = 365 * ah_per_day * 48.0 / 1000.0;  // kWh at the terminals
     const double charged_terminal = 365 * ah_per_day / 0.95 * (24 * 2.0 / 0.9) / 1000.0;
     const double drawn = charged_terminal / 0.96;
     const double backup = 365 * 400.0 - discharged * 0.94;

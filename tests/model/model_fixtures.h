@@ -58,7 +58,8 @@ inline SiteConditions quiet_site(double bus_voltage_v = 48.0, double temp_c = 25
 // Sets `kw` of load (or source) in hours [first, last] of every day.
 inline void every_day(std::vector<double>& series, int first_hour, int last_hour, double kw) {
   for (int day = 0; day < kHoursPerYear / 24; ++day)
-    for (int h = first_hour; h <= last_hour; ++h) series[static_cast<std::size_t>(day * 24 + h)] = kw;
+    for (int h = first_hour; h <= last_hour; ++h)
+      series[static_cast<std::size_t>(day * 24 + h)] = kw;
 }
 
 }  // namespace stowage::testing

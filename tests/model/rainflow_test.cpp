@@ -39,8 +39,8 @@ TEST_CASE("rainflow gives the ASTM example's cycle means", "[model][rainflow]") 
   std::vector<std::tuple<double, double, double>> got;
   for (const auto& c : cycles) got.emplace_back(c.depth, c.mean, c.count);
   std::vector<std::tuple<double, double, double>> expected{
-      {4, 1, 1.0},    {3, -0.5, 0.5}, {4, -1, 0.5}, {8, 1, 0.5},
-      {6, 1, 0.5},    {8, 0, 0.5},    {9, 0.5, 0.5}};
+      {4, 1, 1.0}, {3, -0.5, 0.5}, {4, -1, 0.5}, {8, 1, 0.5},
+      {6, 1, 0.5}, {8, 0, 0.5},    {9, 0.5, 0.5}};
   std::sort(got.begin(), got.end());
   std::sort(expected.begin(), expected.end());
   CHECK(got == expected);

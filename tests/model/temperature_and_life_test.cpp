@@ -70,11 +70,13 @@ TEST_CASE("the least-squares power law matches the fit of the published NMC and 
   // Battery University BU-808 DoD table (NMC / LFP, 100..10 % DoD) and its least-squares
   // log-log fit N100 = 302.4, k = 1.264 (NMC); 691.8, 1.439 (LFP) (check-values.md 5.4:
   // table READ-3P/from memory, fit CALC).
-  const CycleLifeCurve nmc({{1.0, 300}, {0.8, 400}, {0.6, 600}, {0.4, 1000}, {0.2, 2000}, {0.1, 6000}});
+  const CycleLifeCurve nmc(
+      {{1.0, 300}, {0.8, 400}, {0.6, 600}, {0.4, 1000}, {0.2, 2000}, {0.1, 6000}});
   const auto f = nmc.power_law_fit();
   CHECK(f.cycles_at_full_depth == Approx(302.4).epsilon(1e-3));
   CHECK(f.exponent == Approx(1.264).epsilon(1e-3));
-  const CycleLifeCurve lfp({{1.0, 600}, {0.8, 900}, {0.6, 1500}, {0.4, 3000}, {0.2, 9000}, {0.1, 15000}});
+  const CycleLifeCurve lfp(
+      {{1.0, 600}, {0.8, 900}, {0.6, 1500}, {0.4, 3000}, {0.2, 9000}, {0.1, 15000}});
   CHECK(lfp.power_law_fit().cycles_at_full_depth == Approx(691.8).epsilon(1e-3));
   CHECK(lfp.power_law_fit().exponent == Approx(1.439).epsilon(1e-3));
 }

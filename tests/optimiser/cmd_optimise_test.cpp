@@ -1,9 +1,8 @@
 // SPDX-License-Identifier: MIT
 // `stowage optimise` through its CLI11 registration: exit codes, the JSON fields other tools
 // read, the text report's ranking and safety notice, and the files it writes.
-#include <catch2/catch.hpp>
-
 #include <CLI/CLI.hpp>
+#include <catch2/catch.hpp>
 #include <filesystem>
 #include <fstream>
 #include <iostream>
@@ -100,7 +99,8 @@ TEST_CASE("optimise exits 3 and names the autonomy shortfall when no bank is big
   CHECK_THAT(r.out, Catch::Contains("planning estimate"));
   const RunOutput j = run_optimise({study, "--format", "json"});
   CHECK(j.exit_code == stowage::cli::kExitInfeasible);
-  CHECK_THAT(j.out, Catch::Contains("\"feasible\":false") || Catch::Contains("\"feasible\": false"));
+  CHECK_THAT(j.out,
+             Catch::Contains("\"feasible\":false") || Catch::Contains("\"feasible\": false"));
   fs::remove_all(dir);
 }
 
@@ -122,9 +122,8 @@ TEST_CASE("optimise writes the CSVs and the exported model", "[optimiser][cli]")
 }
 
 TEST_CASE("optimise --time-limit marks the answer as not proven", "[optimiser][cli]") {
-  const RunOutput r = run_optimise(
-      {demo("tarnbeck-saddle"), "--method", "exhaustive", "--time-limit", "0.2", "--format",
-       "json"});
+  const RunOutput r = run_optimise({demo("tarnbeck-saddle"), "--method", "exhaustive",
+                                    "--time-limit", "0.2", "--format", "json"});
   CHECK(r.exit_code == stowage::cli::kExitOk);
   CHECK_THAT(r.out, Catch::Contains("\"proven_optimal\":false") ||
                         Catch::Contains("\"proven_optimal\": false"));

@@ -3,11 +3,10 @@
 // IEEE Std 1013 autonomy sizing (required nameplate = daily load x days x margin /
 // (inverter efficiency x DoD x temperature factor x end-of-life capacity)), the peak-discharge
 // C-rate at the terminals, and the budget and mass caps.
-#include <catch2/catch.hpp>
-
-#include <cmath>
-
 #include "optimiser/design_space.h"
+
+#include <catch2/catch.hpp>
+#include <cmath>
 
 using namespace stowage;
 

@@ -2,8 +2,9 @@
 // The model-guided search against the outside reference of this layer: exhaustive enumeration
 // of every admissible design with the exact simulator (LifecycleEvaluator), on randomised
 // studies (fixed seeds) and on the demo studies.
-#include <catch2/catch.hpp>
+#include "optimiser/optimise.h"
 
+#include <catch2/catch.hpp>
 #include <cmath>
 #include <filesystem>
 #include <string>
@@ -12,7 +13,6 @@
 #include "catalog-schema/study_loader.h"
 #include "model/lifecycle.h"
 #include "model/sizing.h"
-#include "optimiser/optimise.h"
 #include "optimiser/synthetic_study.h"
 #include "test_paths.h"
 
@@ -43,8 +43,8 @@ void require_same_optimum(const Study& study, const std::string& label,
   const bool same_design = a.profile_id == b.profile_id &&
                            std::fabs(a.dod_setpoint - b.dod_setpoint) < 1e-9 &&
                            a.bank.strings_parallel == b.bank.strings_parallel;
-  CHECK((same_design || std::fabs(a.lcos_per_kwh - b.lcos_per_kwh) <=
-                            kObjectiveTolerance * b.lcos_per_kwh));
+  CHECK((same_design ||
+         std::fabs(a.lcos_per_kwh - b.lcos_per_kwh) <= kObjectiveTolerance * b.lcos_per_kwh));
   CHECK(a.meets_unserved_limit);
   // The default method must actually save work.
   CHECK(milp.designs_evaluated_exactly < exhaustive.designs_evaluated_exactly);
@@ -109,7 +109,8 @@ TEST_CASE("optimise finds the exhaustive optimum on a generated 8 x 17 x 40 desi
   require_same_optimum(study, "seed 2026, 8 profiles");
 }
 
-TEST_CASE("optimise finds the exhaustive optimum on the demo studies", "[optimiser][optimise][demo]") {
+TEST_CASE("optimise finds the exhaustive optimum on the demo studies",
+          "[optimiser][optimise][demo]") {
   namespace fs = std::filesystem;
   int found = 0;
   for (const auto& entry : fs::directory_iterator(fs::path(STOWAGE_SOURCE_DIR) / "studies")) {
@@ -181,9 +182,8 @@ TEST_CASE("an autonomy no allowed bank reaches is reported with both figures",
   CHECK(r.unmet[0].requirement == "autonomy");
   // Needed: daily load x days x margin / inverter efficiency (IEEE Std 1013 approach, at the
   // terminals); the figure must be what sizing.h asks of every setpoint.
-  const double needed =
-      size_for_autonomy(study.profiles[0], study.site, study.profiles[0].dod.max)
-          .required_usable_kwh;
+  const double needed = size_for_autonomy(study.profiles[0], study.site, study.profiles[0].dod.max)
+                            .required_usable_kwh;
   CHECK(r.unmet[0].needed == Approx(needed).epsilon(1e-9));
   CHECK(r.unmet[0].best_available < r.unmet[0].needed);
   CHECK_THAT(r.unmet[0].detail, Catch::Contains("short by"));

@@ -2,8 +2,9 @@
 // The mixed-integer model: its wear linearisation against compound-interest sums, the
 // decomposition against GLPK's branch and bound on the monolithic model, and the exported model
 // against two independent solvers (COIN-OR CBC and HiGHS via SciPy).
-#include <catch2/catch.hpp>
+#include "optimiser/storage_milp.h"
 
+#include <catch2/catch.hpp>
 #include <cmath>
 #include <cstdio>
 #include <cstdlib>
@@ -15,7 +16,6 @@
 #include "optimiser/design_space.h"
 #include "optimiser/optimise.h"
 #include "optimiser/representative_days.h"
-#include "optimiser/storage_milp.h"
 #include "optimiser/synthetic_study.h"
 #include "test_paths.h"
 
@@ -96,8 +96,7 @@ Study small_study() {
 
 }  // namespace
 
-TEST_CASE("the decomposed sub-models reach the monolithic model's optimum",
-          "[optimiser][milp]") {
+TEST_CASE("the decomposed sub-models reach the monolithic model's optimum", "[optimiser][milp]") {
   // Reference: GLPK's branch and bound (glp_intopt) on the monolithic model, against the
   // sub-models solved by LP relaxation and neighbouring integers.
   const Study study = small_study();
@@ -115,9 +114,9 @@ TEST_CASE("the decomposed sub-models reach the monolithic model's optimum",
     if (!c.admissible()) continue;
     const ChemistryProfile& p = study.profiles[c.profile_index];
     LifecycleEvaluator evaluator(p, study.site, study.economics);
-    StorageMilp model(study, {{&p, &evaluator.acceleration(), c.dod_setpoint, c.min_strings,
-                               c.max_strings}},
-                      days);
+    StorageMilp model(
+        study, {{&p, &evaluator.acceleration(), c.dod_setpoint, c.min_strings, c.max_strings}},
+        days);
     const SolveReport r = model.solve(MilpOptions{});
     REQUIRE(r.outcome == SolveOutcome::Optimal);
     CHECK(r.strings >= c.min_strings);
@@ -129,8 +128,7 @@ TEST_CASE("the decomposed sub-models reach the monolithic model's optimum",
   CHECK(best == Approx(monolithic).epsilon(1e-7));
 }
 
-TEST_CASE("moving a sub-model to another setpoint equals building it afresh",
-          "[optimiser][milp]") {
+TEST_CASE("moving a sub-model to another setpoint equals building it afresh", "[optimiser][milp]") {
   const Study study = small_study();
   const ChemistryProfile& p = study.profiles[0];
   LifecycleEvaluator evaluator(p, study.site, study.economics);
@@ -161,8 +159,8 @@ TEST_CASE("CBC and HiGHS reach GLPK's optimum of the exported model",
   char objective[64];
   std::snprintf(objective, sizeof objective, "%.12g", glpk);
   const std::string command = std::string("/usr/bin/python3 ") + STOWAGE_SOURCE_DIR +
-                              "/tests/optimiser/check_exported_model.py " + objective + " " +
-                              mps + " " + lp;
+                              "/tests/optimiser/check_exported_model.py " + objective + " " + mps +
+                              " " + lp;
   const int rc = std::system(command.c_str());
   std::remove(mps.c_str());
   std::remove(lp.c_str());
