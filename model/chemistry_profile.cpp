@@ -65,6 +65,9 @@ void ChemistryProfile::validate() const {
           "costs.price_decline_per_year", "must be in [0, 1)");
   require(std::isfinite(costs.end_of_life_per_kwh), "costs.end_of_life_per_kwh",
           "must be a number");
+  require(!costs.replacement_end_of_life_per_kwh ||
+              std::isfinite(*costs.replacement_end_of_life_per_kwh),
+          "costs.replacement_end_of_life_per_kwh", "must be a number");
   require(!cell_mass_kg || positive(*cell_mass_kg), "cell.mass_kg", "must be positive");
   require(!cell_volume_l || positive(*cell_volume_l), "cell.volume_l", "must be positive");
 }

@@ -30,6 +30,9 @@ struct ProfileCosts {
   double replacement_share = 1.0;     // replacement price / initial price (capital + install)
   double price_decline_per_year = 0;  // real annual decline of the replacement price, [0, 1)
   double end_of_life_per_kwh = 0;     // disposal cost (> 0) or salvage value (< 0) per kWh
+  // End-of-life cost per kWh of the part removed at a replacement, when it differs from a whole
+  // bank's (a flow battery keeps its electrolyte); unset: end_of_life_per_kwh.
+  std::optional<double> replacement_end_of_life_per_kwh;
 };
 
 // Extra ageing when a bank goes too long without a full charge (sulfation of lead-acid).

@@ -36,6 +36,8 @@ void SiteConditions::validate() const {
     throw InvalidValue("charger_efficiency", "must be in (0, 1]");
   if (!(inverter_efficiency > 0 && inverter_efficiency <= 1))
     throw InvalidValue("inverter_efficiency", "must be in (0, 1]");
+  if (!(source_to_load_efficiency > 0 && source_to_load_efficiency <= 1))
+    throw InvalidValue("source_to_load_efficiency", "must be in (0, 1]");
   if (backup_price_per_kwh && !(*backup_price_per_kwh >= 0))
     throw InvalidValue("backup.price_per_kwh", "must be >= 0");
   if (unserved_limit_fraction && !(*unserved_limit_fraction >= 0 && *unserved_limit_fraction <= 1))

@@ -3,7 +3,7 @@
 // conversion chain and what happens to energy the bank cannot give.
 //
 // Energy flow each hour (1 h steps, so kW and kWh per hour are the same number):
-//   source_kw serves load_kw directly; the surplus passes the charger (charger_efficiency) into
+//   source_kw serves load_kw directly (source_to_load_efficiency of it arrives); the surplus passes the charger (charger_efficiency) into
 //   the bank; a deficit is drawn from the bank through the inverter (inverter_efficiency); what
 //   the bank cannot give is met by back-up (if backup_price_per_kwh is set) or left unserved.
 // The same form covers an off-grid PV site (source = PV output, price 0 or export value) and a
@@ -31,6 +31,10 @@ struct SiteConditions {
   double design_margin = 1.0;                     // sizing margin on the autonomy energy, >= 1
   double charger_efficiency = 1;                  // (0, 1]
   double inverter_efficiency = 1;                 // (0, 1]
+  // Share of source energy that reaches the load when the source serves it directly: 1 for an
+  // AC-coupled source (grid, AC-coupled PV), charger x inverter for DC-coupled PV that feeds
+  // the load through the charge controller and the inverter. (0, 1].
+  double source_to_load_efficiency = 1;
   std::optional<double> backup_price_per_kwh;     // back-up energy price; unset: no back-up
   std::optional<double> unserved_limit_fraction;  // max unserved / demand over a year
   double unserved_penalty_per_kwh = 0;            // value of lost load, >= 0
