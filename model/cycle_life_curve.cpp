@@ -51,7 +51,13 @@ CycleLifeCurve::CycleLifeCurve(std::vector<CycleLifePoint> points) {
 
 double CycleLifeCurve::cycles_to_end_of_life(double depth) const {
   const double x = std::log(depth);
-  // Segment k spans points k and k+1; outside the table the end segments extend.
+  if (x < log_dod_.front()) {
+    // Below the table: the first segment's slope, but never flatter than constant charge
+    // throughput (slope -1), or ever shallower cycles would do more damage per Ah moved.
+    const double slope = std::min(slope_.front(), -1.0);
+    return std::exp(log_cycles_.front() + slope * (x - log_dod_.front()));
+  }
+  // Segment k spans points k and k+1; above the table the last segment extends.
   std::size_t k = 0;
   const std::size_t last = slope_.size() - 1;
   while (k < last && x > log_dod_[k + 1]) ++k;

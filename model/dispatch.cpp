@@ -21,22 +21,10 @@ HourlyFactors hourly_factors(const ChemistryProfile& profile, const SiteConditio
   return f;
 }
 
-namespace {
-
-// Charge (Ah) drawn from the cells for a terminal current `amps` held one hour, with the
-// Peukert rate effect above the rated current and no credit below it.
-inline double peukert_ah(double amps, double rated_amps, double k_minus_1) {
-  if (k_minus_1 == 0 || amps <= rated_amps) return amps;
-  return amps * std::pow(amps / rated_amps, k_minus_1);
+double peukert_capacity_factor(double amps, double rated_amps, double exponent) {
+  if (exponent == 1.0 || amps <= rated_amps) return 1.0;
+  return std::pow(rated_amps / amps, exponent - 1.0);
 }
-
-// Inverse of peukert_ah: the current whose one-hour draw is `ah`.
-inline double peukert_current(double ah, double rated_amps, double k_minus_1) {
-  if (k_minus_1 == 0 || ah <= rated_amps) return ah;
-  return std::pow(ah * std::pow(rated_amps, k_minus_1), 1.0 / (k_minus_1 + 1.0));
-}
-
-}  // namespace
 
 YearDispatch dispatch_year(const DispatchInputs& in, DispatchState& state,
                            std::vector<double>& soc_trace) {
@@ -47,13 +35,13 @@ YearDispatch dispatch_year(const DispatchInputs& in, DispatchState& state,
   const HourlyFactors& hf = in.factors != nullptr ? *in.factors : local;
 
   const double rated_ah = in.bank.capacity_ah;
-  const double faded_ah = rated_ah * in.health;
+  const double q_ah = rated_ah * in.health;  // charge held between SOC 0 and 1
   const double v_charge = in.bank.cells_series * p.mean_charge_v;
   const double v_discharge = in.bank.cells_series * p.mean_discharge_v;
-  const double floor_soc = 1.0 - in.dod_setpoint;
+  const double dod = in.dod_setpoint;
   const double keep_per_hour = std::pow(1.0 - p.self_discharge_per_month, 1.0 / kHoursPerMonth);
   const double rated_amps = rated_ah / p.capacity_rate_hours;
-  const double k_minus_1 = p.peukert_exponent - 1.0;
+  const double peukert_k = p.peukert_exponent;
   const double eta_coulomb = p.coulombic_efficiency;
   const double eta_charger = site.charger_efficiency;
   const double eta_inverter = site.inverter_efficiency;
@@ -74,23 +62,23 @@ YearDispatch dispatch_year(const DispatchInputs& in, DispatchState& state,
   YearDispatch y;
 
   for (std::size_t h = 0; h < static_cast<std::size_t>(kHoursPerYear); ++h) {
-    const double q_ah = faded_ah * hf.capacity_factor[h];  // effective capacity this hour
+    // The window this hour: from full down to 1 - DoD x f_T. Cold narrows it (the charge below
+    // stays in the cells and comes back when the bank warms up); heat may widen it.
+    const double window = dod * hf.capacity_factor[h];
     soc *= keep_per_hour;
-    const double load = site.load_kw[h];
-    const double source = site.source_kw[h];
-    const double direct = std::min(load, source);
-    y.demand_kwh += load;
-    y.source_to_load_kwh += direct;
-    const double surplus = source - direct;
-    const double deficit = load - direct;
+    const HourBalance balance = hour_balance(site, h);
+    const double surplus = balance.surplus_kwh;
+    const double deficit = balance.deficit_kwh;
+    y.demand_kwh += site.load_kw[h];
+    y.source_to_load_kwh += balance.direct_kwh;
 
     if (surplus > 0) {
       double to_terminals = 0;  // kWh
       if (hf.can_charge[h] && soc < 1.0) {
-        // Terminal energy that fills the headroom, given the coulombic loss.
+        // Terminal charge that fills the headroom, given the coulombic loss.
         const double headroom_ah = (1.0 - soc) * q_ah / eta_coulomb;
-        const double amps =
-            std::min({surplus * eta_charger * 1000.0 / v_charge, max_charge_amps, headroom_ah});
+        const double amps = std::min(
+            {surplus * eta_charger * 1000.0 / v_charge, max_charge_amps, headroom_ah});
         to_terminals = amps * v_charge / 1000.0;
         soc += amps * eta_coulomb / q_ah;
         if (soc > 1.0) soc = 1.0;
@@ -102,23 +90,40 @@ YearDispatch dispatch_year(const DispatchInputs& in, DispatchState& state,
       y.curtailed_kwh += surplus - drawn;
     } else if (deficit > 0) {
       double delivered = 0;
-      if (hf.can_discharge[h] && soc > floor_soc) {
+      if (hf.can_discharge[h]) {
         const double wanted_amps = deficit / eta_inverter * 1000.0 / v_discharge;
+        // Peukert: at a current I above the rated current the cells reach cut-off after
+        // C (I_r / I)^(k-1) Ah, so the window shrinks by that factor. The charge is not lost:
+        // a lower current later can still draw it.
+        auto room_ah = [&](double amps) {
+          const double floor_soc =
+              1.0 - window * peukert_capacity_factor(amps, rated_amps, peukert_k);
+          return (soc - std::max(0.0, floor_soc)) * q_ah;
+        };
         double amps = std::min(wanted_amps, max_discharge_amps);
-        double drawn_ah = peukert_ah(amps, rated_amps, k_minus_1);
-        const double available_ah = (soc - floor_soc) * q_ah;
-        if (drawn_ah > available_ah) {
-          drawn_ah = available_ah;
-          amps = peukert_current(available_ah, rated_amps, k_minus_1);
+        if (room_ah(amps) < amps) {
+          // room_ah(a) - a falls as a grows; find where it crosses zero.
+          const double slow = room_ah(0.0);
+          if (slow <= rated_amps || peukert_k == 1.0) {
+            amps = std::max(0.0, std::min(amps, slow));
+          } else {
+            double lo = rated_amps, hi = amps;
+            for (int i = 0; i < 50; ++i) {
+              const double mid = 0.5 * (lo + hi);
+              (room_ah(mid) >= mid ? lo : hi) = mid;
+            }
+            amps = lo;
+          }
         }
-        const double out_kwh = amps * v_discharge / 1000.0;
-        const double depth = drawn_ah / q_ah;
-        soc -= depth;
-        if (soc < floor_soc) soc = floor_soc;
-        delivered = out_kwh * eta_inverter;
-        y.discharged_terminal_kwh += out_kwh;
-        y.delivered_kwh += delivered;
-        y.equivalent_full_cycles += depth;
+        if (amps > 0) {
+          const double out_kwh = amps * v_discharge / 1000.0;
+          const double depth = amps / q_ah;
+          soc -= depth;
+          delivered = out_kwh * eta_inverter;
+          y.discharged_terminal_kwh += out_kwh;
+          y.delivered_kwh += delivered;
+          y.equivalent_full_cycles += depth;
+        }
       }
       const double shortfall = deficit - delivered;
       if (shortfall > 1e-12) {

@@ -1,17 +1,22 @@
 // SPDX-License-Identifier: MIT
 // Hourly dispatch of one bank over one year (8760 one-hour steps).
 //
-// State: SOC as a fraction of the effective capacity Q_eff = capacity_ah x health x f_T(T_h),
-// with f_T the profile's available-capacity factor at the hour's temperature; the SOC window is
-// [1 - dod_setpoint, 1]. Each hour, in this order:
+// State: SOC as a fraction of the charge the bank holds when full, Q = capacity_ah x health.
+// Stored charge only changes by charging, discharging and self-discharge, never by
+// temperature. The DoD window of the hour is [1 - dod_setpoint x f_T(T_h), 1], with f_T the
+// profile's available-capacity factor: cold makes part of the charge unreachable until the
+// bank warms up. Each hour, in this order:
 //   1. self-discharge: SOC *= (1 - s_month)^(1/730);
-//   2. net = source - load. Surplus: the charger passes surplus x charger_efficiency to the
-//      bank terminals, limited by max_charge_c_rate x Q_eff x V_charge and by headroom; the
-//      stored charge is E_in / V_charge x coulombic_efficiency; source energy not taken is
-//      curtailed. Charging only within the profile's charge temperature limits.
+//   2. the source serves the load directly; source_to_load_efficiency of what it gives arrives.
+//      Surplus: the charger passes surplus x charger_efficiency to the bank terminals, limited
+//      by max_charge_c_rate x rated capacity x V_charge and by the headroom; the stored charge
+//      is E_in / V_charge x coulombic_efficiency; source energy not taken is curtailed.
+//      Charging only within the profile's charge temperature limits.
 //   3. Deficit: the bank gives at its terminals up to deficit / inverter_efficiency, limited by
-//      max_discharge_c_rate x Q_eff x V_discharge and by the charge above the floor, with the
-//      Peukert factor (I H / C)^(k-1) (>= 1) on the charge drawn; discharge only within the
+//      max_discharge_c_rate x rated capacity x V_discharge and by the charge above the window's
+//      floor. Peukert's law shortens the window at currents I above the rated current C/H:
+//      the cells reach cut-off after C (C / (I H))^(k-1) Ah, so the floor at current I is
+//      1 - dod x f_T x (I_r / I)^(k-1); the charge drawn is I x 1 h. Discharge only within the
 //      operating temperature limits. The remaining deficit goes to back-up or unserved.
 // V_charge and V_discharge are the profile's mean cell voltages times cells in series.
 // Energy figures are in kWh; "terminal" means at the bank's DC terminals.
@@ -42,9 +47,13 @@ struct YearDispatch {
   double backup_kwh = 0;
   double unserved_kwh = 0;
   double curtailed_kwh = 0;
-  double equivalent_full_cycles = 0;      // sum of SOC decrease by discharge (fractions)
+  double equivalent_full_cycles = 0;      // sum of SOC decreases by discharge (fractions of Q)
   double partial_charge_excess_days = 0;  // days beyond the grace period without full charge
 };
+
+// Share of the rated capacity the cells give before cut-off at a constant current `amps`
+// (Peukert's law in the form C(I) = C (I_r / I)^(k-1), I_r = C / H); 1 at or below I_r.
+double peukert_capacity_factor(double amps, double rated_amps, double exponent);
 
 // Per-hour quantities that depend only on the profile and the site, computed once per pair so
 // that many designs and years reuse them.

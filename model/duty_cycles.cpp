@@ -42,9 +42,10 @@ DutyDamage duty_damage(const ChemistryProfile& profile, const DutyCycleSummary& 
     const double accel = b > a ? (prefix[b] - prefix[a]) / static_cast<double>(b - a) : 1.0;
     d.cycle += c.count * accel * profile.cycle_life.damage_per_cycle(c.depth);
   }
-  // Each sample stands for one logging interval; the calendar clock runs over all of them.
   d.series_hours = static_cast<double>(samples > 0 ? samples - 1 : 0) * hours_per_sample;
-  const double mean_accel = samples > 0 ? prefix[samples] / static_cast<double>(samples) : 1.0;
+  // Each sample stands for the interval that follows it; the last closes the log.
+  const double mean_accel =
+      samples > 1 ? prefix[samples - 1] / static_cast<double>(samples - 1) : 1.0;
   d.calendar = d.series_hours * mean_accel / (profile.calendar_life_years * kHoursPerYear);
   const double total = d.total();
   if (total >= 1.0 || !(total > 0) || !(d.series_hours > 0)) {

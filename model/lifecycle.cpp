@@ -13,6 +13,8 @@ namespace {
 // Damage within this of 1 counts as end of life: hourly sums of a year's calendar damage
 // carry rounding of the order of 1e-13.
 constexpr double kEndOfLifeTolerance = 1e-9;
+// Guards the integer count of banks replaced in one year against absurd inputs.
+constexpr double kMaxReplacementsPerYear = 1e6;
 }  // namespace
 
 double DesignResult::mean_discharged_kwh_per_year() const {
@@ -47,6 +49,8 @@ DesignResult LifecycleEvaluator::evaluate(double dod_setpoint, int strings_paral
   r.investment = c.capital_per_kwh * nameplate + c.capital_per_string * strings_parallel +
                  c.installation_fixed;
   const double end_of_life_cost = c.end_of_life_per_kwh * nameplate;
+  const double replacement_end_of_life_cost =
+      c.replacement_end_of_life_per_kwh.value_or(c.end_of_life_per_kwh) * nameplate;
   const double demand = site.annual_demand_kwh();
 
   DispatchInputs in;
@@ -60,6 +64,7 @@ DesignResult LifecycleEvaluator::evaluate(double dod_setpoint, int strings_paral
   double damage = 0;                 // of the bank in service
   int age_years = 0;                 // of the bank in service
   double bank_price = r.investment;  // what the bank in service cost when installed
+  double final_year = econ.project_years + 1.0;  // when the last bank's end-of-life flow falls
   CostBreakdown& pv = r.present_value;
   pv.investment = r.investment;
   r.years.reserve(static_cast<std::size_t>(econ.project_years));
@@ -90,13 +95,19 @@ DesignResult LifecycleEvaluator::evaluate(double dod_setpoint, int strings_paral
     const bool too_old = p.max_service_years && static_cast<double>(age_years) >=
                                                     *p.max_service_years - kEndOfLifeTolerance;
     if ((worn_out || too_old) && year < econ.project_years) {
-      rec.replaced_at_end = true;
-      rec.replacement =
+      // A bank that wears out several times over in one year (damage 2.4, say) was replaced
+      // twice during it; the wear of the bank that went in last is carried into next year.
+      const double whole = std::floor(damage + kEndOfLifeTolerance);
+      const int banks = worn_out ? static_cast<int>(std::min(whole, kMaxReplacementsPerYear)) : 1;
+      const double price =
           r.investment * c.replacement_share * std::pow(1.0 - c.price_decline_per_year, year);
-      rec.end_of_life = end_of_life_cost;
-      r.replacement_years.push_back(year);
-      bank_price = rec.replacement;
-      damage = 0;
+      rec.replaced_at_end = true;
+      rec.replacements = banks;
+      rec.replacement = banks * price;
+      rec.end_of_life = banks * replacement_end_of_life_cost;
+      for (int i = 0; i < banks; ++i) r.replacement_years.push_back(year);
+      bank_price = price;
+      damage = worn_out ? std::max(0.0, damage - banks) : 0.0;
       age_years = 0;
       state = DispatchState{};
     }
@@ -105,7 +116,12 @@ DesignResult LifecycleEvaluator::evaluate(double dod_setpoint, int strings_paral
       double used = std::min(1.0, damage);
       if (p.max_service_years) used = std::max(used, age_years / *p.max_service_years);
       const double remaining = 1.0 - used;
-      if (remaining > 0) rec.residual_value = -bank_price * remaining;  // a credit
+      if (remaining > 0) {
+        rec.residual_value = -bank_price * remaining;  // a credit
+        // The bank goes on serving: it reaches its end of life when its remaining life, at the
+        // wear rate it has shown, runs out.
+        if (used > 0) final_year = econ.project_years + std::max(1.0, remaining * age_years / used);
+      }
     }
 
     rec.discount_factor = present_worth_factor(econ.real_discount_rate, year);
@@ -118,21 +134,23 @@ DesignResult LifecycleEvaluator::evaluate(double dod_setpoint, int strings_paral
     pv.unserved_penalty += rec.unserved_penalty * df;
     pv.end_of_life += rec.end_of_life * df;
     pv.residual_value += rec.residual_value * df;
-    r.discounted_discharged_kwh += rec.dispatch.discharged_terminal_kwh * df;
+    r.discounted_delivered_kwh += rec.dispatch.delivered_kwh * df;
     if (demand > 0)
       r.unserved_fraction_max =
           std::max(r.unserved_fraction_max, rec.dispatch.unserved_kwh / demand);
     r.years.push_back(rec);
   }
 
-  // End of life of the last bank one year after the last operating year (Schmidt et al. 2019).
+  // End of life of the last bank: one year after the last operating year when it is worn out
+  // with the project (Schmidt et al. 2019), later when it has life left (see above).
   r.final_end_of_life = end_of_life_cost;
-  r.final_discount_factor = present_worth_factor(econ.real_discount_rate, econ.project_years + 1);
+  r.final_end_of_life_year = final_year;
+  r.final_discount_factor = present_worth_factor(econ.real_discount_rate, final_year);
   pv.end_of_life += end_of_life_cost * r.final_discount_factor;
 
   r.npc = pv.total();
-  r.lcos_per_kwh = r.discounted_discharged_kwh > 0
-                       ? pv.storage_total() / r.discounted_discharged_kwh
+  r.lcos_per_kwh = r.discounted_delivered_kwh > 0
+                       ? pv.storage_total() / r.discounted_delivered_kwh
                        : std::numeric_limits<double>::infinity();
   r.meets_unserved_limit = !site.unserved_limit_fraction ||
                            r.unserved_fraction_max <= *site.unserved_limit_fraction + 1e-12;

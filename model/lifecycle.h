@@ -6,16 +6,20 @@
 // Conventions (docs/method.md gives the derivation and sources):
 // - Year 0: investment I0 = capital_per_kwh x nameplate + capital_per_string x strings
 //   + installation_fixed. Years 1..N: operating flows, each discounted at the end of its year.
-// - Each year runs with the health reached at the start of that year. When accumulated damage
-//   reaches 1 (or the bank reaches max_service_years) at the end of year y < N, the bank is
-//   replaced at the end of year y at I0 x replacement_share x (1 - price_decline)^y, plus the
-//   end-of-life cost of the old bank; the new bank starts full and undamaged.
-// - End of life of the bank in service at project end: discounted at N + 1 (Schmidt et al.
-//   2019). Residual value: the price paid for that bank x remaining life fraction
-//   (1 - max(D, age / max_service_years)), credited at N.
+// - Each year runs with the health reached at its start. When accumulated damage reaches 1
+//   (or the bank reaches max_service_years) at the end of year y < N, the bank is replaced at
+//   the end of year y at I0 x replacement_share x (1 - price_decline)^y, plus the end-of-life
+//   cost of what is removed; the new bank starts full. A bank whose damage passed 1 by more than
+//   a whole life within the year counts as floor(D) replacements, and the wear beyond them is
+//   carried into the new bank.
+// - Residual value of the bank in service at project end: its price x remaining life fraction
+//   (1 - max(D, age / max_service_years)), credited at N. Its end-of-life flow falls at N + 1
+//   (Schmidt et al. 2019) when it is worn out with the project, otherwise when its remaining
+//   life runs out at the wear rate it has shown (never before N + 1).
 // - LCOS (Schmidt, Melchior, Hawkes & Staffell 2019, Joule 3:81-100) = present value of the
 //   storage costs (investment, replacements, O&M, charging energy, end of life, minus residual)
-//   / present value of the energy discharged at the bank terminals.
+//   / present value of the energy the storage delivers after the inverter. Charging energy is
+//   priced where it is drawn, before the charger, so both sides sit at the same boundary.
 // - NPC = storage costs + back-up energy + unserved-energy penalty (present values): the
 //   lifecycle cost of serving the site, which the optimiser minimises.
 #pragma once
@@ -59,6 +63,8 @@ struct YearRecord {
   double damage_cycle = 0, damage_calendar = 0, damage_partial_charge = 0;
   double damage_end = 0;  // accumulated damage of the bank in service at year end
   bool replaced_at_end = false;
+  int replacements = 0;          // banks replaced at the end of this year (more than 1 when the
+                                 // bank wears out several times over within the year)
   YearDispatch dispatch;
   double fixed_om = 0, variable_om = 0, charging = 0, backup = 0, unserved_penalty = 0;
   double replacement = 0, end_of_life = 0, residual_value = 0;
@@ -77,12 +83,13 @@ struct DesignResult {
   std::vector<int> replacement_years;
   std::vector<YearRecord> years;
   double investment = 0;             // year 0
-  double final_end_of_life = 0;      // year N + 1, undiscounted
-  double final_discount_factor = 1;  // P/F at N + 1
+  double final_end_of_life = 0;       // end-of-life flow of the last bank, undiscounted
+  double final_end_of_life_year = 0;  // N + 1, or later when that bank has life left
+  double final_discount_factor = 1;   // P/F at final_end_of_life_year
   CostBreakdown present_value;
   double npc = 0;
   double lcos_per_kwh = 0;
-  double discounted_discharged_kwh = 0;
+  double discounted_delivered_kwh = 0;  // LCOS denominator: energy after the inverter
   double unserved_fraction_max = 0;  // worst year unserved / demand
   bool meets_unserved_limit = true;
 

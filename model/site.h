@@ -45,6 +45,28 @@ struct SiteConditions {
   double annual_demand_kwh() const;
 };
 
+// What the source does for the load in hour h, before the bank: `direct_kwh` of load served
+// straight from the source (source_to_load_efficiency of the source energy used arrives), the
+// `surplus_kwh` of source energy left for charging, and the `deficit_kwh` of load left for the
+// bank or back-up. At most one of surplus and deficit is positive.
+struct HourBalance {
+  double direct_kwh = 0;
+  double surplus_kwh = 0;
+  double deficit_kwh = 0;
+};
+inline HourBalance hour_balance(const SiteConditions& site, std::size_t h) {
+  const double load = site.load_kw[h];
+  const double source = site.source_kw[h];
+  const double eta = site.source_to_load_efficiency;
+  const double used = source * eta >= load ? load / eta : source;
+  HourBalance b;
+  b.direct_kwh = used * eta;
+  b.surplus_kwh = source - used;
+  b.deficit_kwh = load - b.direct_kwh;
+  if (b.deficit_kwh < 1e-15) b.deficit_kwh = 0;  // rounding of load / eta * eta
+  return b;
+}
+
 // Monthly means used by autonomy sizing, months of 730 h (hours 0-729 are month 1, ...);
 // index 0..11.
 struct MonthlyMeans {

@@ -10,6 +10,9 @@ namespace stowage {
 
 namespace {
 
+// More strings than this is not a bank but an input mistake (and would overflow an int).
+constexpr double kMaxStringsParallel = 1e6;
+
 struct DesignCondition {
   double daily_load_kwh;
   double coldest_temp_c;
@@ -59,6 +62,12 @@ AutonomySizing size_for_autonomy(const ChemistryProfile& profile, const SiteCond
   s.required_nameplate_kwh = required_ah * s.cells_series * profile.cell_nominal_v / 1000.0;
   // The small tolerance keeps an exact fit (e.g. 2.0000000001 strings) from rounding up.
   const double strings = std::ceil(required_ah / profile.cell_capacity_ah - 1e-9);
+  if (!(strings <= kMaxStringsParallel))
+    throw InvalidValue("strings_parallel",
+                       "autonomy would need " + std::to_string(strings) +
+                           " strings in parallel of cells of " +
+                           std::to_string(profile.cell_capacity_ah) +
+                           " Ah; check the cell capacity against the load");
   s.strings_parallel = std::max(1, static_cast<int>(strings));
   return s;
 }

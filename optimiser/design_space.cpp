@@ -108,7 +108,7 @@ DesignSpace build_design_space(const Study& study) {
   const SiteConditions& site = study.site;
   double peak = 0;
   for (std::size_t h = 0; h < site.load_kw.size(); ++h) {
-    peak = std::max(peak, site.load_kw[h] - site.source_kw[h]);
+    peak = std::max(peak, hour_balance(site, h).deficit_kwh);
   }
   space.peak_discharge_terminal_kw = peak / site.inverter_efficiency;
   const SearchSpace& s = study.search;

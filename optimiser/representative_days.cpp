@@ -25,8 +25,9 @@ RepresentativeDays select_representative_days(const SiteConditions& site, int da
   double load_total = 0;
   for (int d = 0; d < kDays; ++d) {
     for (int h = 24 * d; h < 24 * d + 24; ++h) {
-      const double net = site.source_kw[h] - site.load_kw[h];
-      (net >= 0 ? surplus[d] : deficit[d]) += std::fabs(net);
+      const HourBalance b = hour_balance(site, static_cast<std::size_t>(h));
+      surplus[d] += b.surplus_kwh;
+      deficit[d] += b.deficit_kwh;
       load_total += site.load_kw[h];
     }
     month_of[d] = std::min(11, static_cast<int>((24 * d + 12) / kHoursPerMonth));

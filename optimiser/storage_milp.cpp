@@ -137,9 +137,9 @@ StorageMilp::StorageMilp(const Study& study, std::vector<MilpChoice> choices,
   double weighted_deficit = 0, weighted_load = 0;
   for (int t = 0; t < H; ++t) {
     const int h = hour_of[t];
-    const double net = site.source_kw[h] - site.load_kw[h];
-    surplus[t] = std::max(0.0, net);
-    m.hour_deficit[t] = std::max(0.0, -net);
+    const HourBalance b = hour_balance(site, static_cast<std::size_t>(h));
+    surplus[t] = b.surplus_kwh;
+    m.hour_deficit[t] = b.deficit_kwh;
     price[t] = site.charge_price_per_kwh[h];
     weighted_deficit += m.hour_weight[t] * m.hour_deficit[t];
     weighted_load += m.hour_weight[t] * site.load_kw[h];
