@@ -62,6 +62,7 @@ void write_design_json(JsonWriter& json, const DesignResult& d) {
   json.end_array();
   json.field("discharged_kwh_per_year", d.mean_discharged_kwh_per_year());
   json.field("discharged_kwh_first_year", d.discharged_kwh_first_year());
+  json.field("delivered_kwh_first_year", d.years.front().dispatch.delivered_kwh);
   json.field("unserved_kwh_first_year", d.unserved_kwh_first_year());
   json.field("backup_kwh_first_year", d.backup_kwh_first_year());
   json.field("equivalent_full_cycles_first_year", d.equivalent_full_cycles_first_year());
@@ -105,10 +106,10 @@ void print_design_table(std::ostream& out, const DesignResult& d) {
     fmt::print(out, "    {:<32}{:>14}\n", item.label, format_amount(v));
   }
   fmt::print(out, "    {:<32}{:>14}\n", "net present cost", format_amount(d.npc));
-  fmt::print(
-      out,
-      "  LCOS          {:.4f} {}/kWh discharged (storage costs / discounted discharged energy)\n",
-      d.lcos_per_kwh, d.currency);
+  fmt::print(out,
+             "  LCOS          {:.4f} {}/kWh delivered (storage costs / discounted energy delivered "
+             "after the inverter)\n",
+             d.lcos_per_kwh, d.currency);
 }
 
 std::string designs_summary_csv(const std::vector<DesignResult>& designs) {
@@ -164,8 +165,8 @@ std::string cash_flows_csv(const std::vector<DesignResult>& designs) {
           << csv_number(y.discount_factor) << ',' << csv_number(y.total() * y.discount_factor)
           << "\n";
     }
-    // Year N + 1: end of life of the bank in service at the end of the project.
-    const int last = static_cast<int>(d.years.size()) + 1;
+    // Year N + 1, or later when that bank has life left: its end of life.
+    const std::string last = csv_number(d.final_end_of_life_year);
     const double df_last = d.final_discount_factor;
     out << id << ',' << last << ",,,,,,,,,,,,0,0,0,0,0,0,0," << csv_number(d.final_end_of_life)
         << ",0," << csv_number(d.final_end_of_life) << ',' << csv_number(df_last) << ','
