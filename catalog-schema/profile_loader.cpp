@@ -210,6 +210,8 @@ LoadedProfile build_profile(const YamlDocument& doc) {
   read_optional(costs, "replacement_share", profile.costs.replacement_share);
   read_optional(costs, "price_decline_per_year", profile.costs.price_decline_per_year);
   read_optional(costs, "end_of_life_per_kwh", profile.costs.end_of_life_per_kwh);
+  read_optional(costs, "replacement_end_of_life_per_kwh",
+                profile.costs.replacement_end_of_life_per_kwh);
 
   loaded.sources = read_sources(doc, p["sources"]);
   loaded.id_at = position_of(doc, "profile.id");

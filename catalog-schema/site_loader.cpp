@@ -33,6 +33,9 @@ LoadedSite build_site(const YamlDocument& doc, const std::string& base_dir) {
   if (s["design_margin"]) site.design_margin = number(s["design_margin"]);
   site.charger_efficiency = number(s["charger_efficiency"]);
   site.inverter_efficiency = number(s["inverter_efficiency"]);
+  if (s["source_to_load_efficiency"]) {
+    site.source_to_load_efficiency = number(s["source_to_load_efficiency"]);
+  }
   if (const YAML::Node backup = s["backup"]) {
     site.backup_price_per_kwh = number(backup["price_per_kwh"]);
   }

@@ -88,6 +88,8 @@ TEST_CASE("a complete profile loads every field into the model", "[catalog][prof
   CHECK(p.costs.replacement_share == 0.9);
   CHECK(p.costs.price_decline_per_year == 0.03);
   CHECK(p.costs.end_of_life_per_kwh == -5);
+  REQUIRE(p.costs.replacement_end_of_life_per_kwh);
+  CHECK(*p.costs.replacement_end_of_life_per_kwh == 3);
   CHECK(loaded.sources.size() == 4);
   CHECK(loaded.sources.at("cell") == "common practice");
   // Positions kept for cross-file errors: id on line 5, currency on line 39 of the fixture.
@@ -121,6 +123,7 @@ TEST_CASE("a minimal profile gets the documented defaults", "[catalog][profile]"
   CHECK(p.costs.replacement_share == 1);
   CHECK(p.costs.price_decline_per_year == 0);
   CHECK(p.costs.end_of_life_per_kwh == 0);
+  CHECK_FALSE(p.costs.replacement_end_of_life_per_kwh);  // end_of_life_per_kwh applies
 }
 
 TEST_CASE("a missing required field is named with its full path", "[catalog][profile][bad]") {
@@ -150,6 +153,29 @@ TEST_CASE("a value of the wrong type is refused", "[catalog][profile][bad]") {
     CHECK_THAT(profile_error(text, "capacity_ah", "profile.cell.capacity_ah"),
                Catch::Contains("finite"));
   }
+}
+
+TEST_CASE("the end-of-life cost at a replacement may differ from the project's end",
+          "[catalog][profile]") {
+  // Test values: a salvage credit for the whole bank, a disposal cost for what a replacement
+  // removes (the flow-battery case: stacks out, electrolyte kept).
+  const std::string salvage = replace_once(full_profile(), "replacement_end_of_life_per_kwh: 3",
+                                           "replacement_end_of_life_per_kwh: -2.5");
+  const ChemistryProfile p = load_text(salvage).profile;
+  CHECK(p.costs.end_of_life_per_kwh == -5);
+  REQUIRE(p.costs.replacement_end_of_life_per_kwh);
+  CHECK(*p.costs.replacement_end_of_life_per_kwh == -2.5);  // negative = salvage, allowed
+
+  const std::string quoted = replace_once(full_profile(), "replacement_end_of_life_per_kwh: 3",
+                                          "replacement_end_of_life_per_kwh: \"3\"");
+  CHECK_THAT(profile_error(quoted, "replacement_end_of_life_per_kwh",
+                           "profile.costs.replacement_end_of_life_per_kwh"),
+             Catch::Contains("remove the quotes"));
+  const std::string nan = replace_once(full_profile(), "replacement_end_of_life_per_kwh: 3",
+                                       "replacement_end_of_life_per_kwh: .nan");
+  CHECK_THAT(profile_error(nan, "replacement_end_of_life_per_kwh",
+                           "profile.costs.replacement_end_of_life_per_kwh"),
+             Catch::Contains("finite"));
 }
 
 TEST_CASE("a negative capacity is refused", "[catalog][profile][bad]") {

@@ -124,6 +124,8 @@ TEST_CASE("schema defaults are the values an absent field gets", "[catalog][sche
         schema_default("profile", "profile.costs.end_of_life_per_kwh"));
   const SiteConditions defaults;
   CHECK(defaults.design_margin == schema_default("site", "site.design_margin"));
+  CHECK(defaults.source_to_load_efficiency ==
+        schema_default("site", "site.source_to_load_efficiency"));
   CHECK(defaults.unserved_penalty_per_kwh ==
         schema_default("site", "site.unserved.penalty_per_kwh"));
 }

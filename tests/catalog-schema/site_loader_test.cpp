@@ -38,6 +38,7 @@ TEST_CASE("a site file loads with its hourly CSV", "[catalog][site]") {
   CHECK(s.design_margin == 1.1);
   CHECK(s.charger_efficiency == 0.96);
   CHECK(s.inverter_efficiency == 0.93);
+  CHECK(s.source_to_load_efficiency == 0.8928);
   REQUIRE(s.backup_price_per_kwh);
   CHECK(*s.backup_price_per_kwh == 0.62);
   REQUIRE(s.unserved_limit_fraction);
@@ -54,8 +55,11 @@ TEST_CASE("optional site blocks keep the model defaults", "[catalog][site]") {
   std::string text = replace_once(site_text(), "  design_margin: 1.1\n", "");
   text = replace_once(text, "  backup:\n    price_per_kwh: 0.62\n", "");
   text = replace_once(text, "  unserved:\n    limit_fraction: 0.001\n    penalty_per_kwh: 2\n", "");
+  text = replace_once(text, "  source_to_load_efficiency: 0.8928   # DC-coupled PV: 0.96 x 0.93\n",
+                      "");
   const SiteConditions s = load_text(text).site;
   CHECK(s.design_margin == 1.0);
+  CHECK(s.source_to_load_efficiency == 1.0);  // an AC-coupled source
   CHECK_FALSE(s.backup_price_per_kwh);
   CHECK_FALSE(s.unserved_limit_fraction);
   CHECK(s.unserved_penalty_per_kwh == 0);
@@ -89,6 +93,17 @@ TEST_CASE("site errors name the site file, CSV errors the CSV", "[catalog][site]
         replace_once(site_text(), "charger_efficiency: 0.96", "charger_efficiency: 1.2");
     expect_input_error([&] { load_text(text); }, kName, line_of(text, "charger_efficiency"),
                        "site.charger_efficiency");
+  }
+  SECTION("a source-to-load efficiency outside (0, 1]") {
+    for (const std::string bad : {"1.05", "0", "-0.9"}) {
+      INFO("source_to_load_efficiency: " << bad);
+      const std::string text = replace_once(site_text(), "source_to_load_efficiency: 0.8928",
+                                            "source_to_load_efficiency: " + bad);
+      const InputError e = expect_input_error([&] { load_text(text); }, kName,
+                                              line_of(text, "source_to_load_efficiency"),
+                                              "site.source_to_load_efficiency");
+      CHECK_THAT(e.message(), Catch::Contains(bad == "1.05" ? "must be <= 1" : "must be > 0"));
+    }
   }
   SECTION("both charging price forms") {
     const std::string text = replace_once(site_text(), "    per_kwh: 0.02\n",
