@@ -10,6 +10,7 @@
 #include "catalog-schema/input_file.h"
 #include "catalog-schema/schema_validator.h"
 #include "catalog-schema/yaml_document.h"
+#include "model/bank.h"
 #include "model/invalid_value.h"
 
 namespace stowage {
@@ -70,6 +71,20 @@ void read_profiles(const YamlDocument& doc, const std::string& base_dir, LoadedS
                            std::to_string(currency_at.line()) + ":" +
                            std::to_string(currency_at.column()) +
                            "); convert the profile's prices or change the study's currency");
+    }
+    const double bus_v = loaded.study.site.bus_voltage_v;
+    const double mismatch = bus_voltage_mismatch(profile.profile, bus_v);
+    if (mismatch > kMaxBusVoltageMismatch) {
+      const ChemistryProfile& p = profile.profile;
+      const int cells = cells_in_series(p, bus_v);
+      throw doc.error_at(list[i], field,
+                         "cells of " + number_text(p.cell_nominal_v) +
+                             " V cannot make the site's " + number_text(bus_v) +
+                             " V bus: the nearest series string, " + std::to_string(cells) +
+                             " cell" + (cells == 1 ? "" : "s") + ", gives " +
+                             number_text(cells * p.cell_nominal_v) + " V, " +
+                             number_text(std::round(mismatch * 1000) / 10) + " % off (at most " +
+                             number_text(kMaxBusVoltageMismatch * 100) + " %)");
     }
     loaded.profile_paths.push_back(path);
     loaded.study.profiles.push_back(profile.profile);

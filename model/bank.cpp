@@ -12,6 +12,11 @@ int cells_in_series(const ChemistryProfile& profile, double bus_voltage_v) {
   return n < 1 ? 1 : static_cast<int>(n);
 }
 
+double bus_voltage_mismatch(const ChemistryProfile& profile, double bus_voltage_v) {
+  const double bank_v = cells_in_series(profile, bus_voltage_v) * profile.cell_nominal_v;
+  return std::fabs(bank_v - bus_voltage_v) / bus_voltage_v;
+}
+
 BankGeometry bank_geometry(const ChemistryProfile& profile, double bus_voltage_v,
                            int strings_parallel) {
   if (strings_parallel < 1) throw InvalidValue("strings_parallel", "must be at least 1");

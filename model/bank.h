@@ -18,6 +18,12 @@ struct BankGeometry {
 };
 
 int cells_in_series(const ChemistryProfile& profile, double bus_voltage_v);
+
+// |cells_series x cell_nominal_v - bus_voltage_v| / bus_voltage_v: how far the nearest series
+// string is from the bus. Inputs above kMaxBusVoltageMismatch are refused by the loader: such a
+// bank cannot work the bus (chargers and inverters keep to a narrow voltage window).
+double bus_voltage_mismatch(const ChemistryProfile& profile, double bus_voltage_v);
+constexpr double kMaxBusVoltageMismatch = 0.10;
 // Throws InvalidValue("strings_parallel", ...) when strings_parallel < 1.
 BankGeometry bank_geometry(const ChemistryProfile& profile, double bus_voltage_v,
                            int strings_parallel);
