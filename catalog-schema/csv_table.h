@@ -62,6 +62,13 @@ CsvNumberStatus parse_csv_number(const std::string& text, double& value);
 
 // Reads a numeric field and throws InputError (naming `field`, the column name) unless it is a
 // finite number within [min_value, max_value]; `range_hint` is added to a range failure.
+// Battery-space temperatures outside this range are taken for a unit or data mistake (a
+// kelvin or Fahrenheit column, a logger's error code): no battery operates there.
+constexpr double kMinPlausibleTempC = -60.0;
+constexpr double kMaxPlausibleTempC = 90.0;
+constexpr const char* kTempRangeHint =
+    " (a battery-space temperature in degrees Celsius; kelvin or Fahrenheit values?)";
+
 double csv_number(const CsvTable& table, const CsvRow& row, std::size_t index,
                   const std::string& field, double min_value, double max_value,
                   const std::string& range_hint = "");

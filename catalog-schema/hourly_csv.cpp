@@ -121,7 +121,8 @@ HourlySeries read_hourly_csv(std::istream& in, const std::string& source_name) {
     if (rows == hours + 1) first_extra_line = row.line;
     series.load_kw.push_back(csv_number(table, row, *load, "load_kw", 0, kInf));
     series.source_kw.push_back(csv_number(table, row, *source, "source_kw", 0, kInf));
-    series.temp_c.push_back(csv_number(table, row, *temp, "temp_c", -kInf, kInf));
+    series.temp_c.push_back(csv_number(table, row, *temp, "temp_c", kMinPlausibleTempC,
+                                       kMaxPlausibleTempC, kTempRangeHint));
     for (const auto& entry : price_index) {
       series.prices[entry.first].push_back(
           csv_number(table, row, entry.second, entry.first, 0, kInf));

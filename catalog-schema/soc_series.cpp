@@ -86,7 +86,9 @@ SocSeries read_soc_series(std::istream& in, const std::string& source_name) {
     } else {
       series.soc_fraction.push_back(csv_number(table, row, *pct, "soc_pct", 0, 100) / 100.0);
     }
-    if (temp) series.temp_c.push_back(csv_number(table, row, *temp, "temp_c", -kInf, kInf));
+    if (temp)
+      series.temp_c.push_back(csv_number(table, row, *temp, "temp_c", kMinPlausibleTempC,
+                                         kMaxPlausibleTempC, kTempRangeHint));
   }
   if (series.soc_fraction.size() < 2) {
     throw table.error(table.last_line(), 1, soc ? "soc" : "soc_pct",
