@@ -69,12 +69,7 @@ void print_text(const Study& study, const std::vector<DesignResult>& results) {
 void print_json(const Study& study, const std::vector<DesignResult>& results) {
   JsonWriter json;
   json.begin_object();
-  json.field("stowage_version", STOWAGE_VERSION_STRING);
-  json.field("study", study.title);
-  json.field("site", study.site.name);
-  json.field("project_years", study.economics.project_years);
-  json.field("real_discount_rate", study.economics.real_discount_rate);
-  json.field("currency", study.economics.currency);
+  write_study_json(json, study);
   json.key("designs").begin_array();
   for (const auto& d : results) write_design_json(json, d);
   json.end_array();

@@ -172,10 +172,7 @@ void write_number_or_null(JsonWriter& json, const char* key, double v) {
 void print_json(const Study& study, const OptimiseResult& r) {
   JsonWriter json;
   json.begin_object();
-  json.field("stowage_version", STOWAGE_VERSION_STRING);
-  json.field("study", study.title);
-  json.field("site", study.site.name);
-  json.field("currency", study.economics.currency);
+  write_study_json(json, study);
   json.field("method", to_string(r.method));
   json.field("feasible", r.feasible());
   json.key("designs").begin_array();

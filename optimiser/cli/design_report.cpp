@@ -175,6 +175,15 @@ std::string cash_flows_csv(const std::vector<DesignResult>& designs) {
   return out.str();
 }
 
+void write_study_json(JsonWriter& json, const Study& study) {
+  json.field("stowage_version", STOWAGE_VERSION_STRING);
+  json.field("study", study.title);
+  json.field("site", study.site.name);
+  json.field("project_years", study.economics.project_years);
+  json.field("real_discount_rate", study.economics.real_discount_rate);
+  json.field("currency", study.economics.currency);
+}
+
 void print_study_header(std::ostream& out, const Study& study, const std::string& what) {
   fmt::print(out, "stowage {}: {}\n", STOWAGE_VERSION_STRING, what);
   fmt::print(out, "Study: {}\nSite:  {} ({:g} V bus, {} kWh demand a year)\n", study.title,

@@ -29,6 +29,10 @@ void print_design_table(std::ostream& out, const DesignResult& design);
 std::string designs_summary_csv(const std::vector<DesignResult>& designs);
 std::string cash_flows_csv(const std::vector<DesignResult>& designs);
 
+// The opening fields of a JSON report: stowage_version, study, site, project_years,
+// real_discount_rate and currency.
+void write_study_json(JsonWriter& json, const Study& study);
+
 // The opening lines of a report: tool and version, what it does, the study, site and economics.
 void print_study_header(std::ostream& out, const Study& study, const std::string& what);
 
