@@ -33,10 +33,15 @@ int run_guarded(const std::function<int()>& body) {
 }
 
 void add_format_option(CLI::App& command, OutputFormat& format) {
-  const std::map<std::string, OutputFormat> names{{"text", OutputFormat::Text},
-                                                  {"json", OutputFormat::Json}};
-  command.add_option("--format", format, "Output format: text (default) or json")
-      ->transform(CLI::CheckedTransformer(names, CLI::ignore_case));
+  command
+      .add_option_function<std::string>(
+          "--format",
+          [&format](const std::string& name) {
+            format = name == "json" ? OutputFormat::Json : OutputFormat::Text;
+          },
+          "Output format: text (default) or json")
+      ->check(CLI::IsMember({"text", "json"}))
+      ->type_name("FORMAT");
 }
 
 Study load_study_for_cli(const std::string& path) { return load_study_file(path); }
