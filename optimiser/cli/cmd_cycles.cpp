@@ -103,7 +103,8 @@ void register_cycles(CLI::App& app, int& exit_code) {
   cmd->add_option("series", args->series_path,
                   "CSV with a soc (fraction) or soc_pct (percent) column, optional temp_c")
       ->required();
-  cmd->add_option("--profile", args->profile_path, "Chemistry profile (YAML) to age against");
+  cmd->add_option("--profile", args->profile_path, "Chemistry profile (YAML) to age against")
+      ->type_name("FILE");
   cmd->add_option("--hours-per-row", args->hours_per_row, "Logging interval in hours (default 1)")
       ->check(CLI::PositiveNumber);
   cmd->add_option("--bins", args->bins, "Number of depth bins in the histogram (default 10)")

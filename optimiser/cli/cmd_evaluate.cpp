@@ -89,7 +89,8 @@ void register_evaluate(CLI::App& app, int& exit_code) {
   cmd->add_option("study", args->study_path, "Study file (YAML)")->required();
   add_format_option(*cmd, args->format);
   cmd->add_option("--out", args->out_dir,
-                  "Also write designs.csv and cash-flows.csv into this directory");
+                  "Also write designs.csv and cash-flows.csv into this directory")
+      ->type_name("DIR");
   cmd->callback([args, &exit_code]() {
     exit_code = run_guarded([&]() {
       const Study study = load_study_for_cli(args->study_path);

@@ -274,13 +274,15 @@ void register_optimise(CLI::App& app, int& exit_code) {
       ->check(CLI::PositiveNumber);
   cmd->add_option("--export-model", args->export_model,
                   "Write the mixed-integer model of the whole design space (free MPS, or CPLEX "
-                  "LP when FILE ends in .lp)");
+                  "LP when FILE ends in .lp)")
+      ->type_name("FILE");
   cmd->add_option("--days-per-month", args->days_per_month,
                   "Representative consecutive days per month in the model (default 1)")
       ->check(CLI::Range(1, 28));
   add_format_option(*cmd, args->format);
   cmd->add_option("--out", args->out_dir,
-                  "Also write designs.csv and cash-flows.csv of the ranking into this directory");
+                  "Also write designs.csv and cash-flows.csv of the ranking into this directory")
+      ->type_name("DIR");
   cmd->callback([args, &exit_code]() {
     exit_code = run_guarded([&]() {
       const Study study = load_study_for_cli(args->study_path);
