@@ -5,6 +5,7 @@
 #include <cmath>
 #include <limits>
 
+#include "model/costs.h"
 #include "model/invalid_value.h"
 
 namespace stowage {
@@ -38,7 +39,7 @@ DesignResult LifecycleEvaluator::evaluate(double dod_setpoint, int strings_paral
   const ChemistryProfile& p = *profile_;
   const SiteConditions& site = *site_;
   const Economics& econ = *economics_;
-  const ProfileCosts& c = p.costs;
+  const DesignCosts costs(p.costs, bank_geometry(p, site.bus_voltage_v, 1).nameplate_kwh);
 
   DesignResult r;
   r.profile_id = p.id;
@@ -46,11 +47,9 @@ DesignResult LifecycleEvaluator::evaluate(double dod_setpoint, int strings_paral
   r.bank = bank_geometry(p, site.bus_voltage_v, strings_parallel);
   r.currency = econ.currency;
   const double nameplate = r.bank.nameplate_kwh;
-  r.investment = c.capital_per_kwh * nameplate + c.capital_per_string * strings_parallel +
-                 c.installation_fixed;
-  const double end_of_life_cost = c.end_of_life_per_kwh * nameplate;
-  const double replacement_end_of_life_cost =
-      c.replacement_end_of_life_per_kwh.value_or(c.end_of_life_per_kwh) * nameplate;
+  r.investment = costs.investment(nameplate, strings_parallel);
+  const double end_of_life_cost = costs.final_end_of_life(nameplate);
+  const double replacement_end_of_life_cost = costs.replacement_end_of_life(nameplate);
   const double demand = site.annual_demand_kwh();
 
   DispatchInputs in;
@@ -84,8 +83,8 @@ DesignResult LifecycleEvaluator::evaluate(double dod_setpoint, int strings_paral
     age_years += 1;
     rec.damage_end = damage;
 
-    rec.fixed_om = c.fixed_om_per_kwh_year * nameplate;
-    rec.variable_om = c.variable_om_per_mwh * rec.dispatch.discharged_terminal_kwh / 1000.0;
+    rec.fixed_om = costs.fixed_om_per_year(nameplate);
+    rec.variable_om = costs.variable_om(rec.dispatch.discharged_terminal_kwh);
     rec.charging = rec.dispatch.charge_cost;
     rec.backup =
         site.backup_price_per_kwh ? rec.dispatch.backup_kwh * *site.backup_price_per_kwh : 0.0;
@@ -99,8 +98,7 @@ DesignResult LifecycleEvaluator::evaluate(double dod_setpoint, int strings_paral
       // twice during it; the wear of the bank that went in last is carried into next year.
       const double whole = std::floor(damage + kEndOfLifeTolerance);
       const int banks = worn_out ? static_cast<int>(std::min(whole, kMaxReplacementsPerYear)) : 1;
-      const double price =
-          r.investment * c.replacement_share * std::pow(1.0 - c.price_decline_per_year, year);
+      const double price = costs.replacement_price(r.investment, year);
       rec.replaced_at_end = true;
       rec.replacements = banks;
       rec.replacement = banks * price;
@@ -117,7 +115,7 @@ DesignResult LifecycleEvaluator::evaluate(double dod_setpoint, int strings_paral
       if (p.max_service_years) used = std::max(used, age_years / *p.max_service_years);
       const double remaining = 1.0 - used;
       if (remaining > 0) {
-        rec.residual_value = -bank_price * remaining;  // a credit
+        rec.residual_value = DesignCosts::residual_value(bank_price, remaining);
         // The bank goes on serving: it reaches its end of life when its remaining life, at the
         // wear rate it has shown, runs out.
         if (used > 0) final_year = econ.project_years + std::max(1.0, remaining * age_years / used);

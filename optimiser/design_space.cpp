@@ -7,6 +7,7 @@
 #include <sstream>
 
 #include "model/bank.h"
+#include "model/costs.h"
 #include "model/economics.h"
 #include "model/sizing.h"
 
@@ -41,30 +42,45 @@ double string_discharge_power_kw(const ChemistryProfile& profile, double bus_vol
 }
 
 double bank_investment(const ChemistryProfile& profile, double bus_voltage_v, int strings) {
-  const ProfileCosts& c = profile.costs;
-  return c.capital_per_kwh * string_nameplate_kwh(profile, bus_voltage_v) * strings +
-         c.capital_per_string * strings + c.installation_fixed;
+  const BankGeometry bank = bank_geometry(profile, bus_voltage_v, strings);
+  return DesignCosts(profile.costs, string_nameplate_kwh(profile, bus_voltage_v))
+      .investment(bank.nameplate_kwh, strings);
 }
 
 double npc_lower_bound(const ChemistryProfile& profile, const Study& study, int strings,
                        double calendar_damage_per_year) {
+  constexpr double kUnbounded = -std::numeric_limits<double>::infinity();
   const Economics& e = study.economics;
   const int n_years = e.project_years;
   const double i = e.real_discount_rate;
-  const double nameplate = string_nameplate_kwh(profile, study.site.bus_voltage_v) * strings;
-  const double i0 = bank_investment(profile, study.site.bus_voltage_v, strings);
-  const ProfileCosts& c = profile.costs;
-  double bound = i0;
-  bound += c.fixed_om_per_kwh_year * nameplate * series_present_worth_factor(i, n_years);
-  bound -= i0 * std::max(1.0, c.replacement_share) * present_worth_factor(i, n_years);
-  bound += c.end_of_life_per_kwh * nameplate * present_worth_factor(i, n_years + 1);
-  if (c.end_of_life_per_kwh < 0 && n_years > 1) {
-    // A salvage credit at every possible replacement (at most one per year, years 1..N-1).
-    bound += c.end_of_life_per_kwh * nameplate * series_present_worth_factor(i, n_years - 1);
+  const double bus_v = study.site.bus_voltage_v;
+  const DesignCosts costs(profile.costs, string_nameplate_kwh(profile, bus_v));
+  const double nameplate = bank_geometry(profile, bus_v, strings).nameplate_kwh;
+  const double i0 = costs.investment(nameplate, strings);
+
+  // The net cost of a replacement at the end of year y: the new bank plus the end of life of
+  // the one removed. If it can be negative (a salvage above the price of a new bank), more
+  // replacements lower the NPC without limit and no finite bound holds.
+  auto replacement_pv = [&](double y) {
+    return (costs.replacement_price(i0, y) + costs.replacement_end_of_life(nameplate)) *
+           present_worth_factor(i, y);
+  };
+  for (int y = 1; y < n_years; ++y) {
+    if (replacement_pv(y) < 0) return kUnbounded;
   }
+
+  double bound = i0;
+  bound += costs.fixed_om_per_year(nameplate) * series_present_worth_factor(i, n_years);
+  // Residual credit: at most the price of the bank in service (the year-0 bank or a
+  // replacement; replacement prices never rise), credited at N.
+  bound += DesignCosts::residual_value(i0 * std::max(1.0, costs.replacement_price_factor(0)),
+                                       1.0) *
+           present_worth_factor(i, n_years);
+
   // The longest a bank can serve, in whole years. The simulator retires a bank when its damage
   // reaches 1 - 1e-9; asking for 1 - 1e-9 + 1e-7 here can only make Y later (a weaker bound)
   // when rounding in the simulator's year-by-year sum differs from y x cal.
+  const double cal = calendar_damage_per_year * (1 - 1e-7);
   long life = std::numeric_limits<long>::max();
   if (calendar_damage_per_year > 0) {
     life = static_cast<long>(std::ceil((1.0 - 1e-9 + 1e-7) / calendar_damage_per_year));
@@ -73,11 +89,31 @@ double npc_lower_bound(const ChemistryProfile& profile, const Study& study, int 
     life = std::min(life, static_cast<long>(std::ceil(*profile.max_service_years)));
   }
   life = std::max(life, 1L);
+
+  // End of life of the last bank: at N + 1, or later when it has life left, but no later than
+  // N + max(1, its longest remaining service): 1 / cal years of calendar ageing or
+  // max_service_years (model/lifecycle.h). A cost (> 0) is bounded by its latest date, a
+  // salvage credit (< 0) by its earliest.
+  const double final_eol = costs.final_end_of_life(nameplate);
+  if (final_eol < 0) {
+    bound += final_eol * present_worth_factor(i, n_years + 1);
+  } else if (calendar_damage_per_year > 0 || profile.max_service_years) {
+    double longest = std::numeric_limits<double>::infinity();
+    if (calendar_damage_per_year > 0) longest = 1 / cal;
+    if (profile.max_service_years) longest = std::min(longest, *profile.max_service_years);
+    bound += final_eol * present_worth_factor(i, n_years + std::max(1.0, longest));
+  }
+
+  // Forced replacements: the k-th comes no later than year kY, at some year y in [1, kY]; its
+  // net cost is at least the least present value over those years.
+  double least_so_far = std::numeric_limits<double>::infinity();
+  long priced_to = 0;
   for (long year = life; year < n_years; year += life) {
-    const double y = static_cast<double>(year);
-    double replacement = i0 * c.replacement_share * std::pow(1 - c.price_decline_per_year, y);
-    if (c.end_of_life_per_kwh > 0) replacement += c.end_of_life_per_kwh * nameplate;
-    bound += replacement * present_worth_factor(i, y);
+    for (long y = priced_to + 1; y <= year; ++y) {
+      least_so_far = std::min(least_so_far, replacement_pv(static_cast<double>(y)));
+    }
+    priced_to = year;
+    bound += least_so_far;
   }
   return bound;
 }

@@ -81,19 +81,22 @@ double string_discharge_power_kw(const ChemistryProfile& profile, double bus_vol
 double bank_investment(const ChemistryProfile& profile, double bus_voltage_v, int strings);
 
 // A lower bound on DesignResult::npc of any design of `profile` with `strings` strings,
-// whatever the setpoint and dispatch: the year-0 investment, plus fixed O&M (exact:
-// proportional to nameplate every year), plus the replacements that calendar ageing alone
-// forces, minus the largest residual credit the conventions of model/lifecycle.h allow (at most
-// the price paid for the bank in service, credited at N), plus end-of-life flows bounded below
-// (a salvage value may be credited at most once a year and once at N + 1). Every other item
-// (variable O&M, charging, back-up, penalty, cycle wear) is >= 0 and left out.
-// Forced replacements: damage grows by at least `calendar_damage_per_year` (the site's exact
-// calendar damage, AccelerationSeries::calendar_damage_per_year; 0 when unknown) every year and
-// a bank is retired at max_service_years, so each bank lasts at most Y whole years and the k-th
-// replacement comes no later than year kY; as a replacement's present price falls with time,
-// pricing replacements k = 1, 2, ... with kY < N at year kY bounds their cost from below.
-// Non-decreasing in `strings` when the string price is positive and the residual credit
-// factor is below one.
+// whatever the setpoint and dispatch, priced by model/costs.h (the simulator's own formulas):
+//   the year-0 investment I0;
+//   + fixed O&M (exact: proportional to nameplate every year);
+//   - the largest residual credit the conventions of model/lifecycle.h allow (at most the
+//     price paid for the bank in service, I0 x max(1, replacement_share), credited at N);
+//   + the last bank's end of life: a cost at its latest possible date, N + max(1, the longest
+//     life left: 1 / calendar damage per year or max_service_years), 0 when neither is known;
+//     a salvage credit (< 0) at its earliest, N + 1;
+//   + the replacements that calendar ageing or max_service_years alone force: each bank lasts
+//     at most Y whole years, so the k-th replacement falls in some year y <= kY (kY < N) and
+//     costs at least min over y in [1, kY] of (P(y) + end of life at a replacement) x P/F(y).
+// Every other item (variable O&M, charging, back-up, penalty, cycle wear) is >= 0 and left
+// out. When a replacement could have a negative net cost (a salvage above the price of a new
+// bank) more replacements lower the NPC without limit: the bound is then -infinity.
+// `calendar_damage_per_year`: the site's exact calendar damage
+// (AccelerationSeries::calendar_damage_per_year); 0 when unknown (a weaker bound).
 double npc_lower_bound(const ChemistryProfile& profile, const Study& study, int strings,
                        double calendar_damage_per_year = 0);
 

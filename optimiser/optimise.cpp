@@ -20,6 +20,18 @@ const char* to_string(SearchMethod method) {
   return method == SearchMethod::Milp ? "milp" : "exhaustive";
 }
 
+const char* to_string(Optimality status) {
+  switch (status) {
+    case Optimality::Proven:
+      return "proven_optimal";
+    case Optimality::VerifiedByEstimate:
+      return "verified_by_estimate";
+    case Optimality::TimeLimited:
+      return "time_limited";
+  }
+  return "?";
+}
+
 std::optional<SearchMethod> search_method_from_string(std::string_view text) {
   if (text == "milp") return SearchMethod::Milp;
   if (text == "exhaustive") return SearchMethod::Exhaustive;
@@ -79,7 +91,7 @@ class Search {
     result.notes = space_.notes;
     result.unmet = space_.diagnose(study_);
     if (!result.unmet.empty()) {
-      result.proven_optimal = true;  // infeasibility of the caps is exact
+      result.status = Optimality::Proven;  // infeasibility of the caps is exact
       result.solve_seconds = elapsed();
       return result;
     }
@@ -104,7 +116,10 @@ class Search {
     result.pairs_pruned_by_estimate = pruned_estimate_;
     result.time_limit_reached = hit_limit_;
     result.model_seconds = model_seconds_;
-    result.proven_optimal = complete && !hit_limit_ && milp_all_optimal_;
+    result.designs_unsettled = unsettled_designs();
+    result.status = !complete || hit_limit_ ? Optimality::TimeLimited
+                    : result.designs_unsettled == 0 ? Optimality::Proven
+                                                    : Optimality::VerifiedByEstimate;
     result.model_estimate_npc = result.model_estimate_per_kwh = result.gap = kNaN;
     if (result.feasible()) {
       estimate_answer(result);
@@ -121,6 +136,26 @@ class Search {
     bool feasible = false;
     double unserved_fraction = kInf;
   };
+
+  // Admissible designs that are neither evaluated exactly nor excluded by the rigorous bound
+  // against the best exact NPC: what the answer's optimality does not cover.
+  std::size_t unsettled_designs() const {
+    std::size_t open = 0;
+    for (std::size_t c = 0; c < space_.choices.size(); ++c) {
+      const DesignChoice& ch = space_.choices[c];
+      if (!ch.admissible()) continue;
+      const ChemistryProfile& profile = study_.profiles[ch.profile_index];
+      for (int n = ch.min_strings; n <= ch.max_strings; ++n) {
+        if (cache_.count({c, n})) continue;
+        if (best_ && npc_lower_bound(profile, study_, n, calendar_damage(ch.profile_index)) >=
+                         best_->npc) {
+          continue;
+        }
+        ++open;
+      }
+    }
+    return open;
+  }
 
   double calendar_damage(std::size_t p) const {
     return evaluators_[p]->acceleration().calendar_damage_per_year;
@@ -245,10 +280,6 @@ class Search {
     SolveReport r = solve_submodel(c, ch.min_strings, ch.max_strings);
     ++submodels_solved_;
     s.solved = true;
-    if (r.outcome == SolveOutcome::TimeLimit || r.outcome == SolveOutcome::NoSolution ||
-        r.outcome == SolveOutcome::Error) {
-      milp_all_optimal_ = false;
-    }
     if (r.solution_usable()) {
       s.model_feasible = true;
       s.estimate = r.estimate_npc;
@@ -495,7 +526,6 @@ class Search {
   std::size_t evaluated_ = 0, submodels_solved_ = 0, pruned_bound_ = 0, pruned_estimate_ = 0;
   double model_seconds_ = 0;
   bool hit_limit_ = false;
-  bool milp_all_optimal_ = true;
   double least_unserved_ = kInf;
   std::string least_unserved_at_;
 };

@@ -24,11 +24,16 @@
 //        bank whose bound already exceeds the best exact value.
 //   The ranking lists the best design found for each profile; for the winner's profile it is
 //   the optimum, for the others the best found where the model pointed.
-// Time limit: the search stops at the limit and returns the best design found so far, marked
-// not proven (proven_optimal = false). Without a limit, proven_optimal = true means the search
-// ran to completion: by enumeration (Exhaustive), or all sub-models solved to optimality and
-// every pair settled by bound, calibrated estimate or exact search (Milp; the margin rule is a
-// safeguard learnt from the data, not a proof, see docs/optimiser.md).
+// What was proven (OptimiseResult::status), decided after the search by checking every
+// admissible design, whatever the method:
+//   Proven: every admissible design was either evaluated exactly or has npc_lower_bound() at
+//     or above the answer's exact NPC, so no design can beat the answer (or, with no feasible
+//     design, every admissible one was evaluated and none meets the unserved limit);
+//   VerifiedByEstimate: the search ran to completion but some designs were passed over on the
+//     model's calibrated estimate or by the local search's patience rule, not by a proof;
+//   TimeLimited: the search stopped at the time limit; the answer is the best found so far.
+// The exhaustive method always ends Proven (or TimeLimited).
+#pragma once
 #pragma once
 
 #include <cstddef>
@@ -45,6 +50,10 @@
 namespace stowage {
 
 enum class SearchMethod { Milp, Exhaustive };
+
+enum class Optimality { Proven, VerifiedByEstimate, TimeLimited };
+// "proven_optimal", "verified_by_estimate", "time_limited": the names JSON carries.
+const char* to_string(Optimality status);
 const char* to_string(SearchMethod method);
 // "milp" or "exhaustive"; std::nullopt for anything else.
 std::optional<SearchMethod> search_method_from_string(std::string_view text);
@@ -83,7 +92,9 @@ struct OptimiseResult {
   std::size_t submodels_solved = 0;
   std::size_t pairs_pruned_by_bound = 0;
   std::size_t pairs_pruned_by_estimate = 0;
-  bool proven_optimal = false;
+  Optimality status = Optimality::TimeLimited;
+  std::size_t designs_unsettled = 0;  // admissible designs neither evaluated nor bounded out
+  bool proven_optimal() const { return status == Optimality::Proven; }
   bool time_limit_reached = false;
   std::vector<UnmetRequirement> unmet;  // why there is no feasible design (ranking empty)
   std::vector<std::string> notes;       // e.g. profiles left out for a missing cell mass

@@ -10,6 +10,7 @@
 #include <stdexcept>
 
 #include "model/bank.h"
+#include "model/costs.h"
 #include "model/economics.h"
 #include "model/invalid_value.h"
 #include "optimiser/design_space.h"
@@ -207,15 +208,17 @@ StorageMilp::StorageMilp(const Study& study, std::vector<MilpChoice> choices,
     const MilpChoice& ch = m.choices[c];
     Impl::ChoiceRows& cr = m.rows[c];
     const ChemistryProfile& p = *ch.profile;
-    const ProfileCosts& costs = p.costs;
     const int y = m.col_y[c], n = m.col_n[c], z = m.col_z[c], first = m.col_hours[c];
     const int cells = cells_in_series(p, site.bus_voltage_v);
     const double e_string = string_nameplate_kwh(p, site.bus_voltage_v);
-    const double price_string = costs.capital_per_kwh * e_string + costs.capital_per_string;
-    const double rho1 =
-        costs.replacement_share * price_string + costs.end_of_life_per_kwh * e_string;
-    const double rho0 = costs.replacement_share * costs.installation_fixed;
-    const double i_repl = (1 + i) / (1 - costs.price_decline_per_year) - 1;
+    const DesignCosts costs(p.costs, e_string);
+    const AffineInStrings investment = costs.investment_in_strings();
+    // Renewal price R = rho1 n + rho0: a new bank at the year-0 price plus the end of life of
+    // the one it replaces; the price decline enters through the discount rate i'.
+    const double share = costs.replacement_price_factor(0);
+    const double rho1 = share * investment.per_string + costs.replacement_end_of_life(e_string);
+    const double rho0 = share * investment.fixed;
+    const double i_repl = (1 + i) / (1 - p.costs.price_decline_per_year) - 1;
     const double cal = ch.acceleration->calendar_damage_per_year;
     const double mid_health = 0.5 * (1 + p.eol_capacity_fraction);
     const double keep = std::pow(1 - p.self_discharge_per_month, 1 / kHoursPerMonth);
@@ -233,10 +236,10 @@ StorageMilp::StorageMilp(const Study& study, std::vector<MilpChoice> choices,
     cr.n_max = hi;
     cr.rho1 = rho1;
 
-    glp_set_obj_coef(lp, y, costs.installation_fixed - rho0);
+    glp_set_obj_coef(lp, y, investment.fixed - rho0);
     glp_set_obj_coef(lp, n,
-                     price_string - rho1 + m.pa * costs.fixed_om_per_kwh_year * e_string +
-                         costs.end_of_life_per_kwh * e_string * pf_end);
+                     investment.per_string - rho1 + m.pa * costs.fixed_om_per_year(e_string) +
+                         costs.final_end_of_life(e_string) * pf_end);
     glp_set_obj_coef(lp, z, 1);
 
     // Wear rows, one per tangent, plus the service-age floor; their dispatch terms are added
@@ -286,7 +289,7 @@ StorageMilp::StorageMilp(const Study& study, std::vector<MilpChoice> choices,
       glp_set_obj_coef(
           lp, col_dis,
           m.pa * w *
-              (costs.variable_om_per_mwh / 1000.0 - m.unmet_price * site.inverter_efficiency));
+              (costs.variable_om(1.0) - m.unmet_price * site.inverter_efficiency));
 
       // soc[next] - keep soc[t] - eta ch[t] + dis[t] = 0
       const int bal = add_row(name("balance", c, t), GLP_FX, 0, 0);

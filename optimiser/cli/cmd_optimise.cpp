@@ -98,11 +98,21 @@ void print_text(const Study& study, const OptimiseResult& r) {
   }
   const DesignResult& best = r.best();
   const std::string& cur = study.economics.currency;
-  if (r.proven_optimal) {
-    out << "Best design (search complete):\n";
-  } else {
-    out << "Best design found so far -- NOT PROVEN OPTIMAL"
-        << (r.time_limit_reached ? " (time limit reached)" : "") << ":\n";
+  switch (r.status) {
+    case Optimality::Proven:
+      out << "Best design (proven optimal: every other design was evaluated exactly or is ruled "
+             "out by the cost bound):\n";
+      break;
+    case Optimality::VerifiedByEstimate:
+      fmt::print(out,
+                 "Best design (verified by estimate, not proven: {} designs were passed over on "
+                 "the model's estimate rather than ruled out by the cost bound; "
+                 "--method exhaustive proves it):\n",
+                 r.designs_unsettled);
+      break;
+    case Optimality::TimeLimited:
+      out << "Best design found so far -- NOT PROVEN OPTIMAL (time limit reached):\n";
+      break;
   }
   print_design_table(out, best);
   out << "\n";
@@ -211,7 +221,9 @@ void print_json(const Study& study, const OptimiseResult& r) {
   json.field("submodels_solved", static_cast<long>(r.submodels_solved));
   json.field("pairs_pruned_by_bound", static_cast<long>(r.pairs_pruned_by_bound));
   json.field("pairs_pruned_by_estimate", static_cast<long>(r.pairs_pruned_by_estimate));
-  json.field("proven_optimal", r.proven_optimal);
+  json.field("optimality", to_string(r.status));
+  json.field("proven_optimal", r.proven_optimal());
+  json.field("designs_unsettled", static_cast<long>(r.designs_unsettled));
   json.field("time_limit_reached", r.time_limit_reached);
   json.key("unmet").begin_array();
   for (const UnmetRequirement& u : r.unmet) {

@@ -31,7 +31,7 @@ void require_same_optimum(const Study& study, const std::string& label,
   const OptimiseResult milp = optimise(study, milp_options);
   INFO(label);
   REQUIRE(exhaustive.feasible() == milp.feasible());
-  REQUIRE(exhaustive.proven_optimal);
+  REQUIRE(exhaustive.proven_optimal());
   if (!exhaustive.feasible()) return;
   const DesignResult& a = milp.best();
   const DesignResult& b = exhaustive.best();
@@ -252,7 +252,7 @@ TEST_CASE("a time limit returns the best so far, marked not proven", "[optimiser
   options.time_limit_s = 0.05;
   const OptimiseResult r = optimise(study, options);
   CHECK(r.time_limit_reached);
-  CHECK_FALSE(r.proven_optimal);
+  CHECK_FALSE(r.proven_optimal());
   CHECK(r.designs_evaluated_exactly < r.admissible_designs);
 }
 
