@@ -10,7 +10,7 @@
 #include <cstdio>
 #include <string>
 
-#include "bench/bench_optimise.h"
+#include "bench_optimise.h"
 #include "catalog-schema/study_loader.h"
 #include "model/lifecycle.h"
 
@@ -43,8 +43,7 @@ volatile double g_sink = 0;  // keeps the optimiser from removing measured work
 int main() {
   const std::string path = std::string(STOWAGE_SOURCE_DIR) + "/studies/tarnbeck-saddle/study.yaml";
   const stowage::Study study = stowage::load_study_file(path);
-  const stowage::ChemistryProfile* profile = study.find_profile("lfp");
-  if (profile == nullptr) profile = &study.profiles.front();
+  const stowage::ChemistryProfile* profile = &study.profiles[study.find_profile("lfp").value_or(0)];
   stowage::Economics econ = study.economics;
   econ.project_years = 20;
 
@@ -56,7 +55,7 @@ int main() {
   // The design the study itself evaluates for this profile (autonomy-sized by default).
   int design_strings = 1;
   for (const auto& d : stowage::resolve_designs(study))
-    if (d.profile == profile) design_strings = d.strings_parallel;
+    if (&study.profiles[d.profile_index] == profile) design_strings = d.strings_parallel;
 
   const double eval_s = time_per_call([&] {
     g_sink = g_sink + evaluator.evaluate(profile->dod.default_setpoint, design_strings).npc;

@@ -5,7 +5,7 @@
 // is machine-independent. Target: >= 20x faster with the same answer (or within 0.1 %).
 // The decomposed sub-models are also compared with one monolithic GLPK branch and bound over
 // the same design space (time-limited; a run stopped by the limit is reported as such).
-#include "bench/bench_optimise.h"
+#include "bench_optimise.h"
 
 #include <algorithm>
 #include <chrono>
@@ -23,7 +23,7 @@
 #include "optimiser/optimise.h"
 #include "optimiser/representative_days.h"
 #include "optimiser/storage_milp.h"
-#include "optimiser/synthetic_study.h"
+#include "support/synthetic_study.h"
 
 namespace stowage::bench {
 

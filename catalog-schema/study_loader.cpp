@@ -102,8 +102,8 @@ void read_designs(const YamlDocument& doc, LoadedStudy& loaded) {
     const std::string base = join_index("study.designs", i);
     DesignSpec design;
     design.profile_id = d["profile"].Scalar();
-    const ChemistryProfile* profile = loaded.study.find_profile(design.profile_id);
-    if (profile == nullptr) {
+    const std::optional<std::size_t> index = loaded.study.find_profile(design.profile_id);
+    if (!index) {
       std::string message = "no loaded profile has the id '" + design.profile_id + "'";
       const std::string hint = closest_match(design.profile_id, ids);
       if (!hint.empty()) message += " (did you mean '" + hint + "'?)";
@@ -112,6 +112,7 @@ void read_designs(const YamlDocument& doc, LoadedStudy& loaded) {
       message += "; the study's profiles are: " + all;
       throw doc.error_at(d["profile"], base + ".profile", message);
     }
+    const ChemistryProfile* profile = &loaded.study.profiles[*index];
     if (d["dod_setpoint"]) {
       const double setpoint = number(d["dod_setpoint"]);
       if (setpoint < profile->dod.min || setpoint > profile->dod.max) {

@@ -3,7 +3,7 @@
 
 #include <cmath>
 
-#include "model/invalid_value.h"
+#include "model/contract.h"
 
 namespace stowage {
 
@@ -19,7 +19,7 @@ double bus_voltage_mismatch(const ChemistryProfile& profile, double bus_voltage_
 
 BankGeometry bank_geometry(const ChemistryProfile& profile, double bus_voltage_v,
                            int strings_parallel) {
-  if (strings_parallel < 1) throw InvalidValue("strings_parallel", "must be at least 1");
+  if (strings_parallel < 1) throw ContractViolation("strings_parallel", "must be at least 1");
   BankGeometry g;
   g.cells_series = cells_in_series(profile, bus_voltage_v);
   g.strings_parallel = strings_parallel;

@@ -24,7 +24,7 @@ int cells_in_series(const ChemistryProfile& profile, double bus_voltage_v);
 // bank cannot work the bus (chargers and inverters keep to a narrow voltage window).
 double bus_voltage_mismatch(const ChemistryProfile& profile, double bus_voltage_v);
 constexpr double kMaxBusVoltageMismatch = 0.10;
-// Throws InvalidValue("strings_parallel", ...) when strings_parallel < 1.
+// Throws ContractViolation("strings_parallel", ...) when strings_parallel < 1.
 BankGeometry bank_geometry(const ChemistryProfile& profile, double bus_voltage_v,
                            int strings_parallel);
 

@@ -6,9 +6,10 @@
 // log-log space (a piecewise power law). Above the deepest point the last segment extends.
 // Below the shallowest point the first segment extends, but never flatter than constant charge
 // throughput N(D) = N(D_min) D_min / D: a flatter slope would make ever shallower cycles do more
-// damage per ampere-hour, which no published cycle-life data show. `power_law_fit()` gives the least-squares fit
-// N = N100 * DoD^-k in log-log space (the usual Woehler-type form), solved with Eigen.
-// Damage of one full cycle of depth D is 1 / N(D) (Palmgren-Miner); a zero depth does no damage.
+// damage per ampere-hour, which no published cycle-life data show. `power_law_fit()` gives the
+// least-squares fit N = N100 * DoD^-k in log-log space (the usual Woehler-type form), solved with
+// Eigen. Damage of one full cycle of depth D is 1 / N(D) (Palmgren-Miner); a zero depth does no
+// damage.
 #pragma once
 
 #include <vector>

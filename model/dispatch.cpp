@@ -77,8 +77,8 @@ YearDispatch dispatch_year(const DispatchInputs& in, DispatchState& state,
       if (hf.can_charge[h] && soc < 1.0) {
         // Terminal charge that fills the headroom, given the coulombic loss.
         const double headroom_ah = (1.0 - soc) * q_ah / eta_coulomb;
-        const double amps = std::min(
-            {surplus * eta_charger * 1000.0 / v_charge, max_charge_amps, headroom_ah});
+        const double amps =
+            std::min({surplus * eta_charger * 1000.0 / v_charge, max_charge_amps, headroom_ah});
         to_terminals = amps * v_charge / 1000.0;
         soc += amps * eta_coulomb / q_ah;
         if (soc > 1.0) soc = 1.0;

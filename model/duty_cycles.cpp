@@ -5,13 +5,13 @@
 #include <cmath>
 
 #include "model/ageing.h"
-#include "model/invalid_value.h"
+#include "model/contract.h"
 #include "model/site.h"
 
 namespace stowage {
 
 DutyCycleSummary summarise_cycles(const std::vector<double>& soc_fraction, int bins) {
-  if (bins < 1) throw InvalidValue("bins", "must be at least 1");
+  if (bins < 1) throw ContractViolation("bins", "must be at least 1");
   DutyCycleSummary s;
   s.cycles = rainflow(soc_fraction);
   const double width = 1.0 / bins;
@@ -27,9 +27,9 @@ DutyCycleSummary summarise_cycles(const std::vector<double>& soc_fraction, int b
 DutyDamage duty_damage(const ChemistryProfile& profile, const DutyCycleSummary& summary,
                        const std::vector<double>& temp_c, std::size_t samples,
                        double hours_per_sample) {
-  if (!(hours_per_sample > 0)) throw InvalidValue("hours_per_sample", "must be positive");
+  if (!(hours_per_sample > 0)) throw ContractViolation("hours_per_sample", "must be positive");
   if (!temp_c.empty() && temp_c.size() != samples)
-    throw InvalidValue("temp_c", "needs one temperature per SOC sample");
+    throw ContractViolation("temp_c", "needs one temperature per SOC sample");
   // Acceleration per sample with prefix sums, as in the yearly ageing.
   std::vector<double> prefix(samples + 1, 0.0);
   for (std::size_t i = 0; i < samples; ++i) {

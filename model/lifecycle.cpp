@@ -5,8 +5,8 @@
 #include <cmath>
 #include <limits>
 
+#include "model/contract.h"
 #include "model/costs.h"
-#include "model/invalid_value.h"
 
 namespace stowage {
 
@@ -35,7 +35,7 @@ LifecycleEvaluator::LifecycleEvaluator(const ChemistryProfile& profile, const Si
 
 DesignResult LifecycleEvaluator::evaluate(double dod_setpoint, int strings_parallel) {
   if (!(dod_setpoint > 0 && dod_setpoint <= 1))
-    throw InvalidValue("dod_setpoint", "must be in (0, 1]");
+    throw ContractViolation("dod_setpoint", "must be in (0, 1]");
   const ChemistryProfile& p = *profile_;
   const SiteConditions& site = *site_;
   const Economics& econ = *economics_;
@@ -60,9 +60,9 @@ DesignResult LifecycleEvaluator::evaluate(double dod_setpoint, int strings_paral
   in.factors = &factors_;
 
   DispatchState state;
-  double damage = 0;                 // of the bank in service
-  int age_years = 0;                 // of the bank in service
-  double bank_price = r.investment;  // what the bank in service cost when installed
+  double damage = 0;                             // of the bank in service
+  int age_years = 0;                             // of the bank in service
+  double bank_price = r.investment;              // what the bank in service cost when installed
   double final_year = econ.project_years + 1.0;  // when the last bank's end-of-life flow falls
   CostBreakdown& pv = r.present_value;
   pv.investment = r.investment;
@@ -147,9 +147,8 @@ DesignResult LifecycleEvaluator::evaluate(double dod_setpoint, int strings_paral
   pv.end_of_life += end_of_life_cost * r.final_discount_factor;
 
   r.npc = pv.total();
-  r.lcos_per_kwh = r.discounted_delivered_kwh > 0
-                       ? pv.storage_total() / r.discounted_delivered_kwh
-                       : std::numeric_limits<double>::infinity();
+  r.lcos_per_kwh = r.discounted_delivered_kwh > 0 ? pv.storage_total() / r.discounted_delivered_kwh
+                                                  : std::numeric_limits<double>::infinity();
   r.meets_unserved_limit = !site.unserved_limit_fraction ||
                            r.unserved_fraction_max <= *site.unserved_limit_fraction + 1e-12;
   return r;

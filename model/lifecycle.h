@@ -63,8 +63,8 @@ struct YearRecord {
   double damage_cycle = 0, damage_calendar = 0, damage_partial_charge = 0;
   double damage_end = 0;  // accumulated damage of the bank in service at year end
   bool replaced_at_end = false;
-  int replacements = 0;          // banks replaced at the end of this year (more than 1 when the
-                                 // bank wears out several times over within the year)
+  int replacements = 0;  // banks replaced at the end of this year (more than 1 when the
+                         // bank wears out several times over within the year)
   YearDispatch dispatch;
   double fixed_om = 0, variable_om = 0, charging = 0, backup = 0, unserved_penalty = 0;
   double replacement = 0, end_of_life = 0, residual_value = 0;
@@ -82,7 +82,7 @@ struct DesignResult {
   std::string currency;
   std::vector<int> replacement_years;
   std::vector<YearRecord> years;
-  double investment = 0;             // year 0
+  double investment = 0;              // year 0
   double final_end_of_life = 0;       // end-of-life flow of the last bank, undiscounted
   double final_end_of_life_year = 0;  // N + 1, or later when that bank has life left
   double final_discount_factor = 1;   // P/F at final_end_of_life_year
@@ -90,7 +90,7 @@ struct DesignResult {
   double npc = 0;
   double lcos_per_kwh = 0;
   double discounted_delivered_kwh = 0;  // LCOS denominator: energy after the inverter
-  double unserved_fraction_max = 0;  // worst year unserved / demand
+  double unserved_fraction_max = 0;     // worst year unserved / demand
   bool meets_unserved_limit = true;
 
   // First-year figures quoted in reports.
@@ -113,7 +113,7 @@ class LifecycleEvaluator {
   LifecycleEvaluator(const ChemistryProfile& profile, const SiteConditions& site,
                      const Economics& economics);
 
-  // Throws InvalidValue for a DoD setpoint outside (0, 1] or strings < 1.
+  // Throws ContractViolation for a DoD setpoint outside (0, 1] or strings < 1.
   DesignResult evaluate(double dod_setpoint, int strings_parallel);
 
   const ChemistryProfile& profile() const { return *profile_; }

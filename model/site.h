@@ -3,9 +3,10 @@
 // conversion chain and what happens to energy the bank cannot give.
 //
 // Energy flow each hour (1 h steps, so kW and kWh per hour are the same number):
-//   source_kw serves load_kw directly (source_to_load_efficiency of it arrives); the surplus passes the charger (charger_efficiency) into
-//   the bank; a deficit is drawn from the bank through the inverter (inverter_efficiency); what
-//   the bank cannot give is met by back-up (if backup_price_per_kwh is set) or left unserved.
+//   source_kw serves load_kw directly (source_to_load_efficiency of it arrives); the surplus passes
+//   the charger (charger_efficiency) into the bank; a deficit is drawn from the bank through the
+//   inverter (inverter_efficiency); what the bank cannot give is met by back-up (if
+//   backup_price_per_kwh is set) or left unserved.
 // The same form covers an off-grid PV site (source = PV output, price 0 or export value) and a
 // grid-charged duty (source = grid import allowed in charging hours, priced by the tariff).
 // charge_price_per_kwh is the price of source energy used for charging, per hour.
@@ -23,14 +24,14 @@ constexpr double kHoursPerMonth = 730.0;
 struct SiteConditions {
   std::string name;
   double bus_voltage_v = 48;
-  std::vector<double> load_kw;                    // 8760 values >= 0
-  std::vector<double> source_kw;                  // 8760 values >= 0
-  std::vector<double> temp_c;                     // battery-space temperature, 8760 values
-  std::vector<double> charge_price_per_kwh;       // 8760 values >= 0
-  double autonomy_days = 0;                       // days the bank alone carries the load, >= 0
-  double design_margin = 1.0;                     // sizing margin on the autonomy energy, >= 1
-  double charger_efficiency = 1;                  // (0, 1]
-  double inverter_efficiency = 1;                 // (0, 1]
+  std::vector<double> load_kw;               // 8760 values >= 0
+  std::vector<double> source_kw;             // 8760 values >= 0
+  std::vector<double> temp_c;                // battery-space temperature, 8760 values
+  std::vector<double> charge_price_per_kwh;  // 8760 values >= 0
+  double autonomy_days = 0;                  // days the bank alone carries the load, >= 0
+  double design_margin = 1.0;                // sizing margin on the autonomy energy, >= 1
+  double charger_efficiency = 1;             // (0, 1]
+  double inverter_efficiency = 1;            // (0, 1]
   // Share of source energy that reaches the load when the source serves it directly: 1 for an
   // AC-coupled source (grid, AC-coupled PV), charger x inverter for DC-coupled PV that feeds
   // the load through the charge controller and the inverter. (0, 1].

@@ -4,6 +4,7 @@
 #include <algorithm>
 #include <cmath>
 
+#include "model/contract.h"
 #include "model/invalid_value.h"
 
 namespace stowage {
@@ -41,7 +42,7 @@ double usable_kwh_per_ah(const ChemistryProfile& profile, const SiteConditions& 
 
 void check_dod(double dod_setpoint) {
   if (!(dod_setpoint > 0 && dod_setpoint <= 1))
-    throw InvalidValue("dod_setpoint", "must be in (0, 1]");
+    throw ContractViolation("dod_setpoint", "must be in (0, 1]");
 }
 
 }  // namespace
@@ -63,11 +64,10 @@ AutonomySizing size_for_autonomy(const ChemistryProfile& profile, const SiteCond
   // The small tolerance keeps an exact fit (e.g. 2.0000000001 strings) from rounding up.
   const double strings = std::ceil(required_ah / profile.cell_capacity_ah - 1e-9);
   if (!(strings <= kMaxStringsParallel))
-    throw InvalidValue("strings_parallel",
-                       "autonomy would need " + std::to_string(strings) +
-                           " strings in parallel of cells of " +
-                           std::to_string(profile.cell_capacity_ah) +
-                           " Ah; check the cell capacity against the load");
+    throw InvalidValue("site.autonomy_days", "autonomy would need " + std::to_string(strings) +
+                                                 " strings in parallel of cells of " +
+                                                 std::to_string(profile.cell_capacity_ah) +
+                                                 " Ah; check the cell capacity against the load");
   s.strings_parallel = std::max(1, static_cast<int>(strings));
   return s;
 }

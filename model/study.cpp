@@ -3,22 +3,23 @@
 
 #include <cmath>
 
-#include "model/invalid_value.h"
+#include "model/contract.h"
 #include "model/sizing.h"
 
 namespace stowage {
 
-const ChemistryProfile* Study::find_profile(const std::string& id) const {
-  for (const auto& p : profiles)
-    if (p.id == id) return &p;
-  return nullptr;
+std::optional<std::size_t> Study::find_profile(const std::string& id) const {
+  for (std::size_t i = 0; i < profiles.size(); ++i)
+    if (profiles[i].id == id) return i;
+  return std::nullopt;
 }
 
 std::vector<ResolvedDesign> resolve_designs(const Study& study) {
   std::vector<ResolvedDesign> out;
-  auto resolve = [&](const ChemistryProfile& p, const DesignSpec& spec) {
+  auto resolve = [&](std::size_t index, const DesignSpec& spec) {
+    const ChemistryProfile& p = study.profiles[index];
     ResolvedDesign d;
-    d.profile = &p;
+    d.profile_index = index;
     d.dod_setpoint = spec.dod_setpoint.value_or(p.dod.default_setpoint);
     d.strings_parallel = spec.strings_parallel
                              ? *spec.strings_parallel
@@ -26,15 +27,17 @@ std::vector<ResolvedDesign> resolve_designs(const Study& study) {
     out.push_back(d);
   };
   if (study.designs.empty()) {
-    for (const auto& p : study.profiles) resolve(p, DesignSpec{p.id, {}, {}});
+    for (std::size_t i = 0; i < study.profiles.size(); ++i) {
+      resolve(i, DesignSpec{study.profiles[i].id, {}, {}});
+    }
     return out;
   }
   for (std::size_t i = 0; i < study.designs.size(); ++i) {
     const DesignSpec& spec = study.designs[i];
-    const ChemistryProfile* p = study.find_profile(spec.profile_id);
-    if (p == nullptr)
-      throw InvalidValue("designs[" + std::to_string(i) + "].profile",
-                         "no profile with id '" + spec.profile_id + "' in the study");
+    const std::optional<std::size_t> p = study.find_profile(spec.profile_id);
+    if (!p)
+      throw ContractViolation("designs[" + std::to_string(i) + "].profile",
+                              "no profile with id '" + spec.profile_id + "' in the study");
     resolve(*p, spec);
   }
   return out;

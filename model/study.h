@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: MIT
 // Study: everything one run works on, as validated values: the site, the candidate chemistry
 // profiles, the economics, the designs to evaluate and the optimiser's search space.
+// A plain value: copying it copies everything, and nothing else points into it.
 #pragma once
 
 #include <optional>
@@ -36,19 +37,21 @@ struct Study {
   std::vector<DesignSpec> designs;  // empty: each profile at its default, autonomy-sized
   SearchSpace search;
 
-  const ChemistryProfile* find_profile(const std::string& id) const;
+  // The index into `profiles` of the profile with this id, if any.
+  std::optional<std::size_t> find_profile(const std::string& id) const;
 };
 
 // A design with every choice made: the profile, the DoD setpoint and the strings in parallel.
+// Holds an index, not a pointer, so a copied or changed Study keeps its designs valid.
 struct ResolvedDesign {
-  const ChemistryProfile* profile = nullptr;  // points into Study::profiles
+  std::size_t profile_index = 0;  // into Study::profiles
   double dod_setpoint = 0;
   int strings_parallel = 0;
 };
 
 // The study's designs with defaults filled in: an unset DoD takes the profile's default, unset
 // strings are sized for autonomy (sizing.h); with no designs listed, every profile once.
-// Throws InvalidValue("designs[i].profile") for an unknown profile id.
+// Throws ContractViolation("designs[i].profile") for an unknown profile id.
 std::vector<ResolvedDesign> resolve_designs(const Study& study);
 
 // The DoD ladder from `search` restricted to the profile's allowed [dod.min, dod.max]; values

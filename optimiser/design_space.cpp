@@ -73,8 +73,7 @@ double npc_lower_bound(const ChemistryProfile& profile, const Study& study, int 
   bound += costs.fixed_om_per_year(nameplate) * series_present_worth_factor(i, n_years);
   // Residual credit: at most the price of the bank in service (the year-0 bank or a
   // replacement; replacement prices never rise), credited at N.
-  bound += DesignCosts::residual_value(i0 * std::max(1.0, costs.replacement_price_factor(0)),
-                                       1.0) *
+  bound += DesignCosts::residual_value(i0 * std::max(1.0, costs.replacement_price_factor(0)), 1.0) *
            present_worth_factor(i, n_years);
 
   // The longest a bank can serve, in whole years. The simulator retires a bank when its damage

@@ -10,7 +10,7 @@
 #include <sstream>
 #include <stdexcept>
 
-#include "model/invalid_value.h"
+#include "model/contract.h"
 #include "optimiser/representative_days.h"
 #include "optimiser/storage_milp.h"
 
@@ -39,15 +39,15 @@ std::optional<SearchMethod> search_method_from_string(std::string_view text) {
 }
 
 void OptimiseOptions::validate() const {
-  if (time_limit_s && !(*time_limit_s > 0)) throw InvalidValue("time_limit_s", "must be > 0");
+  if (time_limit_s && !(*time_limit_s > 0)) throw ContractViolation("time_limit_s", "must be > 0");
   if (days_per_block < 1 || days_per_block > 28) {
-    throw InvalidValue("days_per_block", "must be between 1 and 28");
+    throw ContractViolation("days_per_block", "must be between 1 and 28");
   }
   if (!(base_margin >= 0 && base_margin < 1))
-    throw InvalidValue("base_margin", "must be in [0, 1)");
+    throw ContractViolation("base_margin", "must be in [0, 1)");
   if (!(lone_margin >= 0 && lone_margin < 1))
-    throw InvalidValue("lone_margin", "must be in [0, 1)");
-  if (patience < 1) throw InvalidValue("patience", "must be >= 1");
+    throw ContractViolation("lone_margin", "must be in [0, 1)");
+  if (patience < 1) throw ContractViolation("patience", "must be >= 1");
 }
 
 namespace {
@@ -100,6 +100,7 @@ class Search {
     if (options_.method == SearchMethod::Milp && !any_feasible() && !time_up()) {
       complete = settle_unserved_limit() && complete;
     }
+    if (complete && options_.prove && any_feasible() && !time_up()) complete = prove_by_bound();
 
     for (std::size_t p = 0; p < profile_best_.size(); ++p) {
       if (profile_best_[p]) {
@@ -111,13 +112,14 @@ class Search {
     std::stable_sort(result.ranking.begin(), result.ranking.end(),
                      [](const DesignResult& a, const DesignResult& b) { return a.npc < b.npc; });
     result.designs_evaluated_exactly = evaluated_;
+    result.designs_evaluated_for_proof = proved_;
     result.submodels_solved = submodels_solved_;
     result.pairs_pruned_by_bound = pruned_bound_;
     result.pairs_pruned_by_estimate = pruned_estimate_;
     result.time_limit_reached = hit_limit_;
     result.model_seconds = model_seconds_;
     result.designs_unsettled = unsettled_designs();
-    result.status = !complete || hit_limit_ ? Optimality::TimeLimited
+    result.status = !complete || hit_limit_         ? Optimality::TimeLimited
                     : result.designs_unsettled == 0 ? Optimality::Proven
                                                     : Optimality::VerifiedByEstimate;
     result.model_estimate_npc = result.model_estimate_per_kwh = result.gap = kNaN;
@@ -147,14 +149,47 @@ class Search {
       const ChemistryProfile& profile = study_.profiles[ch.profile_index];
       for (int n = ch.min_strings; n <= ch.max_strings; ++n) {
         if (cache_.count({c, n})) continue;
-        if (best_ && npc_lower_bound(profile, study_, n, calendar_damage(ch.profile_index)) >=
-                         best_->npc) {
+        if (best_ &&
+            npc_lower_bound(profile, study_, n, calendar_damage(ch.profile_index)) >= best_->npc) {
           continue;
         }
         ++open;
       }
     }
     return open;
+  }
+
+  // Settles every design the guided search passed over: in order of the rigorous bound,
+  // each design whose bound is below the best exact NPC so far is evaluated exactly; the
+  // first bound at or above it ends the proof (all later bounds are higher).
+  bool prove_by_bound() {
+    struct Open {
+      double bound;
+      std::size_t choice;
+      int strings;
+    };
+    std::vector<Open> open;
+    for (std::size_t c = 0; c < space_.choices.size(); ++c) {
+      const DesignChoice& ch = space_.choices[c];
+      if (!ch.admissible()) continue;
+      const ChemistryProfile& profile = study_.profiles[ch.profile_index];
+      for (int n = ch.min_strings; n <= ch.max_strings; ++n) {
+        if (cache_.count({c, n})) continue;
+        const double bound = npc_lower_bound(profile, study_, n, calendar_damage(ch.profile_index));
+        if (bound < best_npc()) open.push_back({bound, c, n});
+      }
+    }
+    std::stable_sort(open.begin(), open.end(),
+                     [](const Open& a, const Open& b) { return a.bound < b.bound; });
+    std::size_t done = 0;
+    for (const Open& o : open) {
+      if (o.bound >= best_npc()) break;
+      if (time_up()) return false;
+      evaluate(o.choice, o.strings);
+      ++proved_;
+      if (++done % 16 == 0) report("prove", done, open.size());
+    }
+    return true;
   }
 
   double calendar_damage(std::size_t p) const {
@@ -524,6 +559,7 @@ class Search {
   std::vector<std::vector<double>> ratios_;
   std::optional<DesignResult> best_;
   std::size_t evaluated_ = 0, submodels_solved_ = 0, pruned_bound_ = 0, pruned_estimate_ = 0;
+  std::size_t proved_ = 0;
   double model_seconds_ = 0;
   bool hit_limit_ = false;
   double least_unserved_ = kInf;

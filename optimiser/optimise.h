@@ -73,8 +73,11 @@ struct OptimiseOptions {
   double base_margin = 0.03;           // least safety margin on calibrated estimates, [0, 1)
   double lone_margin = 0.15;           // margin while a profile has < 3 observed ratios, [0, 1)
   int patience = 2;                    // local-search steps past the last improvement, >= 1
+  // After the guided search, evaluate exactly every design it passed over whose rigorous
+  // bound is below the best exact NPC, so the answer ends Proven (see above).
+  bool prove = true;
   std::function<void(const OptimiseProgress&)> progress;  // called now and then; may be empty
-  void validate() const;                                  // throws InvalidValue naming the field
+  void validate() const;  // throws ContractViolation naming the field
 };
 
 struct OptimiseResult {
@@ -88,7 +91,8 @@ struct OptimiseResult {
   double solve_seconds = 0;
   double model_seconds = 0;  // of solve_seconds, spent building and solving sub-models
   std::size_t designs_evaluated_exactly = 0;
-  std::size_t admissible_designs = 0;  // size of the design space within the constraints
+  std::size_t designs_evaluated_for_proof = 0;  // of those, by the proof step (prove)
+  std::size_t admissible_designs = 0;           // size of the design space within the constraints
   std::size_t submodels_solved = 0;
   std::size_t pairs_pruned_by_bound = 0;
   std::size_t pairs_pruned_by_estimate = 0;
@@ -103,7 +107,7 @@ struct OptimiseResult {
   const DesignResult& best() const { return ranking.front(); }  // requires feasible()
 };
 
-// Throws InvalidValue for bad options; the study must be validated.
+// Throws ContractViolation for bad options; the study must be validated.
 OptimiseResult optimise(const Study& study, const OptimiseOptions& options = {});
 
 // Writes the monolithic model of the study's admissible design space (every admissible pair as

@@ -5,7 +5,7 @@
 #include <cmath>
 #include <limits>
 
-#include "model/invalid_value.h"
+#include "model/contract.h"
 
 namespace stowage {
 
@@ -17,7 +17,7 @@ int RepresentativeDays::total_hours() const {
 
 RepresentativeDays select_representative_days(const SiteConditions& site, int days_per_block) {
   if (days_per_block < 1 || days_per_block > 28) {
-    throw InvalidValue("days_per_block", "must be between 1 and 28");
+    throw ContractViolation("days_per_block", "must be between 1 and 28");
   }
   constexpr int kDays = kHoursPerYear / 24;
   std::vector<double> deficit(kDays, 0.0), surplus(kDays, 0.0);

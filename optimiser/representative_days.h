@@ -32,7 +32,7 @@ struct RepresentativeDays {
   int total_hours() const;
 };
 
-// Throws InvalidValue("days_per_block", ...) unless 1 <= days_per_block <= 28.
+// Throws ContractViolation("days_per_block", ...) unless 1 <= days_per_block <= 28.
 RepresentativeDays select_representative_days(const SiteConditions& site, int days_per_block);
 
 }  // namespace stowage

@@ -10,18 +10,18 @@
 #include <stdexcept>
 
 #include "model/bank.h"
+#include "model/contract.h"
 #include "model/costs.h"
 #include "model/economics.h"
-#include "model/invalid_value.h"
 #include "optimiser/design_space.h"
 
 namespace stowage {
 
 void MilpOptions::validate() const {
   if (!(relative_gap >= 0 && relative_gap < 1)) {
-    throw InvalidValue("relative_gap", "must be in [0, 1)");
+    throw ContractViolation("relative_gap", "must be in [0, 1)");
   }
-  if (!(time_limit_s > 0)) throw InvalidValue("time_limit_s", "must be > 0");
+  if (!(time_limit_s > 0)) throw ContractViolation("time_limit_s", "must be > 0");
 }
 
 const char* to_string(SolveOutcome outcome) {
@@ -103,11 +103,11 @@ struct StorageMilp::Impl {
 StorageMilp::StorageMilp(const Study& study, std::vector<MilpChoice> choices,
                          const RepresentativeDays& days, bool unserved_limit)
     : impl_(std::make_unique<Impl>()) {
-  if (choices.empty()) throw InvalidValue("choices", "at least one choice is needed");
+  if (choices.empty()) throw ContractViolation("choices", "at least one choice is needed");
   for (std::size_t c = 0; c < choices.size(); ++c) {
     if (choices[c].min_strings < 1 || choices[c].min_strings > choices[c].max_strings) {
-      throw InvalidValue("choices[" + std::to_string(c) + "]",
-                         "needs 1 <= min_strings <= max_strings");
+      throw ContractViolation("choices[" + std::to_string(c) + "]",
+                              "needs 1 <= min_strings <= max_strings");
     }
   }
   Impl& m = *impl_;
@@ -288,8 +288,7 @@ StorageMilp::StorageMilp(const Study& study, std::vector<MilpChoice> choices,
       glp_set_obj_coef(lp, col_ch, m.pa * w * price[t] / site.charger_efficiency);
       glp_set_obj_coef(
           lp, col_dis,
-          m.pa * w *
-              (costs.variable_om(1.0) - m.unmet_price * site.inverter_efficiency));
+          m.pa * w * (costs.variable_om(1.0) - m.unmet_price * site.inverter_efficiency));
 
       // soc[next] - keep soc[t] - eta ch[t] + dis[t] = 0
       const int bal = add_row(name("balance", c, t), GLP_FX, 0, 0);
@@ -395,12 +394,12 @@ bool simplex(glp_prob* lp, int method, int time_limit_ms, bool& infeasible, bool
 void StorageMilp::set_setpoint(std::size_t choice, double dod_setpoint, int min_strings,
                                int max_strings) {
   Impl& m = *impl_;
-  if (choice >= m.choices.size()) throw InvalidValue("choice", "out of range");
+  if (choice >= m.choices.size()) throw ContractViolation("choice", "out of range");
   if (!(dod_setpoint > 0 && dod_setpoint <= 1)) {
-    throw InvalidValue("dod_setpoint", "must be in (0, 1]");
+    throw ContractViolation("dod_setpoint", "must be in (0, 1]");
   }
   if (min_strings < 1 || min_strings > max_strings) {
-    throw InvalidValue("min_strings", "needs 1 <= min_strings <= max_strings");
+    throw ContractViolation("min_strings", "needs 1 <= min_strings <= max_strings");
   }
   MilpChoice& ch = m.choices[choice];
   ch.dod_setpoint = dod_setpoint;

@@ -55,7 +55,7 @@ struct MilpChoice {
 struct MilpOptions {
   double relative_gap = 1e-7;  // GLPK mip_gap, [0, 1)
   double time_limit_s = 600;   // > 0
-  void validate() const;       // throws InvalidValue naming the field
+  void validate() const;       // throws ContractViolation naming the field
 };
 
 enum class SolveOutcome {
@@ -88,7 +88,7 @@ struct SolveReport {
 class StorageMilp {
  public:
   // Builds the model; `study`, the choices' profiles and accelerations must outlive it.
-  // Throws InvalidValue when `choices` is empty or a choice has min > max or min < 1.
+  // Throws ContractViolation when `choices` is empty or a choice has min > max or min < 1.
   // `unserved_limit` false leaves out the unserved-limit row (to price a given bank that
   // misses the limit on the representative days).
   StorageMilp(const Study& study, std::vector<MilpChoice> choices, const RepresentativeDays& days,
@@ -103,7 +103,7 @@ class StorageMilp {
   SolveReport solve(const MilpOptions& options);
 
   // Moves choice `choice` to another setpoint and strings range of the same profile, keeping
-  // the rest of the model (and GLPK's basis, for a warm start). Throws InvalidValue.
+  // the rest of the model (and GLPK's basis, for a warm start). Throws ContractViolation.
   void set_setpoint(std::size_t choice, double dod_setpoint, int min_strings, int max_strings);
 
   // Writes the model in free MPS (GLPK's GLP_MPS_FILE); throws std::runtime_error naming the

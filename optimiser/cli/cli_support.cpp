@@ -1,33 +1,33 @@
 // SPDX-License-Identifier: MIT
 #include "optimiser/cli/cli_support.h"
 
-#include <fmt/format.h>
-
-#include <cmath>
 #include <iostream>
 
 #include "catalog-schema/input_error.h"
 #include "catalog-schema/study_loader.h"
 #include "model/invalid_value.h"
 #include "optimiser/cli/command.h"
-#include "optimiser/cli/output_files.h"
+#include "optimiser/report/messages.h"
+#include "optimiser/report/output_set.h"
 
 namespace stowage::cli {
 
 int run_guarded(const std::function<int()>& body) {
+  using report::Failure;
   try {
     return body();
   } catch (const InputError& e) {
-    std::cerr << "stowage: " << e.what() << "\n";
+    report::write_failure(std::cerr, Failure::BadInput, e.what());
     return kExitBadInput;
   } catch (const InvalidValue& e) {
-    std::cerr << "stowage: invalid value: " << e.what() << "\n";
+    report::write_failure(std::cerr, Failure::InvalidValue, e.what());
     return kExitBadInput;
-  } catch (const OutputFileError& e) {
-    std::cerr << "stowage: " << e.what() << "\n";
+  } catch (const report::OutputFileError& e) {
+    report::write_failure(std::cerr, Failure::Output, e.what());
     return kExitBadInput;
   } catch (const std::exception& e) {
-    std::cerr << "stowage: internal error: " << e.what() << "\n";
+    // ContractViolation and everything unexpected: a bug, not the user's input.
+    report::write_failure(std::cerr, Failure::Internal, e.what());
     return kExitInternalError;
   }
 }
@@ -45,20 +45,5 @@ void add_format_option(CLI::App& command, OutputFormat& format) {
 }
 
 Study load_study_for_cli(const std::string& path) { return load_study_file(path); }
-
-std::string format_amount(double value, int decimals) {
-  if (!std::isfinite(value)) return "n/a";
-  std::string digits = fmt::format("{:.{}f}", std::fabs(value), decimals);
-  const std::size_t dot = digits.find('.');
-  std::size_t int_end = dot == std::string::npos ? digits.size() : dot;
-  std::string out;
-  for (std::size_t i = 0; i < int_end; ++i) {
-    if (i > 0 && (int_end - i) % 3 == 0) out += ',';
-    out += digits[i];
-  }
-  out += digits.substr(int_end);
-  const bool negative = value < 0 && std::stod(digits) != 0.0;
-  return negative ? "-" + out : out;
-}
 
 }  // namespace stowage::cli

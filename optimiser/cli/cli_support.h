@@ -13,7 +13,7 @@ namespace stowage::cli {
 
 // Runs `body` and returns its exit code; bad input (InputError, InvalidValue, an output path
 // that cannot be written) prints "stowage: <where>: <what>" on stderr and gives kExitBadInput;
-// anything else is an internal error (kExitInternalError).
+// anything else, ContractViolation included, is an internal error (kExitInternalError).
 int run_guarded(const std::function<int()>& body);
 
 enum class OutputFormat { Text, Json };
@@ -22,8 +22,5 @@ void add_format_option(CLI::App& command, OutputFormat& format);
 
 // Loads and validates a study file; throws InputError naming file, line and field.
 Study load_study_for_cli(const std::string& path);
-
-// Number formatting for reports: thousands separators, fixed decimals.
-std::string format_amount(double value, int decimals = 0);
 
 }  // namespace stowage::cli

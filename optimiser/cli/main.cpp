@@ -5,6 +5,7 @@
 #include <iostream>
 
 #include "optimiser/cli/command.h"
+#include "optimiser/report/messages.h"
 #include "stowage_version.h"
 
 int main(int argc, char** argv) {
@@ -26,7 +27,7 @@ int main(int argc, char** argv) {
     const int code = app.exit(e);
     return code == 0 ? stowage::cli::kExitOk : stowage::cli::kExitBadInput;
   } catch (const std::exception& e) {
-    std::cerr << "stowage: internal error: " << e.what() << "\n";
+    stowage::report::write_failure(std::cerr, stowage::report::Failure::Internal, e.what());
     return stowage::cli::kExitInternalError;
   }
   return exit_code;

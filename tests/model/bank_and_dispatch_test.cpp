@@ -79,8 +79,7 @@ TEST_CASE("round-trip efficiency is voltaic times coulombic efficiency", "[model
   CHECK(trace[6] == Approx(1.0));
 }
 
-TEST_CASE("Peukert's law: 100 Ah at C20 with k = 1.2 lasts 8.7055 h at 10 A",
-          "[model][dispatch]") {
+TEST_CASE("Peukert's law: 100 Ah at C20 with k = 1.2 lasts 8.7055 h at 10 A", "[model][dispatch]") {
   // t = H (C / (I H))^k with C = 100 Ah, H = 20 h, k = 1.2, I = 10 A gives 8.7055 h, i.e.
   // 87.06 Ah delivered before cut-off (check-values.md section 6, CALC; the standard form of
   // Peukert's law).

@@ -56,8 +56,7 @@ TEST_CASE("the service-age limit replaces a bank that is not worn out", "[model]
   const DesignResult r = ev.evaluate(0.5, 10);
   CHECK(r.replacement_years == std::vector<int>{5, 10});
   const double price = 200 * r.bank.nameplate_kwh * 0.5;
-  CHECK(r.present_value.replacements ==
-        Approx(price * (std::pow(1.08, -5) + std::pow(1.08, -10))));
+  CHECK(r.present_value.replacements == Approx(price * (std::pow(1.08, -5) + std::pow(1.08, -10))));
   CHECK(r.present_value.residual_value == Approx(0.0).margin(1e-9));
   CHECK(r.final_end_of_life_year == Approx(16.0));
 }

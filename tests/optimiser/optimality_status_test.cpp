@@ -13,7 +13,7 @@
 #include "model/lifecycle.h"
 #include "optimiser/design_space.h"
 #include "optimiser/optimise.h"
-#include "optimiser/synthetic_study.h"
+#include "support/synthetic_study.h"
 
 using namespace stowage;
 

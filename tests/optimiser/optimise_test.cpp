@@ -13,7 +13,7 @@
 #include "catalog-schema/study_loader.h"
 #include "model/lifecycle.h"
 #include "model/sizing.h"
-#include "optimiser/synthetic_study.h"
+#include "support/synthetic_study.h"
 #include "test_paths.h"
 
 using namespace stowage;

@@ -16,7 +16,7 @@
 #include "optimiser/design_space.h"
 #include "optimiser/optimise.h"
 #include "optimiser/representative_days.h"
-#include "optimiser/synthetic_study.h"
+#include "support/synthetic_study.h"
 #include "test_paths.h"
 
 using namespace stowage;

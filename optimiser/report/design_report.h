@@ -10,9 +10,9 @@
 
 #include "model/lifecycle.h"
 #include "model/study.h"
-#include "optimiser/cli/json_writer.h"
+#include "optimiser/report/json_writer.h"
 
-namespace stowage::cli {
+namespace stowage::report {
 
 // Writes one design object: profile, dod_setpoint, cells_series, strings_parallel,
 // nameplate_kwh, lcos_per_kwh, npc, currency, replacement_years, discharged_kwh_per_year,
@@ -25,9 +25,9 @@ void write_design_json(JsonWriter& json, const DesignResult& design);
 // A readable block for one design: bank, energy, ageing, replacements, cost breakdown, LCOS.
 void print_design_table(std::ostream& out, const DesignResult& design);
 
-// CSV texts: one summary row per design, and the year-by-year cash flows of every design.
-std::string designs_summary_csv(const std::vector<DesignResult>& designs);
-std::string cash_flows_csv(const std::vector<DesignResult>& designs);
+// CSV files: one summary row per design, and the year-by-year cash flows of every design.
+void write_designs_csv(std::ostream& out, const std::vector<DesignResult>& designs);
+void write_cash_flows_csv(std::ostream& out, const std::vector<DesignResult>& designs);
 
 // The opening fields of a JSON report: stowage_version, study, site, project_years,
 // real_discount_rate and currency.
@@ -39,4 +39,4 @@ void print_study_header(std::ostream& out, const Study& study, const std::string
 // The caution every report and the README carry: planning estimate, hazards, defer to codes.
 void print_safety_notice(std::ostream& out);
 
-}  // namespace stowage::cli
+}  // namespace stowage::report

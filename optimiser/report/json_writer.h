@@ -8,7 +8,7 @@
 #include <string_view>
 #include <vector>
 
-namespace stowage::cli {
+namespace stowage::report {
 
 class JsonWriter {
  public:
@@ -40,4 +40,4 @@ class JsonWriter {
   bool after_key_ = false;
 };
 
-}  // namespace stowage::cli
+}  // namespace stowage::report

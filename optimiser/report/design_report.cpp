@@ -1,15 +1,16 @@
 // SPDX-License-Identifier: MIT
-#include "optimiser/cli/design_report.h"
+#include "optimiser/report/design_report.h"
 
 #include <fmt/format.h>
 #include <fmt/ostream.h>
 
 #include <sstream>
 
-#include "optimiser/cli/cli_support.h"
+#include "optimiser/report/cost_lines.h"
+#include "optimiser/report/number_format.h"
 #include "stowage_version.h"
 
-namespace stowage::cli {
+namespace stowage::report {
 
 namespace {
 
@@ -22,28 +23,7 @@ std::string years_text(const std::vector<int>& years, const char* separator) {
   return out;
 }
 
-struct BreakdownItem {
-  const char* key;    // JSON / CSV name
-  const char* label;  // table label
-  double CostBreakdown::*member;
-};
-
-constexpr BreakdownItem kBreakdown[] = {
-    {"investment", "investment (year 0)", &CostBreakdown::investment},
-    {"replacements", "replacements", &CostBreakdown::replacements},
-    {"fixed_om", "fixed O&M", &CostBreakdown::fixed_om},
-    {"variable_om", "variable O&M", &CostBreakdown::variable_om},
-    {"charging", "charging energy (incl. losses)", &CostBreakdown::charging},
-    {"end_of_life", "end of life", &CostBreakdown::end_of_life},
-    {"residual_value", "residual value (credit)", &CostBreakdown::residual_value},
-    {"backup", "back-up energy", &CostBreakdown::backup},
-    {"unserved_penalty", "unserved-energy penalty", &CostBreakdown::unserved_penalty},
-};
-
-std::string csv_number(double v) {
-  if (!std::isfinite(v)) return "";
-  return fmt::format("{:.10g}", v);
-}
+std::string csv_number(double v) { return format_machine(v, 10); }
 
 }  // namespace
 
@@ -70,7 +50,7 @@ void write_design_json(JsonWriter& json, const DesignResult& d) {
   json.field("unserved_fraction_max", d.unserved_fraction_max);
   json.field("meets_unserved_limit", d.meets_unserved_limit);
   json.key("breakdown").begin_object();
-  for (const auto& item : kBreakdown) json.field(item.key, d.present_value.*item.member);
+  for (const CostLine& item : cost_lines()) json.field(item.key, d.present_value.*item.member);
   json.end_object();
   json.end_object();
 }
@@ -100,7 +80,7 @@ void print_design_table(std::ostream& out, const DesignResult& d) {
         out, "  WARNING       unserved energy reaches {:.3f} % of demand, above the site's limit\n",
         100 * d.unserved_fraction_max);
   fmt::print(out, "  present value ({})\n", d.currency);
-  for (const auto& item : kBreakdown) {
+  for (const CostLine& item : cost_lines()) {
     const double v = d.present_value.*item.member;
     if (v == 0) continue;
     fmt::print(out, "    {:<32}{:>14}\n", item.label, format_amount(v));
@@ -112,13 +92,12 @@ void print_design_table(std::ostream& out, const DesignResult& d) {
              d.lcos_per_kwh, d.currency);
 }
 
-std::string designs_summary_csv(const std::vector<DesignResult>& designs) {
-  std::ostringstream out;
+void write_designs_csv(std::ostream& out, const std::vector<DesignResult>& designs) {
   out << "profile,dod_setpoint,cells_series,strings_parallel,nameplate_kwh,lcos_per_kwh,npc,"
          "currency,replacement_years,discharged_kwh_per_year,discharged_kwh_first_year,"
          "unserved_kwh_first_year,backup_kwh_first_year,equivalent_full_cycles_first_year,"
          "meets_unserved_limit";
-  for (const auto& item : kBreakdown) out << ",pv_" << item.key;
+  for (const CostLine& item : cost_lines()) out << ",pv_" << item.key;
   out << "\n";
   for (const auto& d : designs) {
     out << d.profile_id << ',' << csv_number(d.dod_setpoint) << ',' << d.bank.cells_series << ','
@@ -130,14 +109,13 @@ std::string designs_summary_csv(const std::vector<DesignResult>& designs) {
         << csv_number(d.unserved_kwh_first_year()) << ',' << csv_number(d.backup_kwh_first_year())
         << ',' << csv_number(d.equivalent_full_cycles_first_year()) << ','
         << (d.meets_unserved_limit ? "true" : "false");
-    for (const auto& item : kBreakdown) out << ',' << csv_number(d.present_value.*item.member);
+    for (const CostLine& item : cost_lines())
+      out << ',' << csv_number(d.present_value.*item.member);
     out << "\n";
   }
-  return out.str();
 }
 
-std::string cash_flows_csv(const std::vector<DesignResult>& designs) {
-  std::ostringstream out;
+void write_cash_flows_csv(std::ostream& out, const std::vector<DesignResult>& designs) {
   out << "profile,dod_setpoint,strings_parallel,year,health_start,damage_cycle,damage_calendar,"
          "damage_partial_charge,damage_end,replaced_at_end,discharged_kwh,charge_source_kwh,"
          "backup_kwh,unserved_kwh,curtailed_kwh,investment,replacement,fixed_om,variable_om,"
@@ -172,7 +150,6 @@ std::string cash_flows_csv(const std::vector<DesignResult>& designs) {
         << ",0," << csv_number(d.final_end_of_life) << ',' << csv_number(df_last) << ','
         << csv_number(d.final_end_of_life * df_last) << "\n";
   }
-  return out.str();
 }
 
 void write_study_json(JsonWriter& json, const Study& study) {
@@ -203,4 +180,4 @@ void print_safety_notice(std::ostream& out) {
          "instructions and licensed practice for any installation.\n";
 }
 
-}  // namespace stowage::cli
+}  // namespace stowage::report

@@ -1,10 +1,12 @@
 // SPDX-License-Identifier: MIT
-#include "optimiser/cli/json_writer.h"
+#include "optimiser/report/json_writer.h"
 
 #include <cmath>
 #include <cstdio>
 
-namespace stowage::cli {
+#include "optimiser/report/number_format.h"
+
+namespace stowage::report {
 
 void JsonWriter::before_value() {
   if (after_key_) {
@@ -54,9 +56,7 @@ JsonWriter& JsonWriter::key(std::string_view name) {
 JsonWriter& JsonWriter::value(double number) {
   if (!std::isfinite(number)) return null();
   before_value();
-  char buf[32];
-  std::snprintf(buf, sizeof buf, "%.12g", number);
-  out_ += buf;
+  out_ += format_machine(number, 12);
   return *this;
 }
 
@@ -118,4 +118,4 @@ void JsonWriter::write_string(std::string_view text) {
   out_ += '"';
 }
 
-}  // namespace stowage::cli
+}  // namespace stowage::report

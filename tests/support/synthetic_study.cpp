@@ -1,5 +1,5 @@
 // SPDX-License-Identifier: MIT
-#include "optimiser/synthetic_study.h"
+#include "support/synthetic_study.h"
 
 #include <algorithm>
 #include <cmath>

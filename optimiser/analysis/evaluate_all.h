@@ -1,0 +1,18 @@
+// SPDX-License-Identifier: MIT
+// evaluate_all(): the exact lifecycle (model/lifecycle.h) of every design a study lists, in
+// the study's order, with defaults filled in by resolve_designs (an unset DoD takes the
+// profile's default, unset strings are sized for autonomy; no designs listed: every profile
+// once). One evaluator per profile is shared by that profile's designs.
+// Throws InvalidValue for a design that names an unknown profile; the study must be validated.
+#pragma once
+
+#include <vector>
+
+#include "model/lifecycle.h"
+#include "model/study.h"
+
+namespace stowage {
+
+std::vector<DesignResult> evaluate_all(const Study& study);
+
+}  // namespace stowage
