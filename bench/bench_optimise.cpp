@@ -34,7 +34,7 @@ namespace {
 constexpr double kMonolithicLimitS = 30;
 
 // GLPK branch and bound on the monolithic model of the whole admissible design space.
-SolveReport solve_monolithic(const Study& study, int* columns) {
+SolveReport solve_monolithic(const StudyCase& study, int* columns) {
   const DesignSpace space = build_design_space(study);
   std::vector<std::unique_ptr<LifecycleEvaluator>> evaluators;
   for (const ChemistryProfile& p : study.profiles) {
@@ -58,7 +58,7 @@ SolveReport solve_monolithic(const Study& study, int* columns) {
 }
 
 // The least GLPK objective over the decomposed sub-models (one per admissible pair).
-double milp_best_submodel_objective(const Study& study) {
+double milp_best_submodel_objective(const StudyCase& study) {
   const DesignSpace space = build_design_space(study);
   const RepresentativeDays days = select_representative_days(study.site, 1);
   double best = std::numeric_limits<double>::infinity();
@@ -75,7 +75,7 @@ double milp_best_submodel_objective(const Study& study) {
   return best;
 }
 
-void compare(const char* label, const Study& study) {
+void compare(const char* label, const StudyCase& study) {
   std::printf("\noptimise: %s\n", label);
   OptimiseOptions exhaustive_options;
   exhaustive_options.method = SearchMethod::Exhaustive;

@@ -133,7 +133,7 @@ void read_designs(const YamlDocument& doc, LoadedStudy& loaded) {
 void read_search(const YamlDocument& doc, LoadedStudy& loaded) {
   const YAML::Node s = doc.root()["study"]["search"];
   if (!s) return;
-  SearchSpace& search = loaded.study.search;
+  SearchSettings& search = loaded.study.search;
   if (const YAML::Node ladder = s["dod_ladder"]) {
     search.dod_from = number(ladder["from"]);
     search.dod_to = number(ladder["to"]);
@@ -215,10 +215,11 @@ LoadedStudy load_study_details_file(const std::string& path) {
   return load_study_details(in, path, parent_directory(path));
 }
 
-Study load_study(std::istream& in, const std::string& source_name, const std::string& base_dir) {
+StudyCase load_study(std::istream& in, const std::string& source_name,
+                     const std::string& base_dir) {
   return load_study_details(in, source_name, base_dir).study;
 }
 
-Study load_study_file(const std::string& path) { return load_study_details_file(path).study; }
+StudyCase load_study_file(const std::string& path) { return load_study_details_file(path).study; }
 
 }  // namespace stowage

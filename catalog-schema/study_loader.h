@@ -27,12 +27,12 @@
 #include "catalog-schema/profile_loader.h"
 #include "catalog-schema/site_loader.h"
 #include "catalog-schema/soc_series.h"
-#include "model/study.h"
+#include "catalog-schema/study_case.h"
 
 namespace stowage {
 
 struct LoadedStudy {
-  Study study;
+  StudyCase study;
   std::string path;                        // source name of the study file
   std::string site_path;                   // the site file as opened
   std::string hourly_path;                 // the site's hourly CSV as opened
@@ -46,7 +46,7 @@ LoadedStudy load_study_details(std::istream& in, const std::string& source_name,
                                const std::string& base_dir);
 LoadedStudy load_study_details_file(const std::string& path);
 
-Study load_study(std::istream& in, const std::string& source_name, const std::string& base_dir);
-Study load_study_file(const std::string& path);
+StudyCase load_study(std::istream& in, const std::string& source_name, const std::string& base_dir);
+StudyCase load_study_file(const std::string& path);
 
 }  // namespace stowage

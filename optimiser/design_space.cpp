@@ -4,7 +4,6 @@
 #include <algorithm>
 #include <cmath>
 #include <limits>
-#include <sstream>
 
 #include "model/bank.h"
 #include "model/costs.h"
@@ -12,24 +11,6 @@
 #include "model/sizing.h"
 
 namespace stowage {
-
-const char* to_string(StringCap cap) {
-  switch (cap) {
-    case StringCap::MaxStrings:
-      return "max_strings_parallel";
-    case StringCap::Budget:
-      return "budget";
-    case StringCap::Mass:
-      return "max_mass_kg";
-    case StringCap::Volume:
-      return "max_volume_l";
-    case StringCap::MissingMass:
-      return "max_mass_kg (profile gives no cell_mass_kg)";
-    case StringCap::MissingVolume:
-      return "max_volume_l (profile gives no cell_volume_l)";
-  }
-  return "?";
-}
 
 double string_nameplate_kwh(const ChemistryProfile& profile, double bus_voltage_v) {
   return bank_geometry(profile, bus_voltage_v, 1).nameplate_kwh;
@@ -117,6 +98,21 @@ double npc_lower_bound(const ChemistryProfile& profile, const Study& study, int 
   return bound;
 }
 
+std::vector<double> dod_ladder(const SearchSettings& search, const ChemistryProfile& profile) {
+  std::vector<double> out;
+  const double tol = 1e-9;
+  const long steps =
+      std::lround(std::floor((search.dod_to - search.dod_from) / search.dod_step + tol));
+  for (long i = 0; i <= steps; ++i) {
+    double d = search.dod_from + static_cast<double>(i) * search.dod_step;
+    d = std::round(d * 1e9) /
+        1e9;  // land on the decimal the user meant (0.35, not 0.35000000000000003)
+    if (d > 1.0) d = 1.0;
+    if (d + tol >= profile.dod.min && d - tol <= profile.dod.max) out.push_back(d);
+  }
+  return out;
+}
+
 namespace {
 
 // Least n >= 1 with design_usable_kwh(n) >= required, starting from the sizing rule's answer
@@ -138,7 +134,7 @@ int cap_by(double limit, double per_string) {
 
 }  // namespace
 
-DesignSpace build_design_space(const Study& study) {
+DesignSpace build_design_space(const StudyCase& study) {
   DesignSpace space;
   const SiteConditions& site = study.site;
   double peak = 0;
@@ -146,7 +142,7 @@ DesignSpace build_design_space(const Study& study) {
     peak = std::max(peak, hour_balance(site, h).deficit_kwh);
   }
   space.peak_discharge_terminal_kw = peak / site.inverter_efficiency;
-  const SearchSpace& s = study.search;
+  const SearchSettings& s = study.search;
 
   for (std::size_t p = 0; p < study.profiles.size(); ++p) {
     const ChemistryProfile& profile = study.profiles[p];
@@ -169,9 +165,7 @@ DesignSpace build_design_space(const Study& study) {
     if (s.max_mass_kg) {
       if (!profile.cell_mass_kg) {
         apply(0, StringCap::MissingMass);
-        space.notes.push_back("profile " + profile.id +
-                              " gives no cell_mass_kg, so it cannot be shown to meet "
-                              "max_mass_kg and is left out");
+        space.notes.push_back({p, ProfileNote::Kind::NoCellMass});
       } else {
         apply(cap_by(*s.max_mass_kg, *profile.cell_mass_kg * cells), StringCap::Mass);
       }
@@ -179,9 +173,7 @@ DesignSpace build_design_space(const Study& study) {
     if (s.max_volume_l) {
       if (!profile.cell_volume_l) {
         apply(0, StringCap::MissingVolume);
-        space.notes.push_back("profile " + profile.id +
-                              " gives no cell_volume_l, so it cannot be shown to meet "
-                              "max_volume_l and is left out");
+        space.notes.push_back({p, ProfileNote::Kind::NoCellVolume});
       } else {
         apply(cap_by(*s.max_volume_l, *profile.cell_volume_l * cells), StringCap::Volume);
       }
@@ -223,32 +215,19 @@ std::size_t DesignSpace::admissible_choices() const {
       choices.begin(), choices.end(), [](const DesignChoice& c) { return c.admissible(); }));
 }
 
-namespace {
-std::string fmt(double x, int digits = 4) {
-  std::ostringstream s;
-  s.precision(digits);
-  s << x;
-  return s.str();
-}
-}  // namespace
-
-std::vector<UnmetRequirement> DesignSpace::diagnose(const Study& study) const {
+std::vector<UnmetRequirement> DesignSpace::diagnose(const StudyCase& study) const {
   std::vector<UnmetRequirement> unmet;
   if (admissible_choices() > 0) return unmet;
   if (choices.empty()) {
-    unmet.push_back({"dod ladder",
-                     "no profile allows any DoD setpoint of the search ladder (" +
-                         fmt(study.search.dod_from) + " to " + fmt(study.search.dod_to) +
-                         " in steps of " + fmt(study.search.dod_step) + ")",
-                     0, 0});
+    unmet.push_back({Requirement::DodLadder, 0, 0, std::nullopt, false});
     return unmet;
   }
   const SiteConditions& site = study.site;
+  const SearchSettings& search = study.search;
   // Pairs whose caps allow no bank at all.
   bool any_bank = false;
   for (const DesignChoice& c : choices) any_bank = any_bank || c.max_strings >= 1;
   if (!any_bank) {
-    // Report the cap that rules out the most profiles, with the smallest bank it would need.
     double cheapest = std::numeric_limits<double>::infinity();
     double lightest = cheapest, smallest = cheapest;
     bool missing_mass = false, missing_volume = false, budget = false, mass = false, volume = false;
@@ -264,38 +243,26 @@ std::vector<UnmetRequirement> DesignSpace::diagnose(const Study& study) const {
       mass |= c.cap == StringCap::Mass;
       volume |= c.cap == StringCap::Volume;
     }
-    if (study.search.max_strings_parallel < 1) {
-      unmet.push_back({"max_strings_parallel", "max_strings_parallel is below one string", 1,
-                       static_cast<double>(study.search.max_strings_parallel)});
+    if (search.max_strings_parallel < 1) {
+      unmet.push_back({Requirement::MaxStrings, 1, static_cast<double>(search.max_strings_parallel),
+                       std::nullopt, false});
     }
-    if (budget) {
-      unmet.push_back({"budget",
-                       "the budget of " + fmt(*study.search.budget) +
-                           " buys no bank: the cheapest one-string bank costs " + fmt(cheapest),
-                       cheapest, *study.search.budget});
-    }
+    if (budget)
+      unmet.push_back({Requirement::Budget, cheapest, *search.budget, std::nullopt, false});
     if (mass) {
-      unmet.push_back({"max_mass_kg",
-                       "max_mass_kg " + fmt(*study.search.max_mass_kg) +
-                           " is below the lightest string (" + fmt(lightest) + " kg)",
-                       lightest, *study.search.max_mass_kg});
+      unmet.push_back({Requirement::Mass, lightest, *search.max_mass_kg, std::nullopt, false});
     }
     if (volume) {
-      unmet.push_back({"max_volume_l",
-                       "max_volume_l " + fmt(*study.search.max_volume_l) +
-                           " is below the smallest string (" + fmt(smallest) + " l)",
-                       smallest, *study.search.max_volume_l});
+      unmet.push_back({Requirement::Volume, smallest, *search.max_volume_l, std::nullopt, false});
     }
     if (missing_mass || missing_volume) {
-      std::string text;
-      for (const std::string& n : notes) text += (text.empty() ? "" : "; ") + n;
-      unmet.push_back({missing_mass ? "max_mass_kg" : "max_volume_l", text, 0, 0});
+      unmet.push_back({Requirement::MissingCellData, 0, 0, std::nullopt, missing_mass});
     }
     return unmet;
   }
   // Some bank is allowed, but too small: compare what is needed with the most allowed.
   double need_energy = 0, best_energy = 0, need_power = peak_discharge_terminal_kw, best_power = 0;
-  std::string best_energy_at, best_power_at, cap_note;
+  std::optional<DesignRef> best_energy_at, best_power_at;
   bool energy_met = false, power_met = false;
   for (const DesignChoice& c : choices) {
     if (c.max_strings < 1) continue;
@@ -304,44 +271,24 @@ std::vector<UnmetRequirement> DesignSpace::diagnose(const Study& study) const {
     need_energy = std::max(need_energy, c.required_usable_kwh);
     if (usable > best_energy) {
       best_energy = usable;
-      best_energy_at = p.id + " at DoD " + fmt(c.dod_setpoint, 3) + " with " +
-                       std::to_string(c.max_strings) + " strings (capped by " + to_string(c.cap) +
-                       ")";
+      best_energy_at = DesignRef{c.profile_index, c.dod_setpoint, c.max_strings, c.cap};
     }
     const double power = string_discharge_power_kw(p, site.bus_voltage_v) * c.max_strings;
     if (power > best_power) {
       best_power = power;
-      best_power_at = p.id + " with " + std::to_string(c.max_strings) + " strings (capped by " +
-                      to_string(c.cap) + ")";
+      best_power_at = DesignRef{c.profile_index, c.dod_setpoint, c.max_strings, c.cap};
     }
     energy_met |= c.autonomy_strings <= c.max_strings;
     power_met |= c.c_rate_strings <= c.max_strings;
   }
   if (energy_met && power_met) {
-    unmet.push_back({"autonomy and peak discharge",
-                     "no allowed bank meets both the autonomy energy (" + fmt(need_energy) +
-                         " kWh usable) and the peak draw (" + fmt(need_power) +
-                         " kW at the terminals): the banks with enough energy lack power and "
-                         "the other way round",
-                     need_energy, best_energy});
+    unmet.push_back({Requirement::AutonomyAndPeak, need_energy, best_energy, std::nullopt, false});
   }
   if (!energy_met) {
-    unmet.push_back({"autonomy",
-                     "autonomy of " + fmt(site.autonomy_days) + " days needs " + fmt(need_energy) +
-                         " kWh usable at the terminals (coldest month, end of life, within the "
-                         "DoD setpoint); the most any allowed bank gives is " +
-                         fmt(best_energy) + " kWh (" + best_energy_at + "), short by " +
-                         fmt(need_energy - best_energy) + " kWh",
-                     need_energy, best_energy});
+    unmet.push_back({Requirement::Autonomy, need_energy, best_energy, best_energy_at, false});
   }
   if (!power_met) {
-    unmet.push_back({"peak discharge",
-                     "the peak draw needs " + fmt(need_power) +
-                         " kW at the bank terminals within the discharge C-rate; the most any "
-                         "allowed bank gives is " +
-                         fmt(best_power) + " kW (" + best_power_at + "), short by " +
-                         fmt(need_power - best_power) + " kW",
-                     need_power, best_power});
+    unmet.push_back({Requirement::PeakDischarge, need_power, best_power, best_power_at, false});
   }
   return unmet;
 }

@@ -28,16 +28,16 @@
 #pragma once
 
 #include <cstddef>
+#include <optional>
 #include <string>
 #include <vector>
 
-#include "model/study.h"
+#include "catalog-schema/study_case.h"
 
 namespace stowage {
 
 // What caps the strings of a pair from above.
 enum class StringCap { MaxStrings, Budget, Mass, Volume, MissingMass, MissingVolume };
-const char* to_string(StringCap cap);
 
 struct DesignChoice {
   std::size_t profile_index = 0;  // into Study::profiles
@@ -53,26 +53,69 @@ struct DesignChoice {
   int strings_count() const { return admissible() ? max_strings - min_strings + 1 : 0; }
 };
 
-// One requirement no design meets, with the numbers that show by how much.
+// A design named in a diagnosis: where the best available figure is reached.
+struct DesignRef {
+  std::size_t profile_index = 0;
+  double dod_setpoint = 0;
+  int strings = 0;
+  StringCap cap = StringCap::MaxStrings;  // what capped its strings
+};
+
+enum class Requirement {
+  DodLadder,        // no profile allows a setpoint of the ladder
+  MaxStrings,       // max_strings_parallel below one string
+  Budget,           // the budget buys no bank (needed: cheapest one-string bank)
+  Mass,             // the mass cap is below the lightest string (kg)
+  Volume,           // the volume cap is below the smallest string (l)
+  MissingCellData,  // a mass or volume cap, and profiles without the cell figure
+  AutonomyAndPeak,  // banks with enough energy lack power and the other way round
+  Autonomy,         // usable kWh at the terminals: needed vs the most any allowed bank gives
+  PeakDischarge,    // kW at the terminals within the discharge C-rate
+  UnservedLimit,    // fraction of demand unserved in the worst year: limit vs least reached
+};
+
+// One requirement no design meets, with the numbers that show by how much (data only; the
+// report layer words it).
 struct UnmetRequirement {
-  std::string requirement;  // e.g. "autonomy", "peak discharge", "budget"
-  std::string detail;       // a full sentence with the figures
+  Requirement requirement = Requirement::Autonomy;
   double needed = 0;
   double best_available = 0;
+  std::optional<DesignRef> best_at;  // the design reaching best_available, when one does
+  bool missing_mass = false;         // MissingCellData: a mass cap (else a volume cap)
+};
+
+// Why a profile is left out or has no design in the ranking.
+struct ProfileNote {
+  enum class Kind {
+    NoCellMass,    // a mass cap is set and the profile gives no cell mass
+    NoCellVolume,  // a volume cap is set and the profile gives no cell volume
+    NoDesignMeetsUnservedLimit,
+    LadderOutsideDodRange,  // no ladder setpoint lies within the profile's DoD range
+    CapsBelowNeed,          // autonomy or the peak draw needs more strings than allowed
+  };
+  std::size_t profile_index = 0;
+  Kind kind = Kind::CapsBelowNeed;
+  bool autonomy_needs_more = false, peak_needs_more = false;  // CapsBelowNeed
+  int cap_strings = 0;                                        // CapsBelowNeed
+  StringCap cap = StringCap::MaxStrings;                      // CapsBelowNeed
 };
 
 struct DesignSpace {
   std::vector<DesignChoice> choices;      // every (profile, ladder setpoint) pair
   double peak_discharge_terminal_kw = 0;  // max (load - source)^+ / inverter_efficiency
-  std::vector<std::string> notes;         // e.g. profiles excluded by a missing cell mass
+  std::vector<ProfileNote> notes;         // profiles excluded by a missing cell mass or volume
 
   std::size_t admissible_designs() const;  // sum of strings_count()
   std::size_t admissible_choices() const;
   // Why no admissible pair exists; empty when some pair is admissible.
-  std::vector<UnmetRequirement> diagnose(const Study& study) const;
+  std::vector<UnmetRequirement> diagnose(const StudyCase& study) const;
 };
 
-DesignSpace build_design_space(const Study& study);
+DesignSpace build_design_space(const StudyCase& study);
+
+// The DoD ladder of `search` restricted to the profile's allowed [dod.min, dod.max]; values
+// are rounded to 1e-9 so 0.05 steps land on exact decimals.
+std::vector<double> dod_ladder(const SearchSettings& search, const ChemistryProfile& profile);
 
 // Per-string figures of a profile on the study's bus.
 double string_nameplate_kwh(const ChemistryProfile& profile, double bus_voltage_v);

@@ -7,7 +7,6 @@
 #include <limits>
 #include <map>
 #include <memory>
-#include <sstream>
 #include <stdexcept>
 
 #include "model/contract.h"
@@ -66,7 +65,7 @@ double median(std::vector<double> v) {
 // The state of one search: evaluators, cache of exact results, the incumbents.
 class Search {
  public:
-  Search(const Study& study, const OptimiseOptions& options)
+  Search(const StudyCase& study, const OptimiseOptions& options)
       : study_(study), options_(options), start_(Clock::now()) {
     space_ = build_design_space(study);
     for (const ChemistryProfile& p : study.profiles) {
@@ -106,7 +105,7 @@ class Search {
       if (profile_best_[p]) {
         result.ranking.push_back(*profile_best_[p]);
       } else if (!hit_limit_) {
-        result.notes.push_back("profile " + study_.profiles[p].id + ": " + why_absent(p));
+        result.notes.push_back(why_absent(p));
       }
     }
     std::stable_sort(result.ranking.begin(), result.ranking.end(),
@@ -232,8 +231,7 @@ class Search {
     e.unserved_fraction = r.unserved_fraction_max;
     if (e.unserved_fraction < least_unserved_) {
       least_unserved_ = e.unserved_fraction;
-      least_unserved_at_ = r.profile_id + " at DoD " + fixed(r.dod_setpoint, 2) + " with " +
-                           std::to_string(n) + " strings";
+      least_unserved_at_ = DesignRef{ch.profile_index, ch.dod_setpoint, n, ch.cap};
     }
     if (e.feasible) {
       auto& pb = profile_best_[ch.profile_index];
@@ -241,14 +239,6 @@ class Search {
       if (!best_ || r.npc < best_->npc) best_ = r;
     }
     return cache_.emplace(key, e).first->second;
-  }
-
-  static std::string fixed(double x, int digits) {
-    std::ostringstream s;
-    s.setf(std::ios::fixed);
-    s.precision(digits);
-    s << x;
-    return s.str();
   }
 
   MilpChoice milp_choice(std::size_t c, int lo, int hi) const {
@@ -474,43 +464,34 @@ class Search {
   }
 
   // Why a profile has no design in the ranking.
-  std::string why_absent(std::size_t p) const {
-    bool admissible = false, capped_below_autonomy = false, capped_below_power = false;
-    int cap = 0;
-    StringCap cap_kind = StringCap::MaxStrings;
+  ProfileNote why_absent(std::size_t p) const {
+    ProfileNote note;
+    note.profile_index = p;
+    bool admissible = false;
     for (const DesignChoice& c : space_.choices) {
       if (c.profile_index != p) continue;
       admissible |= c.admissible();
-      capped_below_autonomy |= c.autonomy_strings > c.max_strings;
-      capped_below_power |= c.c_rate_strings > c.max_strings;
-      cap = c.max_strings;
-      cap_kind = c.cap;
+      note.autonomy_needs_more |= c.autonomy_strings > c.max_strings;
+      note.peak_needs_more |= c.c_rate_strings > c.max_strings;
+      note.cap_strings = std::max(c.max_strings, 0);
+      note.cap = c.cap;
     }
     if (admissible) {
-      return "no design searched meets the unserved-energy limit";
+      note.kind = ProfileNote::Kind::NoDesignMeetsUnservedLimit;
+    } else if (dod_ladder(study_.search, study_.profiles[p]).empty()) {
+      note.kind = ProfileNote::Kind::LadderOutsideDodRange;
+    } else {
+      note.kind = ProfileNote::Kind::CapsBelowNeed;
     }
-    if (dod_ladder(study_.search, study_.profiles[p]).empty()) {
-      return "its allowed DoD range holds no setpoint of the ladder";
-    }
-    std::string why = "no admissible design: ";
-    if (capped_below_autonomy) why += "the autonomy needs more strings ";
-    if (capped_below_power) {
-      why += std::string(capped_below_autonomy ? "and " : "") + "the peak draw needs more strings ";
-    }
-    return why + "than the " + std::to_string(std::max(cap, 0)) + " allowed by " +
-           to_string(cap_kind) + " at every setpoint";
+    return note;
   }
 
   UnmetRequirement unserved_diagnosis() const {
     UnmetRequirement u;
-    u.requirement = "unserved energy limit";
+    u.requirement = Requirement::UnservedLimit;
     u.needed = study_.site.unserved_limit_fraction.value_or(0);
     u.best_available = least_unserved_;
-    std::ostringstream s;
-    s << "no admissible design keeps unserved energy within " << u.needed * 100
-      << " % of demand in every year; the least reached is " << least_unserved_ * 100 << " % ("
-      << least_unserved_at_ << ")";
-    u.detail = s.str();
+    u.best_at = least_unserved_at_;
     return u;
   }
 
@@ -545,7 +526,7 @@ class Search {
     result.gap = (best.npc - r.estimate_npc) / std::max(std::fabs(best.npc), 1e-9);
   }
 
-  const Study& study_;
+  const StudyCase& study_;
   const OptimiseOptions& options_;
   Clock::time_point start_;
   DesignSpace space_;
@@ -563,19 +544,19 @@ class Search {
   double model_seconds_ = 0;
   bool hit_limit_ = false;
   double least_unserved_ = kInf;
-  std::string least_unserved_at_;
+  std::optional<DesignRef> least_unserved_at_;
 };
 
 }  // namespace
 
-OptimiseResult optimise(const Study& study, const OptimiseOptions& options) {
+OptimiseResult optimise(const StudyCase& study, const OptimiseOptions& options) {
   options.validate();
   Search search(study, options);
   return search.run();
 }
 
-double export_design_space_model(const Study& study, const std::string& path, int days_per_block,
-                                 bool solve) {
+double export_design_space_model(const StudyCase& study, const std::string& path,
+                                 int days_per_block, bool solve) {
   const DesignSpace space = build_design_space(study);
   std::vector<std::unique_ptr<LifecycleEvaluator>> evaluators;
   for (const ChemistryProfile& p : study.profiles) {

@@ -101,20 +101,20 @@ struct OptimiseResult {
   bool proven_optimal() const { return status == Optimality::Proven; }
   bool time_limit_reached = false;
   std::vector<UnmetRequirement> unmet;  // why there is no feasible design (ranking empty)
-  std::vector<std::string> notes;       // e.g. profiles left out for a missing cell mass
+  std::vector<ProfileNote> notes;       // profiles left out or absent from the ranking, and why
 
   bool feasible() const { return !ranking.empty(); }
   const DesignResult& best() const { return ranking.front(); }  // requires feasible()
 };
 
 // Throws ContractViolation for bad options; the study must be validated.
-OptimiseResult optimise(const Study& study, const OptimiseOptions& options = {});
+OptimiseResult optimise(const StudyCase& study, const OptimiseOptions& options = {});
 
 // Writes the monolithic model of the study's admissible design space (every admissible pair as
 // a binary choice; see storage_milp.h): CPLEX LP when `path` ends in ".lp", free MPS otherwise.
 // Returns GLPK's optimal objective value of that model when `solve` is true (else NaN).
 // Throws std::runtime_error when no pair is admissible or the file cannot be written.
-double export_design_space_model(const Study& study, const std::string& path,
+double export_design_space_model(const StudyCase& study, const std::string& path,
                                  int days_per_block = 1, bool solve = false);
 
 }  // namespace stowage

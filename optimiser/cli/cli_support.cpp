@@ -44,6 +44,6 @@ void add_format_option(CLI::App& command, OutputFormat& format) {
       ->type_name("FORMAT");
 }
 
-Study load_study_for_cli(const std::string& path) { return load_study_file(path); }
+StudyCase load_study_for_cli(const std::string& path) { return load_study_file(path); }
 
 }  // namespace stowage::cli

@@ -7,7 +7,7 @@
 #include <functional>
 #include <string>
 
-#include "model/study.h"
+#include "catalog-schema/study_case.h"
 
 namespace stowage::cli {
 
@@ -21,6 +21,6 @@ enum class OutputFormat { Text, Json };
 void add_format_option(CLI::App& command, OutputFormat& format);
 
 // Loads and validates a study file; throws InputError naming file, line and field.
-Study load_study_for_cli(const std::string& path);
+StudyCase load_study_for_cli(const std::string& path);
 
 }  // namespace stowage::cli

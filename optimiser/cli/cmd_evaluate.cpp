@@ -36,7 +36,7 @@ void register_evaluate(CLI::App& app, int& exit_code) {
     exit_code = run_guarded([&]() {
       std::optional<report::OutputSet> files;
       if (args->out_dir) files.emplace(*args->out_dir);  // refuses a bad DIR now
-      const Study study = load_study_for_cli(args->study_path);
+      const StudyCase study = load_study_for_cli(args->study_path);
       const std::vector<DesignResult> results = evaluate_all(study);
       // Files first: a failure to write them must not follow a printed success.
       if (files) {

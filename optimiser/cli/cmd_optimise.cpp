@@ -89,7 +89,7 @@ void register_optimise(CLI::App& app, int& exit_code) {
     exit_code = run_guarded([&]() {
       std::optional<report::OutputSet> files;
       if (args->out_dir) files.emplace(*args->out_dir);  // refuses a bad DIR now
-      const Study study = load_study_for_cli(args->study_path);
+      const StudyCase study = load_study_for_cli(args->study_path);
       if (!args->export_model.empty()) {
         if (build_design_space(study).admissible_choices() == 0) {
           report::write_no_model_exported(std::cerr, args->export_model);

@@ -14,9 +14,157 @@
 
 namespace stowage::report {
 
+std::string cap_name(StringCap cap) {
+  switch (cap) {
+    case StringCap::MaxStrings:
+      return "max_strings_parallel";
+    case StringCap::Budget:
+      return "budget";
+    case StringCap::Mass:
+      return "max_mass_kg";
+    case StringCap::Volume:
+      return "max_volume_l";
+    case StringCap::MissingMass:
+      return "max_mass_kg (profile gives no cell_mass_kg)";
+    case StringCap::MissingVolume:
+      return "max_volume_l (profile gives no cell_volume_l)";
+  }
+  return "?";
+}
+
+std::string requirement_key(const UnmetRequirement& u) {
+  switch (u.requirement) {
+    case Requirement::DodLadder:
+      return "dod ladder";
+    case Requirement::MaxStrings:
+      return "max_strings_parallel";
+    case Requirement::Budget:
+      return "budget";
+    case Requirement::Mass:
+      return "max_mass_kg";
+    case Requirement::Volume:
+      return "max_volume_l";
+    case Requirement::MissingCellData:
+      return u.missing_mass ? "max_mass_kg" : "max_volume_l";
+    case Requirement::AutonomyAndPeak:
+      return "autonomy and peak discharge";
+    case Requirement::Autonomy:
+      return "autonomy";
+    case Requirement::PeakDischarge:
+      return "peak discharge";
+    case Requirement::UnservedLimit:
+      return "unserved energy limit";
+  }
+  return "?";
+}
+
 namespace {
 
-void print_header(std::ostream& out, const Study& study, const OptimiseResult& r) {
+std::string g4(double x) { return format_general(x, 4); }
+
+std::string design_text(const DesignRef& d, const StudyCase& study, bool with_dod) {
+  std::string text = study.profiles[d.profile_index].id;
+  if (with_dod) text += " at DoD " + format_general(d.dod_setpoint, 3);
+  return text + " with " + std::to_string(d.strings) + " strings (capped by " + cap_name(d.cap) +
+         ")";
+}
+
+std::string note_body(const ProfileNote& n, const StudyCase& study) {
+  const std::string& id = study.profiles[n.profile_index].id;
+  switch (n.kind) {
+    case ProfileNote::Kind::NoCellMass:
+      return "profile " + id +
+             " gives no cell_mass_kg, so it cannot be shown to meet max_mass_kg and is left out";
+    case ProfileNote::Kind::NoCellVolume:
+      return "profile " + id +
+             " gives no cell_volume_l, so it cannot be shown to meet max_volume_l and is left "
+             "out";
+    case ProfileNote::Kind::NoDesignMeetsUnservedLimit:
+      return "profile " + id + ": no design searched meets the unserved-energy limit";
+    case ProfileNote::Kind::LadderOutsideDodRange:
+      return "profile " + id + ": its allowed DoD range holds no setpoint of the ladder";
+    case ProfileNote::Kind::CapsBelowNeed: {
+      std::string why = "profile " + id + ": no admissible design: ";
+      if (n.autonomy_needs_more) why += "the autonomy needs more strings ";
+      if (n.peak_needs_more) {
+        why +=
+            std::string(n.autonomy_needs_more ? "and " : "") + "the peak draw needs more strings ";
+      }
+      return why + "than the " + std::to_string(n.cap_strings) + " allowed by " + cap_name(n.cap) +
+             " at every setpoint";
+    }
+  }
+  return "?";
+}
+
+}  // namespace
+
+std::string describe_note(const ProfileNote& note, const StudyCase& study) {
+  return note_body(note, study);
+}
+
+std::string describe_unmet(const UnmetRequirement& u, const StudyCase& study) {
+  const SearchSettings& search = study.search;
+  switch (u.requirement) {
+    case Requirement::DodLadder:
+      return "no profile allows any DoD setpoint of the search ladder (" + g4(search.dod_from) +
+             " to " + g4(search.dod_to) + " in steps of " + g4(search.dod_step) + ")";
+    case Requirement::MaxStrings:
+      return "max_strings_parallel is below one string";
+    case Requirement::Budget:
+      return "the budget of " + g4(u.best_available) +
+             " buys no bank: the cheapest one-string bank costs " + g4(u.needed);
+    case Requirement::Mass:
+      return "max_mass_kg " + g4(u.best_available) + " is below the lightest string (" +
+             g4(u.needed) + " kg)";
+    case Requirement::Volume:
+      return "max_volume_l " + g4(u.best_available) + " is below the smallest string (" +
+             g4(u.needed) + " l)";
+    case Requirement::MissingCellData: {
+      std::string text;
+      for (std::size_t p = 0; p < study.profiles.size(); ++p) {
+        const ChemistryProfile& profile = study.profiles[p];
+        const bool lacks = u.missing_mass ? !profile.cell_mass_kg : !profile.cell_volume_l;
+        if (!lacks) continue;
+        const ProfileNote note{
+            p, u.missing_mass ? ProfileNote::Kind::NoCellMass : ProfileNote::Kind::NoCellVolume};
+        text += (text.empty() ? "" : "; ") + note_body(note, study);
+      }
+      return text;
+    }
+    case Requirement::AutonomyAndPeak:
+      return "no allowed bank meets both the autonomy energy (" + g4(u.needed) +
+             " kWh usable) and the peak draw: the banks with enough energy lack power and the "
+             "other way round";
+    case Requirement::Autonomy:
+      return "autonomy of " + g4(study.site.autonomy_days) + " days needs " + g4(u.needed) +
+             " kWh usable at the terminals (coldest month, end of life, within the DoD "
+             "setpoint); the most any allowed bank gives is " +
+             g4(u.best_available) + " kWh" +
+             (u.best_at ? " (" + design_text(*u.best_at, study, true) + ")" : std::string()) +
+             ", short by " + g4(u.needed - u.best_available) + " kWh";
+    case Requirement::PeakDischarge:
+      return "the peak draw needs " + g4(u.needed) +
+             " kW at the bank terminals within the discharge C-rate; the most any allowed bank "
+             "gives is " +
+             g4(u.best_available) + " kW" +
+             (u.best_at ? " (" + design_text(*u.best_at, study, false) + ")" : std::string()) +
+             ", short by " + g4(u.needed - u.best_available) + " kW";
+    case Requirement::UnservedLimit:
+      return "no admissible design keeps unserved energy within " + format_general(u.needed * 100) +
+             " % of demand in every year; the least reached is " +
+             format_general(u.best_available * 100) + " %" +
+             (u.best_at ? " (" + study.profiles[u.best_at->profile_index].id + " at DoD " +
+                              format_fixed(u.best_at->dod_setpoint, 2) + " with " +
+                              std::to_string(u.best_at->strings) + " strings)"
+                        : std::string());
+  }
+  return "?";
+}
+
+namespace {
+
+void print_header(std::ostream& out, const StudyCase& study, const OptimiseResult& r) {
   print_study_header(out, study,
                      std::string("design optimisation (method ") + to_string(r.method) + ")");
   fmt::print(out,
@@ -24,13 +172,15 @@ void print_header(std::ostream& out, const Study& study, const OptimiseResult& r
              "{} admissible designs\n",
              study.profiles.size(), study.search.dod_from, study.search.dod_to,
              study.search.dod_step, study.search.max_strings_parallel, r.admissible_designs);
-  for (const std::string& note : r.notes) fmt::print(out, "Note: {}\n", note);
+  for (const ProfileNote& note : r.notes) {
+    fmt::print(out, "Note: {}\n", describe_note(note, study));
+  }
   out << "\n";
 }
 
 }  // namespace
 
-void write_optimise_text(std::ostream& out, const Study& study, const OptimiseResult& r) {
+void write_optimise_text(std::ostream& out, const StudyCase& study, const OptimiseResult& r) {
   print_header(out, study, r);
   if (!r.feasible()) {
     if (r.time_limit_reached) {
@@ -40,7 +190,7 @@ void write_optimise_text(std::ostream& out, const Study& study, const OptimiseRe
       out << "No feasible design: no design meets every requirement.\n";
     }
     for (const UnmetRequirement& u : r.unmet)
-      fmt::print(out, "  {}: {}\n", u.requirement, u.detail);
+      fmt::print(out, "  {}: {}\n", requirement_key(u), describe_unmet(u, study));
     out << "\n";
     print_safety_notice(out);
     return;
@@ -121,7 +271,7 @@ void write_optimise_text(std::ostream& out, const Study& study, const OptimiseRe
   print_safety_notice(out);
 }
 
-void write_optimise_json(std::ostream& out, const Study& study, const OptimiseResult& r) {
+void write_optimise_json(std::ostream& out, const StudyCase& study, const OptimiseResult& r) {
   JsonWriter json;
   json.begin_object();
   write_study_json(json, study);
@@ -174,15 +324,15 @@ void write_optimise_json(std::ostream& out, const Study& study, const OptimiseRe
   json.key("unmet").begin_array();
   for (const UnmetRequirement& u : r.unmet) {
     json.begin_object()
-        .field("requirement", u.requirement)
-        .field("detail", u.detail)
+        .field("requirement", requirement_key(u))
+        .field("detail", describe_unmet(u, study))
         .field("needed", u.needed)
         .field("best_available", u.best_available)
         .end_object();
   }
   json.end_array();
   json.key("notes").begin_array();
-  for (const std::string& n : r.notes) json.value(n);
+  for (const ProfileNote& n : r.notes) json.value(describe_note(n, study));
   json.end_array();
   json.field("notice",
              "Planning estimate only; follow local codes, the manufacturer's instructions and "

@@ -12,8 +12,14 @@
 
 namespace stowage::report {
 
-void write_optimise_text(std::ostream& out, const Study& study, const OptimiseResult& result);
-void write_optimise_json(std::ostream& out, const Study& study, const OptimiseResult& result);
+void write_optimise_text(std::ostream& out, const StudyCase& study, const OptimiseResult& result);
+void write_optimise_json(std::ostream& out, const StudyCase& study, const OptimiseResult& result);
+// The words for what the optimiser returns as data: the JSON "requirement" key and the
+// sentence of an unmet requirement, the note about a profile, the name of a strings cap.
+std::string requirement_key(const UnmetRequirement& unmet);
+std::string describe_unmet(const UnmetRequirement& unmet, const StudyCase& study);
+std::string describe_note(const ProfileNote& note, const StudyCase& study);
+std::string cap_name(StringCap cap);
 // One line of progress for a terminal: phase, done/total, best NPC so far, seconds.
 std::string format_progress(const OptimiseProgress& progress);
 // The note when --export-model finds no admissible design to write.

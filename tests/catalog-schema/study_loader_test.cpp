@@ -35,7 +35,7 @@ std::string study_error(const std::string& text, const std::string& line_needle,
 
 TEST_CASE("a study loads its site, profiles, designs and search space", "[catalog][study]") {
   const LoadedStudy loaded = load_study_details_file(fixture_path("study.yaml"));
-  const Study& s = loaded.study;
+  const StudyCase& s = loaded.study;
   CHECK(s.title == "Loader test study");
   CHECK(loaded.site_path == fixture_path("site.yaml"));
   CHECK(loaded.hourly_path == fixture_path("hourly.csv"));
@@ -71,9 +71,9 @@ TEST_CASE("a study loads its site, profiles, designs and search space", "[catalo
 TEST_CASE("a study without designs and search keeps the defaults", "[catalog][study]") {
   std::string text = study_text();
   text = text.substr(0, text.find("  designs:"));
-  const Study s = load_text(text).study;
+  const StudyCase s = load_text(text).study;
   CHECK(s.designs.empty());
-  const SearchSpace defaults;
+  const SearchSettings defaults;
   CHECK(s.search.dod_from == defaults.dod_from);
   CHECK(s.search.max_strings_parallel == defaults.max_strings_parallel);
   CHECK_FALSE(s.search.budget);

@@ -64,7 +64,7 @@ TEST_CASE("the tangents of the renewal factor stay below it (outer approximation
 TEST_CASE("representative blocks stand for the 365 days of the year", "[optimiser][days]") {
   SyntheticStudySpec spec;
   spec.seed = 4;
-  const Study study = make_synthetic_study(spec);
+  const StudyCase study = make_synthetic_study(spec);
   for (int k : {1, 2, 3}) {
     const RepresentativeDays days = select_representative_days(study.site, k);
     REQUIRE(days.blocks.size() == 12);
@@ -85,7 +85,7 @@ TEST_CASE("representative blocks stand for the 365 days of the year", "[optimise
 
 namespace {
 
-Study small_study() {
+StudyCase small_study() {
   SyntheticStudySpec spec;
   spec.seed = 3;
   spec.profiles = 2;
@@ -99,7 +99,7 @@ Study small_study() {
 TEST_CASE("the decomposed sub-models reach the monolithic model's optimum", "[optimiser][milp]") {
   // Reference: GLPK's branch and bound (glp_intopt) on the monolithic model, against the
   // sub-models solved by LP relaxation and neighbouring integers.
-  const Study study = small_study();
+  const StudyCase study = small_study();
   const std::string path =
       (std::filesystem::temp_directory_path() / "stowage_decomposition_check.mps").string();
   const double monolithic = export_design_space_model(study, path, 1, true);
@@ -129,7 +129,7 @@ TEST_CASE("the decomposed sub-models reach the monolithic model's optimum", "[op
 }
 
 TEST_CASE("moving a sub-model to another setpoint equals building it afresh", "[optimiser][milp]") {
-  const Study study = small_study();
+  const StudyCase study = small_study();
   const ChemistryProfile& p = study.profiles[0];
   LifecycleEvaluator evaluator(p, study.site, study.economics);
   const RepresentativeDays days = select_representative_days(study.site, 1);
@@ -149,7 +149,7 @@ TEST_CASE("CBC and HiGHS reach GLPK's optimum of the exported model",
           "[optimiser][milp][external]") {
   // Independent solvers: COIN-OR CBC (the cbc binary) and HiGHS through SciPy's
   // scipy.optimize.milp; tests/optimiser/check_exported_model.py parses the free MPS for SciPy.
-  const Study study = small_study();
+  const StudyCase study = small_study();
   const auto dir = std::filesystem::temp_directory_path();
   const std::string mps = (dir / "stowage_export_check.mps").string();
   const std::string lp = (dir / "stowage_export_check.lp").string();

@@ -79,9 +79,9 @@ ChemistryProfile make_profile(std::mt19937_64& rng, int index, bool full_range) 
 
 }  // namespace
 
-Study make_synthetic_study(const SyntheticStudySpec& spec) {
+StudyCase make_synthetic_study(const SyntheticStudySpec& spec) {
   std::mt19937_64 rng(spec.seed);
-  Study s;
+  StudyCase s;
   s.title = "synthetic study, seed " + std::to_string(spec.seed);
   SiteConditions& site = s.site;
   site.name = "synthetic site";

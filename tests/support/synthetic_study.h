@@ -16,7 +16,7 @@
 
 #include <cstdint>
 
-#include "model/study.h"
+#include "catalog-schema/study_case.h"
 
 namespace stowage {
 
@@ -33,6 +33,6 @@ struct SyntheticStudySpec {
 };
 
 // Returns a validated study (throws InvalidValue if the generator ever breaks a rule).
-Study make_synthetic_study(const SyntheticStudySpec& spec);
+StudyCase make_synthetic_study(const SyntheticStudySpec& spec);
 
 }  // namespace stowage

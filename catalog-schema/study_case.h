@@ -1,0 +1,28 @@
+// SPDX-License-Identifier: MIT
+// StudyCase: a study as a whole run sees it: the model's Study (site, profiles, economics,
+// designs) plus the optimiser's search settings from the study file's `search` block. A plain
+// value: copying it copies everything, and nothing points into it, so an analysis can copy a
+// case, change an input by its parameter path (parameter_paths.h) and run it again.
+#pragma once
+
+#include <optional>
+
+#include "model/study.h"
+
+namespace stowage {
+
+// The `search` block, validated: the DoD ladder the optimiser tries (narrowed per profile to
+// its allowed range) and the optional caps on a bank.
+struct SearchSettings {
+  double dod_from = 0.20, dod_to = 1.00, dod_step = 0.05;  // ladder, fractions, from <= to
+  int max_strings_parallel = 40;                           // >= 1
+  std::optional<double> budget;        // upper bound on year-0 investment, currency
+  std::optional<double> max_mass_kg;   // needs cell_mass_kg in the profiles
+  std::optional<double> max_volume_l;  // needs cell_volume_l in the profiles
+};
+
+struct StudyCase : Study {
+  SearchSettings search;
+};
+
+}  // namespace stowage
