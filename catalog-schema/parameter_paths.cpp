@@ -82,10 +82,10 @@ const std::vector<Entry>& entries() {
         cost("replacement_share", "fraction", &ProfileCosts::replacement_share, 0, false, 10));
     t.push_back(cost("price_decline_per_year", "fraction per year",
                      &ProfileCosts::price_decline_per_year, 0, true, 1, false));
-    t.push_back(cost("end_of_life_per_kwh", "{cur}/kWh", &ProfileCosts::end_of_life_per_kwh,
-                     -kHuge, true));
-    t.push_back({P, "costs.replacement_end_of_life_per_kwh", "{cur}/kWh", -kHuge, kHuge, true,
-                 true, false, Set,
+    t.push_back(
+        cost("end_of_life_per_kwh", "{cur}/kWh", &ProfileCosts::end_of_life_per_kwh, -kHuge, true));
+    t.push_back({P, "costs.replacement_end_of_life_per_kwh", "{cur}/kWh", -kHuge, kHuge, true, true,
+                 false, Set,
                  [](const StudyCase& s, std::size_t p) {
                    const ProfileCosts& c = s.profiles[p].costs;
                    return std::optional<double>(
@@ -94,20 +94,18 @@ const std::vector<Entry>& entries() {
                  [](StudyCase& s, std::size_t p, double v) {
                    s.profiles[p].costs.replacement_end_of_life_per_kwh = v;
                  }});
-    t.push_back({P, "cell.coulombic_efficiency", "fraction", 0, 1, false, true, false, Set,
-                 [](const StudyCase& s, std::size_t p) {
-                   return std::optional<double>(s.profiles[p].coulombic_efficiency);
-                 },
-                 [](StudyCase& s, std::size_t p, double v) {
-                   s.profiles[p].coulombic_efficiency = v;
-                 }});
-    t.push_back({P, "ageing.calendar_life_years", "years", 0, 1000, false, true, false, Set,
-                 [](const StudyCase& s, std::size_t p) {
-                   return std::optional<double>(s.profiles[p].calendar_life_years);
-                 },
-                 [](StudyCase& s, std::size_t p, double v) {
-                   s.profiles[p].calendar_life_years = v;
-                 }});
+    t.push_back(
+        {P, "cell.coulombic_efficiency", "fraction", 0, 1, false, true, false, Set,
+         [](const StudyCase& s, std::size_t p) {
+           return std::optional<double>(s.profiles[p].coulombic_efficiency);
+         },
+         [](StudyCase& s, std::size_t p, double v) { s.profiles[p].coulombic_efficiency = v; }});
+    t.push_back(
+        {P, "ageing.calendar_life_years", "years", 0, 1000, false, true, false, Set,
+         [](const StudyCase& s, std::size_t p) {
+           return std::optional<double>(s.profiles[p].calendar_life_years);
+         },
+         [](StudyCase& s, std::size_t p, double v) { s.profiles[p].calendar_life_years = v; }});
     t.push_back({P, "ageing.cycle_life_scale", "factor", 0, 100, false, true, false,
                  ParameterEffect::Scale,
                  [](const StudyCase&, std::size_t) { return std::optional<double>(1.0); },
@@ -139,11 +137,10 @@ const std::vector<Entry>& entries() {
     t.push_back({C, "site.charging_price.per_kwh", "{cur}/kWh", 0, kHuge, true, true, false, Set,
                  [](const StudyCase& s, std::size_t) { return constant_price(s.site); },
                  [](StudyCase& s, std::size_t, double v) {
-                   std::fill(s.site.charge_price_per_kwh.begin(),
-                             s.site.charge_price_per_kwh.end(), v);
+                   std::fill(s.site.charge_price_per_kwh.begin(), s.site.charge_price_per_kwh.end(),
+                             v);
                  }});
-    t.push_back({C, "site.unserved_penalty_per_kwh", "{cur}/kWh", 0, kHuge, true, true, false,
-                 Set,
+    t.push_back({C, "site.unserved_penalty_per_kwh", "{cur}/kWh", 0, kHuge, true, true, false, Set,
                  [](const StudyCase& s, std::size_t) {
                    return std::optional<double>(s.site.unserved_penalty_per_kwh);
                  },
@@ -177,8 +174,8 @@ const std::vector<Entry>& entries() {
                  ParameterEffect::Scale,
                  [](const StudyCase&, std::size_t) { return std::optional<double>(1.0); },
                  [](StudyCase& s, std::size_t, double v) { scale_series(s.site.source_kw, v); }});
-    t.push_back({C, "economics.real_discount_rate", "fraction per year", 0, 1, true, false,
-                 false, Set,
+    t.push_back({C, "economics.real_discount_rate", "fraction per year", 0, 1, true, false, false,
+                 Set,
                  [](const StudyCase& s, std::size_t) {
                    return std::optional<double>(s.economics.real_discount_rate);
                  },
@@ -300,8 +297,9 @@ void apply_parameter(StudyCase& study, std::string_view path, double value) {
     throw InvalidValue(name, "must be a whole number, found " + number_text(value));
   }
   if (!info.present && name != "search.budget") {
-    throw InvalidValue(name, "is not set in this study (or varies hour by hour), so it has no "
-                             "single value to vary");
+    throw InvalidValue(name,
+                       "is not set in this study (or varies hour by hour), so it has no "
+                       "single value to vary");
   }
   const Match m = *match(study, path);
   StudyCase changed = study;
@@ -326,8 +324,8 @@ void apply_parameter(StudyCase& study, std::string_view path, double value) {
       }
     }
   } catch (const InvalidValue& e) {
-    throw InvalidValue(e.field(), e.rule() + " (after setting " + name + " to " +
-                                      number_text(value) + ")");
+    throw InvalidValue(e.field(),
+                       e.rule() + " (after setting " + name + " to " + number_text(value) + ")");
   }
   study = std::move(changed);
 }

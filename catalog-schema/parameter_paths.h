@@ -39,7 +39,7 @@ struct ParameterInfo {
   bool min_inclusive = true, max_inclusive = true;
   bool whole_number = false;
   ParameterEffect effect = ParameterEffect::Set;
-  double base = 0;  // the value in the case (Set), 0 (Offset) or 1 (Scale)
+  double base = 0;      // the value in the case (Set), 0 (Offset) or 1 (Scale)
   bool present = true;  // false: an optional input the case does not set (no back-up, say)
 };
 

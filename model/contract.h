@@ -16,4 +16,13 @@ struct ContractViolation : std::logic_error {
       : std::logic_error(argument + ": " + rule) {}
 };
 
+// The one precondition on a DoD setpoint handed to the simulator, the sizing rule or the
+// model: a fraction in (0, 1]. (Which setpoints a profile allows is the profile's own rule,
+// DodRange, checked where the profile is validated.)
+inline void require_dod_setpoint(double dod_setpoint) {
+  if (!(dod_setpoint > 0 && dod_setpoint <= 1)) {
+    throw ContractViolation("dod_setpoint", "must be in (0, 1]");
+  }
+}
+
 }  // namespace stowage

@@ -34,8 +34,7 @@ LifecycleEvaluator::LifecycleEvaluator(const ChemistryProfile& profile, const Si
       factors_(hourly_factors(profile, site)) {}
 
 DesignResult LifecycleEvaluator::evaluate(double dod_setpoint, int strings_parallel) {
-  if (!(dod_setpoint > 0 && dod_setpoint <= 1))
-    throw ContractViolation("dod_setpoint", "must be in (0, 1]");
+  require_dod_setpoint(dod_setpoint);
   const ChemistryProfile& p = *profile_;
   const SiteConditions& site = *site_;
   const Economics& econ = *economics_;

@@ -40,16 +40,11 @@ double usable_kwh_per_ah(const ChemistryProfile& profile, const SiteConditions& 
          profile.eol_capacity_fraction;
 }
 
-void check_dod(double dod_setpoint) {
-  if (!(dod_setpoint > 0 && dod_setpoint <= 1))
-    throw ContractViolation("dod_setpoint", "must be in (0, 1]");
-}
-
 }  // namespace
 
 AutonomySizing size_for_autonomy(const ChemistryProfile& profile, const SiteConditions& site,
                                  double dod_setpoint) {
-  check_dod(dod_setpoint);
+  require_dod_setpoint(dod_setpoint);
   const DesignCondition c = design_condition(profile, site);
   AutonomySizing s;
   s.design_daily_load_kwh = c.daily_load_kwh;
@@ -74,7 +69,7 @@ AutonomySizing size_for_autonomy(const ChemistryProfile& profile, const SiteCond
 
 double design_usable_kwh(const ChemistryProfile& profile, const SiteConditions& site,
                          double dod_setpoint, int strings_parallel) {
-  check_dod(dod_setpoint);
+  require_dod_setpoint(dod_setpoint);
   const DesignCondition c = design_condition(profile, site);
   return strings_parallel * profile.cell_capacity_ah *
          usable_kwh_per_ah(profile, site, dod_setpoint, c.temperature_factor);

@@ -395,9 +395,7 @@ void StorageMilp::set_setpoint(std::size_t choice, double dod_setpoint, int min_
                                int max_strings) {
   Impl& m = *impl_;
   if (choice >= m.choices.size()) throw ContractViolation("choice", "out of range");
-  if (!(dod_setpoint > 0 && dod_setpoint <= 1)) {
-    throw ContractViolation("dod_setpoint", "must be in (0, 1]");
-  }
+  require_dod_setpoint(dod_setpoint);
   if (min_strings < 1 || min_strings > max_strings) {
     throw ContractViolation("min_strings", "needs 1 <= min_strings <= max_strings");
   }
