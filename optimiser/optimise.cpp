@@ -2,12 +2,15 @@
 #include "optimiser/optimise.h"
 
 #include <algorithm>
+#include <atomic>
+#include <exception>
 #include <chrono>
 #include <cmath>
 #include <limits>
 #include <map>
 #include <memory>
 #include <stdexcept>
+#include <thread>
 
 #include "model/contract.h"
 #include "optimiser/representative_days.h"
@@ -16,7 +19,15 @@
 namespace stowage {
 
 const char* to_string(SearchMethod method) {
-  return method == SearchMethod::Milp ? "milp" : "exhaustive";
+  switch (method) {
+    case SearchMethod::Milp:
+      return "milp";
+    case SearchMethod::Exhaustive:
+      return "exhaustive";
+    case SearchMethod::Bounded:
+      return "bounded";
+  }
+  return "?";
 }
 
 const char* to_string(Optimality status) {
@@ -34,6 +45,7 @@ const char* to_string(Optimality status) {
 std::optional<SearchMethod> search_method_from_string(std::string_view text) {
   if (text == "milp") return SearchMethod::Milp;
   if (text == "exhaustive") return SearchMethod::Exhaustive;
+  if (text == "bounded") return SearchMethod::Bounded;
   return std::nullopt;
 }
 
@@ -47,12 +59,16 @@ void OptimiseOptions::validate() const {
   if (!(lone_margin >= 0 && lone_margin < 1))
     throw ContractViolation("lone_margin", "must be in [0, 1)");
   if (patience < 1) throw ContractViolation("patience", "must be >= 1");
+  if (threads < 0) throw ContractViolation("threads", "must be >= 0 (0: every core)");
 }
 
 namespace {
 
 constexpr double kNaN = std::numeric_limits<double>::quiet_NaN();
 constexpr double kInf = std::numeric_limits<double>::infinity();
+// Designs evaluated together by the exhaustive, bounded and proof searches (a fixed size, so
+// which designs get evaluated never depends on the thread count).
+constexpr std::size_t kBatch = 32;
 
 using Clock = std::chrono::steady_clock;
 
@@ -68,9 +84,11 @@ class Search {
   Search(const StudyCase& study, const OptimiseOptions& options)
       : study_(study), options_(options), start_(Clock::now()) {
     space_ = build_design_space(study);
-    for (const ChemistryProfile& p : study.profiles) {
-      evaluators_.push_back(std::make_unique<LifecycleEvaluator>(p, study.site, study.economics));
-    }
+    const unsigned cores = std::max(1u, std::thread::hardware_concurrency());
+    threads_ = options.threads > 0 ? static_cast<std::size_t>(options.threads) : cores;
+    evaluators_.resize(threads_);
+    for (auto& row : evaluators_) row.resize(study.profiles.size());
+    for (std::size_t p = 0; p < study.profiles.size(); ++p) evaluator(0, p);
     profile_best_.resize(study.profiles.size());
     ratios_.resize(study.profiles.size());
     lower_bound_.resize(space_.choices.size(), kInf);
@@ -95,11 +113,25 @@ class Search {
       return result;
     }
     days_ = select_representative_days(study_.site, options_.days_per_block);
-    bool complete = options_.method == SearchMethod::Exhaustive ? run_exhaustive() : run_milp();
+    bool complete = false;
+    switch (options_.method) {
+      case SearchMethod::Exhaustive:
+        complete = run_exhaustive();
+        break;
+      case SearchMethod::Bounded:
+        complete = prove_by_bound();  // from an empty cache: bound-ordered exact search
+        break;
+      case SearchMethod::Milp:
+        complete = run_milp();
+        break;
+    }
     if (options_.method == SearchMethod::Milp && !any_feasible() && !time_up()) {
       complete = settle_unserved_limit() && complete;
     }
-    if (complete && options_.prove && any_feasible() && !time_up()) complete = prove_by_bound();
+    if (options_.method == SearchMethod::Milp && complete && options_.prove && any_feasible() &&
+        !time_up()) {
+      complete = prove_by_bound();
+    }
 
     for (std::size_t p = 0; p < profile_best_.size(); ++p) {
       if (profile_best_[p]) {
@@ -180,19 +212,29 @@ class Search {
     }
     std::stable_sort(open.begin(), open.end(),
                      [](const Open& a, const Open& b) { return a.bound < b.bound; });
+    // Batches of a fixed size, each taken while its bounds lie below the best exact NPC at
+    // the batch's start: the same designs are evaluated for any thread count.
     std::size_t done = 0;
-    for (const Open& o : open) {
-      if (o.bound >= best_npc()) break;
+    for (std::size_t first = 0; first < open.size();) {
+      if (open[first].bound >= best_npc()) break;
       if (time_up()) return false;
-      evaluate(o.choice, o.strings);
-      ++proved_;
-      if (++done % 16 == 0) report("prove", done, open.size());
+      std::vector<std::pair<std::size_t, int>> batch;
+      std::size_t k = first;
+      for (; k < open.size() && batch.size() < kBatch && open[k].bound < best_npc(); ++k) {
+        batch.emplace_back(open[k].choice, open[k].strings);
+      }
+      const std::size_t before = evaluated_;
+      evaluate_batch(batch);
+      proved_ += evaluated_ - before;
+      done += batch.size();
+      first = k;
+      report("prove", done, open.size());
     }
     return true;
   }
 
   double calendar_damage(std::size_t p) const {
-    return evaluators_[p]->acceleration().calendar_damage_per_year;
+    return evaluators_[0][p]->acceleration().calendar_damage_per_year;
   }
 
   double elapsed() const { return std::chrono::duration<double>(Clock::now() - start_).count(); }
@@ -223,7 +265,22 @@ class Search {
     auto it = cache_.find(key);
     if (it != cache_.end()) return it->second;
     const DesignChoice& ch = space_.choices[c];
-    DesignResult r = evaluators_[ch.profile_index]->evaluate(ch.dod_setpoint, n);
+    return record(key, evaluator(0, ch.profile_index).evaluate(ch.dod_setpoint, n));
+  }
+
+  // The evaluator of `profile` for worker `thread` (0: the calling thread). Each worker only
+  // touches its own row, so rows can be filled from their threads.
+  LifecycleEvaluator& evaluator(std::size_t thread, std::size_t profile) {
+    auto& slot = evaluators_[thread][profile];
+    if (!slot) {
+      slot = std::make_unique<LifecycleEvaluator>(study_.profiles[profile], study_.site,
+                                                  study_.economics);
+    }
+    return *slot;
+  }
+
+  const Exact& record(const std::pair<std::size_t, int>& key, const DesignResult& r) {
+    const DesignChoice& ch = space_.choices[key.first];
     ++evaluated_;
     Exact e;
     e.npc = r.npc;
@@ -231,7 +288,7 @@ class Search {
     e.unserved_fraction = r.unserved_fraction_max;
     if (e.unserved_fraction < least_unserved_) {
       least_unserved_ = e.unserved_fraction;
-      least_unserved_at_ = DesignRef{ch.profile_index, ch.dod_setpoint, n, ch.cap};
+      least_unserved_at_ = DesignRef{ch.profile_index, ch.dod_setpoint, key.second, ch.cap};
     }
     if (e.feasible) {
       auto& pb = profile_best_[ch.profile_index];
@@ -241,11 +298,57 @@ class Search {
     return cache_.emplace(key, e).first->second;
   }
 
+  // Evaluates the designs not yet in the cache on up to `threads_` threads; the results enter
+  // the cache and the incumbents in the order given, so the outcome does not depend on the
+  // thread count (each evaluation is a pure function of its design).
+  void evaluate_batch(const std::vector<std::pair<std::size_t, int>>& designs) {
+    std::vector<std::pair<std::size_t, int>> todo;
+    for (const auto& d : designs) {
+      if (!cache_.count(d) && std::find(todo.begin(), todo.end(), d) == todo.end()) {
+        todo.push_back(d);
+      }
+    }
+    std::vector<DesignResult> results(todo.size());
+    std::atomic<std::size_t> next{0};
+    auto work = [&](std::size_t thread) {
+      for (std::size_t i; (i = next.fetch_add(1)) < todo.size();) {
+        const DesignChoice& ch = space_.choices[todo[i].first];
+        results[i] = evaluator(thread, ch.profile_index).evaluate(ch.dod_setpoint, todo[i].second);
+      }
+    };
+    const std::size_t workers = std::min(threads_, todo.size());
+    if (workers <= 1) {
+      work(0);
+    } else {
+      std::vector<std::exception_ptr> errors(workers);
+      std::vector<std::thread> pool;
+      for (std::size_t t = 1; t < workers; ++t) {
+        pool.emplace_back([&, t]() {
+          try {
+            work(t);
+          } catch (...) {
+            errors[t] = std::current_exception();
+          }
+        });
+      }
+      try {
+        work(0);
+      } catch (...) {
+        errors[0] = std::current_exception();
+      }
+      for (std::thread& t : pool) t.join();
+      for (const std::exception_ptr& e : errors) {
+        if (e) std::rethrow_exception(e);
+      }
+    }
+    for (std::size_t i = 0; i < todo.size(); ++i) record(todo[i], results[i]);
+  }
+
   MilpChoice milp_choice(std::size_t c, int lo, int hi) const {
     const DesignChoice& ch = space_.choices[c];
     MilpChoice m;
     m.profile = &study_.profiles[ch.profile_index];
-    m.acceleration = &evaluators_[ch.profile_index]->acceleration();
+    m.acceleration = &evaluators_[0][ch.profile_index]->acceleration();
     m.dod_setpoint = ch.dod_setpoint;
     m.min_strings = lo;
     m.max_strings = hi;
@@ -276,16 +379,23 @@ class Search {
   // ---- exhaustive -------------------------------------------------------------------------
   bool run_exhaustive() {
     const std::size_t total = space_.admissible_designs();
+    std::vector<std::pair<std::size_t, int>> batch;
     std::size_t done = 0;
     for (std::size_t c = 0; c < space_.choices.size(); ++c) {
       const DesignChoice& ch = space_.choices[c];
       for (int n = ch.min_strings; n <= ch.max_strings && ch.admissible(); ++n) {
+        batch.emplace_back(c, n);
+        if (batch.size() < kBatch) continue;
         if (time_up()) return false;
-        evaluate(c, n);
-        if (++done % 16 == 0) report("exhaustive", done, total);
+        evaluate_batch(batch);
+        done += batch.size();
+        batch.clear();
+        report("exhaustive", done, total);
       }
     }
-    report("exhaustive", done, total);
+    if (time_up()) return false;
+    evaluate_batch(batch);
+    report("exhaustive", done + batch.size(), total);
     return true;
   }
 
@@ -531,7 +641,9 @@ class Search {
   Clock::time_point start_;
   DesignSpace space_;
   RepresentativeDays days_;
-  std::vector<std::unique_ptr<LifecycleEvaluator>> evaluators_;
+  std::size_t threads_ = 1;
+  // [thread][profile]; row 0 serves the calling thread, the guided search and the model.
+  std::vector<std::vector<std::unique_ptr<LifecycleEvaluator>>> evaluators_;
   std::vector<double> lower_bound_;
   std::vector<PairState> pairs_;
   std::vector<std::unique_ptr<StorageMilp>> submodels_;

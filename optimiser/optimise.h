@@ -6,6 +6,9 @@
 // Methods
 //   Exhaustive: every admissible design is evaluated by the exact simulator
 //     (LifecycleEvaluator); the answer is the best of them, optimal by enumeration.
+//   Bounded: exact search without the model: every admissible design in order of
+//     npc_lower_bound(), evaluated until the next bound reaches the best exact NPC found;
+//     optimal by the bound (the baseline the guided search has to beat).
 //   Milp (default): the mixed-integer model of optimiser/storage_milp.h, decomposed by
 //     (profile, setpoint): one sub-model per pair, with one integer variable (strings). The
 //     answer is always the best EXACTLY evaluated design; the model only decides where to look:
@@ -49,13 +52,13 @@
 
 namespace stowage {
 
-enum class SearchMethod { Milp, Exhaustive };
+enum class SearchMethod { Milp, Exhaustive, Bounded };
 
 enum class Optimality { Proven, VerifiedByEstimate, TimeLimited };
 // "proven_optimal", "verified_by_estimate", "time_limited": the names JSON carries.
 const char* to_string(Optimality status);
 const char* to_string(SearchMethod method);
-// "milp" or "exhaustive"; std::nullopt for anything else.
+// "milp", "exhaustive" or "bounded"; std::nullopt for anything else.
 std::optional<SearchMethod> search_method_from_string(std::string_view text);
 
 struct OptimiseProgress {
@@ -76,6 +79,9 @@ struct OptimiseOptions {
   // After the guided search, evaluate exactly every design it passed over whose rigorous
   // bound is below the best exact NPC, so the answer ends Proven (see above).
   bool prove = true;
+  // Threads for the exhaustive, bounded and proof searches (0: every core). The guided
+  // search and the model run on the calling thread. Results are identical for any count.
+  int threads = 0;
   std::function<void(const OptimiseProgress&)> progress;  // called now and then; may be empty
   void validate() const;  // throws ContractViolation naming the field
 };

@@ -32,6 +32,7 @@ struct OptimiseArgs {
   std::string export_model;
   int days_per_month = 1;
   bool skip_proof = false;
+  int threads = 0;
 };
 
 // Progress on stderr, only for a terminal and only once a run has lasted a second.
@@ -64,9 +65,10 @@ void register_optimise(CLI::App& app, int& exit_code) {
       "Choose the profile, DoD setpoint and strings in parallel with the lowest lifecycle cost");
   cmd->add_option("study", args->study_path, "Study file (YAML)")->required();
   cmd->add_option("--method", args->method,
-                  "milp (default: model-guided search with exact verification) or exhaustive "
+                  "milp (default: model-guided search, then a proof by the cost bound), "
+                  "bounded (exact search in order of the cost bound, no model) or exhaustive "
                   "(every design through the exact simulator)")
-      ->check(CLI::IsMember({"milp", "exhaustive"}));
+      ->check(CLI::IsMember({"milp", "bounded", "exhaustive"}));
   cmd->add_option("--time-limit", args->time_limit_s,
                   "Stop after this many seconds and report the best design found so far "
                   "(marked not proven optimal)")
@@ -81,6 +83,10 @@ void register_optimise(CLI::App& app, int& exit_code) {
   cmd->add_flag("--skip-proof", args->skip_proof,
                 "Stop after the model-guided search: faster, but the answer is only verified by "
                 "the model's estimate, not proven optimal");
+  cmd->add_option("--threads", args->threads,
+                  "Threads for exact evaluations (default 0: every core); the answer does not "
+                  "depend on it")
+      ->check(CLI::Range(0, 1024));
   add_format_option(*cmd, args->format);
   cmd->add_option("--out", args->out_dir,
                   "Also write designs.csv and cash-flows.csv of the ranking into this directory")
@@ -106,6 +112,7 @@ void register_optimise(CLI::App& app, int& exit_code) {
       options.time_limit_s = args->time_limit_s;
       options.days_per_block = args->days_per_month;
       options.prove = !args->skip_proof;
+      options.threads = args->threads;
       ProgressLine progress;
       options.progress = [&progress](const OptimiseProgress& p) { progress.update(p); };
       const OptimiseResult result = optimise(study, options);

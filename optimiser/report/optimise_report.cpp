@@ -263,9 +263,9 @@ void write_optimise_text(std::ostream& out, const StudyCase& study, const Optimi
       out << "\n";
     }
   }
-  if (r.method == SearchMethod::Milp && r.ranking.size() > 1) {
-    out << "(Other profiles show the best design found where the model pointed; only the "
-           "winner is searched to the end.)\n";
+  if (r.method != SearchMethod::Exhaustive && r.ranking.size() > 1) {
+    out << "(Other profiles show the best design found on the way; only the winner is searched "
+           "to the end.)\n";
   }
   out << "\n";
   print_safety_notice(out);
