@@ -3,9 +3,9 @@
 
 #include <algorithm>
 #include <atomic>
-#include <exception>
 #include <chrono>
 #include <cmath>
+#include <exception>
 #include <limits>
 #include <map>
 #include <memory>

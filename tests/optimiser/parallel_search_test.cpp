@@ -53,7 +53,8 @@ TEST_CASE("the answer and the work done do not depend on the thread count",
   SyntheticStudySpec spec;
   spec.seed = 52;
   const StudyCase study = make_synthetic_study(spec);
-  for (SearchMethod method : {SearchMethod::Exhaustive, SearchMethod::Bounded, SearchMethod::Milp}) {
+  for (SearchMethod method :
+       {SearchMethod::Exhaustive, SearchMethod::Bounded, SearchMethod::Milp}) {
     INFO(to_string(method));
     const OptimiseResult one = run(study, method, 1);
     const OptimiseResult two = run(study, method, 2);
