@@ -12,12 +12,13 @@ enum ExitCode : int {
   kExitOk = 0,
   kExitInternalError = 1,
   kExitBadInput = 2,
-  kExitInfeasible = 3,  // optimise: no design meets the requirements
+  kExitInfeasible = 3,  // optimise: no design meets the requirements; tender: no bid does
 };
 
 void register_check(CLI::App& app, int& exit_code);
 void register_evaluate(CLI::App& app, int& exit_code);
 void register_cycles(CLI::App& app, int& exit_code);
 void register_optimise(CLI::App& app, int& exit_code);
+void register_tender(CLI::App& app, int& exit_code);
 
 }  // namespace stowage::cli

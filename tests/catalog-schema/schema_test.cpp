@@ -23,7 +23,7 @@ using testing::fixture_path;
 using testing::read_text;
 using testing::source_path;
 
-const std::vector<std::string> kSchemas = {"profile", "site", "study"};
+const std::vector<std::string> kSchemas = {"bid", "profile", "site", "study", "tender"};
 
 // Calls `visit(path, schema)` for every property below `schema` (after $ref), with list
 // entries written "[]".

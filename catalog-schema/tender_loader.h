@@ -1,0 +1,73 @@
+// SPDX-License-Identifier: MIT
+// Loading a tender file (format: docs/tender.md, schemas: schemas/tender.schema.json and
+// schemas/bid.schema.json) with the site it names and its bids, each with the chemistry
+// profile its ageing comes from, into validated values.
+//
+// A bid's prices replace its profile's: the year-0 investment is capex + installation
+// (capital_per_kwh = capex / nameplate of the offered bank, capital_per_string 0,
+// installation_fixed = installation), the yearly service
+// contract becomes the fixed O&M (annual_service / nameplate per kWh), a replacement the buyer
+// pays costs replacement_share x (capex + installation) (no price decline: a bid's price is
+// its own), and end_of_life_per_kwh is the bid's when it gives one. Rules across files,
+// checked here: labels are unique (error at the later tender.bids[i]); the profile's currency
+// equals the tender's (error at bid.profile); the offered DoD setpoint lies within the
+// profile's dod range (error at bid.offer.dod_setpoint); every technical criterion of the
+// scoring has a score in every bid and no bid scores a criterion the tender does not weigh
+// (error at bid.technical_scores); the weights sum to 1 (error at tender.scoring).
+#pragma once
+
+#include <map>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "catalog-schema/input_error.h"  // what the readers throw
+#include "model/chemistry_profile.h"
+#include "model/economics.h"
+#include "model/site.h"
+
+namespace stowage {
+
+// Warranty terms: `years` or the warranted throughput or cycles, whichever comes first.
+struct WarrantyTerms {
+  double years = 0;                              // > 0
+  std::optional<double> throughput_mwh;          // discharged at the terminals
+  std::optional<double> equivalent_full_cycles;  // discharged Ah / rated Ah
+  double capacity_floor = 0.7;                   // warranted capacity, fraction of nameplate
+};
+
+struct Bid {
+  std::string label;
+  std::string path;          // the bid file as opened
+  std::string profile_path;  // the profile file as opened
+  ChemistryProfile profile;  // with the bid's prices in costs (see above)
+  int strings_parallel = 1;
+  double dod_setpoint = 0.8;
+  double capex = 0, installation = 0, annual_service = 0;
+  WarrantyTerms warranty;
+  std::map<std::string, double> technical_scores;  // criterion -> 0..100
+};
+
+struct TenderRequirements {
+  std::optional<double> min_usable_kwh;  // at the end of every year
+  std::optional<double> min_power_kw;
+};
+
+struct TenderScoring {
+  double price_weight = 1;
+  std::map<std::string, double> criteria;  // name -> weight; price_weight + sum = 1
+};
+
+struct TenderCase {
+  std::string title;
+  std::string path;
+  SiteConditions site;
+  Economics economics;
+  TenderRequirements requirements;
+  TenderScoring scoring;
+  std::vector<Bid> bids;
+};
+
+TenderCase load_tender_file(const std::string& path);
+
+}  // namespace stowage

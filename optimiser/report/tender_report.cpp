@@ -1,0 +1,223 @@
+// SPDX-License-Identifier: MIT
+#include "optimiser/report/tender_report.h"
+
+#include <fmt/format.h>
+#include <fmt/ostream.h>
+
+#include <cmath>
+#include <string>
+
+#include "optimiser/report/cost_lines.h"
+#include "optimiser/report/design_report.h"
+#include "optimiser/report/json_writer.h"
+#include "optimiser/report/number_format.h"
+#include "stowage_version.h"
+
+namespace stowage::report {
+
+namespace {
+
+const char* cause_text(WarrantyEnd::Cause cause) {
+  switch (cause) {
+    case WarrantyEnd::Cause::Years:
+      return "years";
+    case WarrantyEnd::Cause::Throughput:
+      return "throughput";
+    case WarrantyEnd::Cause::Cycles:
+      return "cycles";
+  }
+  return "?";
+}
+
+std::string years_list(const std::vector<int>& years) {
+  if (years.empty()) return "none";
+  std::string out;
+  for (int y : years) out += (out.empty() ? "" : ", ") + std::to_string(y);
+  return out;
+}
+
+std::string life_text(double years) {
+  return std::isfinite(years) ? format_fixed(years, 1) + " y" : std::string("beyond any horizon");
+}
+
+std::string shortfall_text(const Shortfall& s) {
+  if (s.kind == Shortfall::Kind::UsableEnergy) {
+    return "usable energy " + format_amount(s.offered) + " kWh at the end of year " +
+           std::to_string(s.year) + ", " + format_amount(s.required - s.offered) +
+           " kWh short of the required " + format_amount(s.required) + " kWh";
+  }
+  return "discharge power " + format_amount(s.offered) + " kW within its C-rate, " +
+         format_amount(s.required - s.offered) + " kW short of the required " +
+         format_amount(s.required) + " kW";
+}
+
+}  // namespace
+
+void write_tender_text(std::ostream& out, const TenderCase& tender, const TenderResult& result) {
+  const std::string& cur = tender.economics.currency;
+  fmt::print(out, "stowage {}: tender evaluation\n", STOWAGE_VERSION_STRING);
+  fmt::print(out, "Tender: {}\nDuty:   {} ({} kWh demand a year)\n", tender.title, tender.site.name,
+             format_amount(tender.site.annual_demand_kwh()));
+  fmt::print(out,
+             "Basis:  {} years, {:.1f} % real discount rate, {}; every bid on the same duty\n\n",
+             tender.economics.project_years, 100 * tender.economics.real_discount_rate, cur);
+
+  if (result.order.empty()) {
+    out << "No bid meets the tender's requirements.\n\n";
+  } else {
+    const BidResult& best = result.bids[result.order.front()];
+    fmt::print(out, "Recommended: {} ({}), total score {:.1f}, NPC {} {}, LCOS {:.4f} {}/kWh\n",
+               best.label, best.family, best.total_score, format_amount(best.design.npc), cur,
+               best.design.lcos_per_kwh, cur);
+    if (result.order.size() > 1) {
+      const BidResult& second = result.bids[result.order[1]];
+      fmt::print(out, "Runner-up:   {}, {:.1f} points behind, NPC {} {}\n", second.label,
+                 best.total_score - second.total_score,
+                 format_signed_amount(second.design.npc - best.design.npc), cur);
+    }
+    if (result.near_tie) {
+      out << "NEAR TIE: the two best bids are within 1 point or 1 % of NPC; the ranking may "
+             "turn on inputs the evaluation cannot settle.\n";
+    }
+    out << "\n";
+  }
+
+  out << "Scoring (price score = 100 x lowest NPC / bid NPC)\n";
+  fmt::print(out, "{:>4}  {:<10}{:>14}{:>12}{:>8}{:>11}{:>8}\n", "rank", "bid", "NPC " + cur,
+             "LCOS/kWh", "price", "technical", "total");
+  for (std::size_t i : result.order) {
+    const BidResult& b = result.bids[i];
+    fmt::print(out, "{:>4}  {:<10}{:>14}{:>12.4f}{:>8.1f}{:>11.1f}{:>8.1f}\n", b.rank, b.label,
+               format_amount(b.design.npc), b.design.lcos_per_kwh, b.price_score, b.technical_score,
+               b.total_score);
+  }
+  out << "\nWarranty against the chemistry's own ageing model\n";
+  out << "  (replacements at the end of the years shown)\n";
+  fmt::print(out, "  {:<10}{:>15}{:>12}{:>16}{:>20}{:>18}\n", "bid", "warranty ends", "by",
+             "modelled life", "supplier replaces", "buyer replaces");
+  for (const BidResult& b : result.bids) {
+    fmt::print(out, "  {:<10}{:>15}{:>12}{:>16}{:>20}{:>18}\n", b.label,
+               life_text(b.warranty.years), cause_text(b.warranty.cause),
+               life_text(b.modelled_life_years), years_list(b.supplier_paid_years),
+               years_list(b.buyer_paid_years));
+  }
+  for (const BidResult& b : result.bids) {
+    if (b.warranty_exceeds_model) {
+      fmt::print(out,
+                 "  Clarify {}: its warranty runs {}, longer than the {} its chemistry model "
+                 "gives the bank; the evaluation counts the supplier paying the difference.\n",
+                 b.label, life_text(b.warranty.years), life_text(b.modelled_life_years));
+    }
+  }
+  bool any_failed = false;
+  for (const BidResult& b : result.bids) any_failed |= !b.compliant();
+  if (any_failed) {
+    out << "\nNon-compliant bids (evaluated as offered, not resized, not scored)\n";
+    for (const BidResult& b : result.bids) {
+      for (const Shortfall& s : b.shortfalls)
+        fmt::print(out, "  {}: {}\n", b.label, shortfall_text(s));
+    }
+  }
+  fmt::print(out, "\nPresent values by bid ({}; buyer's cash flows)\n", cur);
+  fmt::print(out, "  {:<34}", "");
+  for (const BidResult& b : result.bids) fmt::print(out, "{:>14}", b.label);
+  out << "\n";
+  for (const CostLine& line : cost_lines()) {
+    fmt::print(out, "  {:<34}", line.label);
+    for (const BidResult& b : result.bids) {
+      fmt::print(out, "{:>14}", format_amount(b.design.present_value.*line.member));
+    }
+    out << "\n";
+  }
+  fmt::print(out, "  {:<34}", "net present cost");
+  for (const BidResult& b : result.bids) fmt::print(out, "{:>14}", format_amount(b.design.npc));
+  out << "\n\n";
+  print_safety_notice(out);
+}
+
+void write_tender_json(std::ostream& out, const TenderCase& tender, const TenderResult& result) {
+  JsonWriter json;
+  json.begin_object();
+  json.field("stowage_version", STOWAGE_VERSION_STRING);
+  json.field("tender", tender.title);
+  json.field("site", tender.site.name);
+  json.field("project_years", tender.economics.project_years);
+  json.field("real_discount_rate", tender.economics.real_discount_rate);
+  json.field("currency", tender.economics.currency);
+  json.key("recommended");
+  if (result.order.empty()) {
+    json.null();
+  } else {
+    json.value(result.bids[result.order.front()].label);
+  }
+  json.field("near_tie", result.near_tie);
+  json.key("bids").begin_array();
+  for (const BidResult& b : result.bids) {
+    json.begin_object();
+    json.field("label", b.label);
+    json.field("family", b.family);
+    json.field("compliant", b.compliant());
+    json.key("rank");
+    if (b.rank > 0) {
+      json.value(b.rank);
+    } else {
+      json.null();
+    }
+    json.field("price_score", b.compliant() ? b.price_score : std::nan(""));
+    json.field("technical_score", b.compliant() ? b.technical_score : std::nan(""));
+    json.field("total_score", b.compliant() ? b.total_score : std::nan(""));
+    json.field("npc_without_warranty", b.npc_without_warranty);
+    json.field("warranty_end_years", b.warranty.years);
+    json.field("warranty_end_by", cause_text(b.warranty.cause));
+    json.field("modelled_life_years", b.modelled_life_years);
+    json.field("warranty_exceeds_model", b.warranty_exceeds_model);
+    json.key("supplier_paid_replacement_years").begin_array();
+    for (int y : b.supplier_paid_years) json.value(y);
+    json.end_array();
+    json.key("buyer_paid_replacement_years").begin_array();
+    for (int y : b.buyer_paid_years) json.value(y);
+    json.end_array();
+    json.field("least_usable_kwh", b.least_usable_kwh);
+    json.field("power_kw", b.power_kw);
+    json.key("shortfalls").begin_array();
+    for (const Shortfall& s : b.shortfalls) {
+      json.begin_object();
+      json.field("requirement",
+                 s.kind == Shortfall::Kind::UsableEnergy ? "min_usable_kwh" : "min_power_kw");
+      json.field("required", s.required);
+      json.field("offered", s.offered);
+      if (s.kind == Shortfall::Kind::UsableEnergy) json.field("year", s.year);
+      json.end_object();
+    }
+    json.end_array();
+    json.key("design");
+    write_design_json(json, b.design);
+    json.end_object();
+  }
+  json.end_array();
+  json.field("notice",
+             "Planning estimate only; follow local codes, the manufacturer's instructions and "
+             "licensed practice.");
+  json.end_object();
+  out << json.str() << "\n";
+}
+
+void write_tender_csv(std::ostream& out, const TenderCase&, const TenderResult& result) {
+  out << "bid,family,compliant,rank,npc,lcos_per_kwh,price_score,technical_score,total_score,"
+         "warranty_end_years,warranty_end_by,modelled_life_years,supplier_paid_replacements,"
+         "buyer_paid_replacements,least_usable_kwh,power_kw\n";
+  for (const BidResult& b : result.bids) {
+    out << b.label << ',' << b.family << ',' << (b.compliant() ? "true" : "false") << ','
+        << (b.rank > 0 ? std::to_string(b.rank) : std::string()) << ','
+        << format_machine(b.design.npc) << ',' << format_machine(b.design.lcos_per_kwh) << ','
+        << (b.compliant() ? format_machine(b.price_score) : "") << ','
+        << (b.compliant() ? format_machine(b.technical_score) : "") << ','
+        << (b.compliant() ? format_machine(b.total_score) : "") << ','
+        << format_machine(b.warranty.years) << ',' << cause_text(b.warranty.cause) << ','
+        << format_machine(b.modelled_life_years) << ',' << b.supplier_paid_years.size() << ','
+        << b.buyer_paid_years.size() << ',' << format_machine(b.least_usable_kwh) << ','
+        << format_machine(b.power_kw) << "\n";
+  }
+}
+
+}  // namespace stowage::report
