@@ -10,6 +10,7 @@
 #include "catalog-schema/decimal_text.h"
 #include "catalog-schema/input_error.h"
 #include "catalog-schema/input_file.h"
+#include "catalog-schema/input_limits.h"
 #include "catalog-schema/schema_validator.h"
 #include "model/site.h"
 
@@ -113,14 +114,23 @@ HourlySeries read_hourly_csv(std::istream& in, const std::string& source_name) {
   series.source_kw.reserve(hours);
   series.temp_c.reserve(hours);
 
+  const auto power = [&](const CsvRow& row, std::size_t index, const char* name) {
+    const double kw = csv_number(table, row, index, name, 0, kInf);
+    if (kw > kMaxPowerKw) {
+      throw table.error(row.line, row.fields[index].column, name,
+                        limit_message(kMaxPowerKw, printable_input(row.fields[index].text),
+                                      " kW (values in W instead of kW?)"));
+    }
+    return kw;
+  };
   std::size_t rows = 0;
   int first_extra_line = 0;
   CsvRow row;
   while (table.next(row)) {
     ++rows;
     if (rows == hours + 1) first_extra_line = row.line;
-    series.load_kw.push_back(csv_number(table, row, *load, "load_kw", 0, kInf));
-    series.source_kw.push_back(csv_number(table, row, *source, "source_kw", 0, kInf));
+    series.load_kw.push_back(power(row, *load, "load_kw"));
+    series.source_kw.push_back(power(row, *source, "source_kw"));
     series.temp_c.push_back(csv_number(table, row, *temp, "temp_c", kMinPlausibleTempC,
                                        kMaxPlausibleTempC, kTempRangeHint));
     for (const auto& entry : price_index) {
@@ -146,7 +156,7 @@ HourlySeries read_hourly_csv(std::istream& in, const std::string& source_name) {
 }
 
 HourlySeries read_hourly_csv_file(const std::string& path) {
-  std::ifstream in = open_input_or_throw(path, "(file)");
+  std::ifstream in = open_input_or_throw(path, "(file)", kMaxCsvFileBytes);
   return read_hourly_csv(in, path);
 }
 

@@ -9,6 +9,7 @@
 #include "catalog-schema/decimal_text.h"
 #include "catalog-schema/input_error.h"
 #include "catalog-schema/input_file.h"
+#include "catalog-schema/input_limits.h"
 #include "catalog-schema/schema_validator.h"
 
 namespace stowage {
@@ -99,7 +100,7 @@ SocSeries read_soc_series(std::istream& in, const std::string& source_name) {
 }
 
 SocSeries read_soc_series_file(const std::string& path) {
-  std::ifstream in = open_input_or_throw(path, "(file)");
+  std::ifstream in = open_input_or_throw(path, "(file)", kMaxCsvFileBytes);
   return read_soc_series(in, path);
 }
 
