@@ -109,6 +109,10 @@ InputError::InputError(std::string file, int line, int column, std::string field
       field_(std::move(field)),
       message_(std::move(message)) {}
 
+std::string InputNote::text() const {
+  return format_error(file, line, column, field, "note: " + message);
+}
+
 InputError InputError::unreadable(const std::string& file, const std::string& field,
                                   const std::string& reason) {
   return InputError(file, 1, 1, field, reason);

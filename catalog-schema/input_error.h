@@ -53,4 +53,17 @@ class InputError : public std::runtime_error {
   std::string message_;
 };
 
+// Something a loader noticed and accepted, for the caller to show (an ignored CSV column): same
+// location as an error, but the input is used. text() is "FILE:LINE:COL: FIELD: note: message",
+// escaped like an error's what().
+struct InputNote {
+  std::string file;
+  int line = 1;
+  int column = 1;
+  std::string field;
+  std::string message;
+
+  std::string text() const;
+};
+
 }  // namespace stowage

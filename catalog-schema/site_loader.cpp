@@ -59,6 +59,7 @@ LoadedSite build_site(const YamlDocument& doc, const std::string& base_dir) {
     throw doc.error_at(s["hourly"], "site.hourly", "hourly CSV: " + reason);
   }
   HourlySeries hourly = read_hourly_csv(csv, loaded.hourly_path);
+  loaded.notes = std::move(hourly.notes);
   site.load_kw = std::move(hourly.load_kw);
   site.source_kw = std::move(hourly.source_kw);
   site.temp_c = std::move(hourly.temp_c);

@@ -13,6 +13,7 @@
 #include <istream>
 #include <optional>
 #include <string>
+#include <vector>
 
 #include "catalog-schema/input_error.h"  // what the readers throw
 #include "model/site.h"
@@ -24,6 +25,7 @@ struct LoadedSite {
   std::string path;                         // source name of the site file
   std::string hourly_path;                  // the CSV as opened (base_dir joined)
   std::optional<std::string> price_column;  // set when the charging price comes from the CSV
+  std::vector<InputNote> notes;             // what the hourly CSV reader ignored
 };
 
 LoadedSite load_site_details(std::istream& in, const std::string& source_name,
