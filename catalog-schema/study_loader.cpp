@@ -261,6 +261,7 @@ LoadedStudy build_study(const YamlDocument& doc, const std::string& base_dir) {
                                        kMaxYamlFileBytes);
     LoadedSite site = load_site_details(in, loaded.site_path, parent_directory(loaded.site_path));
     loaded.hourly_path = site.hourly_path;
+    loaded.notes = std::move(site.notes);
     loaded.study.site = std::move(site.site);
   }
   read_profiles(doc, base_dir, loaded);
@@ -272,6 +273,8 @@ LoadedStudy build_study(const YamlDocument& doc, const std::string& base_dir) {
     std::ifstream in = open_referenced(doc, s["soc_log"], "study.soc_log", loaded.soc_log_path,
                                        "SOC log", kMaxCsvFileBytes);
     loaded.soc_log = read_soc_series(in, loaded.soc_log_path);
+    loaded.notes.insert(loaded.notes.end(), loaded.soc_log->notes.begin(),
+                        loaded.soc_log->notes.end());
   }
   return loaded;
 }

@@ -40,6 +40,7 @@ struct LoadedStudy {
   std::vector<LoadedProfile> profiles;     // same order; currency and sources of each
   std::string soc_log_path;                // study.soc_log as opened; empty when not given
   std::optional<SocSeries> soc_log;        // the logged SOC series, when study.soc_log is given
+  std::vector<InputNote> notes;            // what the readers accepted but ignored, for display
 };
 
 LoadedStudy load_study_details(std::istream& in, const std::string& source_name,
