@@ -120,7 +120,8 @@ void read_designs(const YamlDocument& doc, LoadedStudy& loaded) {
     design.profile_id = d["profile"].Scalar();
     const ChemistryProfile* profile = loaded.study.find_profile(design.profile_id);
     if (profile == nullptr) {
-      std::string message = "no loaded profile has the id '" + design.profile_id + "'";
+      std::string message =
+          "no loaded profile has the id '" + printable_input(design.profile_id) + "'";
       const std::string hint = closest_match(design.profile_id, ids);
       if (!hint.empty()) message += " (did you mean '" + hint + "'?)";
       std::string all;
