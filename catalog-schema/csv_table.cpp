@@ -101,6 +101,12 @@ CsvTable::CsvTable(std::istream& in, std::string source_name)
     throw InputError(source_, line_ > 0 ? line_ : 1, 1, "(header)",
                      "the file has no header line naming the columns");
   }
+  if (header_.fields.size() > kMaxCsvColumns) {
+    throw error(header_.line, header_.fields[kMaxCsvColumns].column, "(header)",
+                "the header names " + std::to_string(header_.fields.size()) +
+                    " columns, more than the plausibility limit of " +
+                    std::to_string(kMaxCsvColumns) + " (see docs/input-format.md)");
+  }
   if (header_.fields.size() == 1 && header_.fields[0].text.find(';') != std::string::npos) {
     throw error(header_.line, 1, "(header)",
                 "the columns are separated by ';', as a spreadsheet saves CSV in a locale with "

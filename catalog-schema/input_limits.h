@@ -21,15 +21,21 @@
 
 namespace stowage {
 
-constexpr std::uintmax_t kMaxYamlFileBytes = 1u << 20;  // 1 MiB
-constexpr std::uintmax_t kMaxCsvFileBytes = 64u << 20;  // 64 MiB
-constexpr std::size_t kMaxCsvLineBytes = 64u << 10;     // 64 KiB
+// The largest shipped profile is under 6 kB; yaml-cpp takes up to about 400 bytes of memory per
+// byte of a flat flow list, so this keeps the worst file near 100 MB.
+constexpr std::uintmax_t kMaxYamlFileBytes = 256u << 10;  // 256 KiB
+constexpr std::uintmax_t kMaxCsvFileBytes = 64u << 20;    // 64 MiB
+constexpr std::size_t kMaxCsvLineBytes = 64u << 10;       // 64 KiB
+// Columns of a CSV header: each price column holds 8760 values, so their number bounds memory.
+constexpr std::size_t kMaxCsvColumns = 256;
 // The deepest field of the formats (profile.temperature.capacity_factor[0].temp_c) is 5 levels.
 constexpr int kMaxYamlNestingDepth = 20;
 // Rows of a logged SOC series: four years at one row a minute.
 constexpr std::size_t kMaxSocRows = 2'000'000;
 
 constexpr long kMaxStringsParallel = 1000;    // designs[].strings_parallel, max_strings_parallel
+constexpr std::size_t kMaxProfiles = 100;     // entries of study.profiles
+constexpr std::size_t kMaxDesigns = 1000;     // entries of study.designs, each simulated
 constexpr long kMaxDodLadderSetpoints = 101;  // a step of 0.01 over the whole (0, 1] range
 constexpr double kMaxBusVoltageV = 1500;      // the upper end of low-voltage DC (IEC 60038)
 constexpr long kMaxCellsInSeries = 2000;      // site.bus_voltage_v / profile.cell.nominal_v

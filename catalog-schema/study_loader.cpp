@@ -53,6 +53,12 @@ void read_profiles(const YamlDocument& doc, const std::string& base_dir, LoadedS
   const YAML::Node currency_node = doc.root()["study"]["economics"]["currency"];
   const std::string currency = loaded.study.economics.currency;
   const InputError currency_at = doc.error_at(currency_node, "", "");
+  if (list.size() > kMaxProfiles) {
+    throw doc.error_at(list, "study.profiles",
+                       "lists " + std::to_string(list.size()) +
+                           " profiles, more than the plausibility limit of " +
+                           std::to_string(kMaxProfiles) + " (see docs/input-format.md)");
+  }
   for (std::size_t i = 0; i < list.size(); ++i) {
     const std::string field = join_index("study.profiles", i);
     const std::string path = resolve_relative(base_dir, list[i].Scalar());
@@ -111,6 +117,12 @@ void read_profiles(const YamlDocument& doc, const std::string& base_dir, LoadedS
 void read_designs(const YamlDocument& doc, LoadedStudy& loaded) {
   const YAML::Node list = doc.root()["study"]["designs"];
   if (!list) return;
+  if (list.size() > kMaxDesigns) {
+    throw doc.error_at(list, "study.designs",
+                       "lists " + std::to_string(list.size()) +
+                           " designs, more than the plausibility limit of " +
+                           std::to_string(kMaxDesigns) + " (see docs/input-format.md)");
+  }
   std::vector<std::string> ids;
   for (const ChemistryProfile& p : loaded.study.profiles) ids.push_back(p.id);
   for (std::size_t i = 0; i < list.size(); ++i) {

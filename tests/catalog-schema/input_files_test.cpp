@@ -47,7 +47,7 @@ TEST_CASE("a YAML file over the size limit is refused before it is parsed", "[ca
       "big.yaml", "profile:\n  description: " +
                       std::string(static_cast<std::size_t>(kMaxYamlFileBytes), 'a') + "\n");
   const InputError e = expect_input_error([&] { load_profile_file(path); }, path, 1, "profile");
-  CHECK(e.message().find("1 MiB") != std::string::npos);
+  CHECK(e.message().find("256 KiB") != std::string::npos);
   // The same through a stream, which has no size to look up.
   std::istringstream in(testing::read_text(path));
   expect_input_error([&] { parse_yaml(in, "s.yaml"); }, "s.yaml", 1, "(top level)");

@@ -41,6 +41,9 @@ TEST_CASE("the limits table of docs/input-format.md holds the values of input_li
   row("YAML nesting depth", std::to_string(kMaxYamlNestingDepth) + " levels");
   row("CSV file size", size_text(kMaxCsvFileBytes));
   row("CSV line length", size_text(kMaxCsvLineBytes));
+  row("CSV columns", std::to_string(kMaxCsvColumns));
+  row("profiles in a study", std::to_string(kMaxProfiles));
+  row("designs in a study", std::to_string(kMaxDesigns));
   row("SOC series rows", std::to_string(kMaxSocRows));
 }
 

@@ -38,13 +38,13 @@ expect_exit 2 -- bounded "$STOWAGE" cycles /dev/zero &&
 expect_exit 2 -- bounded "$STOWAGE" check /dev/stdin </dev/zero || fail "/dev/stdin fed by /dev/zero"
 
 # 2 MB of nested brackets once took about 280 MB: refused by its size before it is parsed, and
-# 900 kB of them (within the size limit) by the nesting depth at the first line that passes it.
+# 200 kB of them (within the size limit) by the nesting depth at the first line that passes it.
 "$PY" -c 'import sys; open(sys.argv[1], "w").write("study: " + "[" * 1000000 + "]" * 1000000 + "\n")' "$WORK/deep2m.yaml"
 expect_exit 2 -- bounded "$STOWAGE" check "$WORK/deep2m.yaml" &&
-  grep -qF "deep2m.yaml:1:1: study: " "$WORK/err" && grep -qF "more than the 1 MiB" "$WORK/err" || fail "2 MB nested YAML"
-"$PY" -c 'import sys; open(sys.argv[1], "w").write("study:\n  title: x\n  designs: " + "[" * 450000 + "]" * 450000 + "\n")' "$WORK/deep.yaml"
+  grep -qF "deep2m.yaml:1:1: study: " "$WORK/err" && grep -qF "more than the 256 KiB" "$WORK/err" || fail "2 MB nested YAML"
+"$PY" -c 'import sys; open(sys.argv[1], "w").write("study:\n  title: x\n  designs: " + "[" * 100000 + "]" * 100000 + "\n")' "$WORK/deep.yaml"
 expect_exit 2 -- bounded "$STOWAGE" check "$WORK/deep.yaml" &&
-  grep -qF "deep.yaml:3:30: study.designs: collections nest more than 20" "$WORK/err" || fail "900 kB nested YAML"
+  grep -qF "deep.yaml:3:30: study.designs: collections nest more than 20" "$WORK/err" || fail "200 kB nested YAML"
 
 # A CSV far beyond the size limit, and one line of 1 MB in a small one.
 sed "s#hourly: hourly.csv#hourly: big.csv#" "$FIX/site.yaml" >"$WORK/site-big.yaml"
