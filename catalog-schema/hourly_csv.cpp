@@ -161,7 +161,18 @@ HourlySeries read_hourly_csv(std::istream& in, const std::string& source_name) {
         throw table.error(row.line, cell.column, "time",
                           "'" + printable_input(cell.text) + "': " + problem);
       }
-      if (previous_time) {
+      if (!previous_time) {
+        // Hour 0 of the format is 1 January 00:00; a series that starts elsewhere would be
+        // read a season out of place.
+        const bool starts_the_year =
+            t->is_date ? t->month == 1 && t->day == 1 && t->clock_hours == 0 : t->hours == 0;
+        if (!starts_the_year) {
+          throw table.error(row.line, cell.column, "time",
+                            "the first row is '" + printable_input(cell.text) +
+                                "', but the hourly CSV is one year from 1 January 00:00 (hour "
+                                "0): start the file there");
+        }
+      } else {
         if (t->is_date != previous_time->is_date) {
           throw table.error(row.line, cell.column, "time",
                             "'" + printable_input(cell.text) +

@@ -8,8 +8,8 @@
 //   price_per_kwh, price_<tag>_per_kwh   price of charging energy, currency/kWh, >= 0 (optional;
 //               a site's charging_price.column picks one)
 //   hour        ignored (optional, for the reader's orientation)
-//   time        optional: hours or ISO 8601 date-times (time_column.h), one hour apart and
-//               increasing (25 h over a dropped 29 February)
+//   time        optional: hours or ISO 8601 date-times (time_column.h), from hour 0 or
+//               1 January 00:00, one hour apart (25 h over a dropped 29 February)
 // A column with a known quantity but another unit (load_w, source_mw, temp_f, temp_k,
 // price_per_mwh) or a near miss of a name (laod_kw) is an error naming the expected name; any
 // other column (irradiance, wind speed) is ignored with a note. Exactly 8760 data rows; 8784 rows

@@ -107,6 +107,7 @@ std::optional<TimeValue> parse_date_time(const std::string& s, std::string& prob
   t.is_date = true;
   t.month = mo;
   t.day = d;
+  t.clock_hours = h + mi / 60.0 + sec / 3600.0;
   t.hours = static_cast<double>(days_from_civil(y, mo, d)) * 24.0 + h + mi / 60.0 + sec / 3600.0 -
             offset_hours;
   return t;

@@ -13,10 +13,11 @@
 namespace stowage {
 
 struct TimeValue {
-  double hours = 0;      // hours (a number as given; a date-time from 1970-01-01T00:00 UTC)
-  bool is_date = false;  // written as an ISO 8601 date-time
-  int month = 0;         // 1..12 for a date-time, for the leap-day rule of the hourly CSV
-  int day = 0;           // 1..31 for a date-time
+  double hours = 0;        // hours (a number as given; a date-time from 1970-01-01T00:00 UTC)
+  bool is_date = false;    // written as an ISO 8601 date-time
+  int month = 0;           // 1..12 for a date-time, for the leap-day rule of the hourly CSV
+  int day = 0;             // 1..31 for a date-time
+  double clock_hours = 0;  // time of day as written (before any offset), hours, for a date-time
 };
 
 // The value of one field; nullopt when it is neither a finite number nor a valid ISO 8601

@@ -181,10 +181,18 @@ TEST_CASE("a file saved by a spreadsheet reads: byte-order mark, CRLF, time, ext
   CHECK(s.notes[0].message.find("ignored") != std::string::npos);
   // A leap year with its 29 February dropped: the 25 h step over it is accepted.
   CHECK(read_text(dated_csv(2028)).load_kw.size() == 8760);
-  // Hours as numbers, the first row at any hour.
+  // Hours as numbers from 0.
   std::string hours = "time,load_kw,source_kw,temp_c\n";
-  for (int h = 0; h < 8760; ++h) hours += std::to_string(h + 10) + ",1,0,20\n";
+  for (int h = 0; h < 8760; ++h) hours += std::to_string(h) + ",1,0,20\n";
   CHECK(read_text(hours).load_kw.size() == 8760);
+  // Another year, every time with an offset: the clock reads 1 January 00:00.
+  std::string offset = dated_csv(2031);
+  for (std::size_t at = offset.find(",1,0,20"); at != std::string::npos;
+       at = offset.find(",1,0,20", at + 13)) {
+    offset.insert(at, "+02:00");
+  }
+  REQUIRE(offset.find("2031-12-31T23:00+02:00,1,0,20") != std::string::npos);
+  CHECK(read_text(offset).load_kw.size() == 8760);
 }
 
 TEST_CASE("a time column that is not hourly and increasing is refused at its row",
@@ -196,6 +204,13 @@ TEST_CASE("a time column that is not hourly and increasing is refused at its row
   CHECK_THAT(csv_error(back, 4, "time"), Catch::Contains("before the previous row"));
   const std::string gap = replace_once(dated_csv(2026), "2026-01-01T05:00", "2026-01-01T04:59");
   CHECK_THAT(csv_error(gap, 7, "time"), Catch::Contains("59 min"));
+  // A year that starts on 1 June would be read a season out of place.
+  std::string june = "time,load_kw,source_kw,temp_c\n";
+  for (int h = 0; h < 8760; ++h) june += std::to_string(h + 3624) + ",1,0,20\n";
+  CHECK_THAT(csv_error(june, 2, "time"), Catch::Contains("from 1 January 00:00"));
+  CHECK_THAT(
+      csv_error(replace_once(dated_csv(2026), "2026-01-01T00:00", "2026-01-01T01:00"), 2, "time"),
+      Catch::Contains("start the file there"));
   CHECK_THAT(csv_error(replace_once(dated_csv(2026), "2026-01-01T05:00", "5 o'clock"), 7, "time"),
              Catch::Contains("not a time"));
 }
