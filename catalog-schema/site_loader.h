@@ -7,7 +7,8 @@
 // the CSV. charging_price gives either a constant per_kwh, copied to all 8760 hours, or the
 // name of a price column, which the CSV must have (else the error is at
 // `site.charging_price.column`). Optional blocks left out: no back-up (backup_price_per_kwh
-// unset), no unserved limit, penalty 0, design_margin 1.
+// unset), no unserved limit, penalty 0, design_margin 1. bus_voltage_v, autonomy_days and
+// design_margin are held to the plausibility limits of input_limits.h at their keys.
 #pragma once
 
 #include <istream>
