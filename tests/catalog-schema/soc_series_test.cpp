@@ -45,8 +45,8 @@ TEST_CASE("the time column gives the real spacing of the samples", "[catalog][so
       "2026-03-02T00:15,0.6\n");
   REQUIRE(quarter.hours_per_sample);
   CHECK(*quarter.hours_per_sample == Approx(0.25));
-  // Hours as numbers, and date-times with seconds, a fraction and an offset (ISO 8601-1:2019,
-  // 5.3.4: 10:00+01:00 is 09:00Z, so the rows are 30 s apart).
+  // Hours as numbers, and date-times with seconds, a fraction and an offset: 10:00:30+01:00 is
+  // 09:00:30Z (ISO 8601 offset notation; Python's datetime.fromisoformat agrees), 30 s apart.
   CHECK(*read_text("time,soc\n0,0.5\n0.5,0.6\n1,0.7\n").hours_per_sample == Approx(0.5));
   const SocSeries offset = read_text(
       "time,soc\n2026-03-01T09:00:00Z,0.5\n2026-03-01T10:00:30+01:00,0.6\n"
