@@ -9,6 +9,8 @@
 #include <utility>
 
 #include "catalog-schema/decimal_text.h"
+#include "catalog-schema/input_file.h"
+#include "catalog-schema/input_limits.h"
 
 namespace stowage {
 namespace {
@@ -62,6 +64,35 @@ std::vector<CsvField> split(const std::string& line) {
   return fields;
 }
 
+// A spreadsheet saved with a decimal comma gives "0,5": say so rather than "not a number".
+std::string decimal_comma_hint(const std::string& text) {
+  std::string dotted = text;
+  for (char& c : dotted) c = c == ',' ? '.' : c;
+  if (dotted != text && is_decimal_text(dotted)) {
+    return " (a decimal comma: write " + dotted +
+           "; stowage reads '.' as the decimal point, as spreadsheets save CSV in an English "
+           "locale)";
+  }
+  return " (use '.' as the decimal point)";
+}
+
+// Two neighbouring fields that are both plain digits, as "0,62" splits into "0" and "62".
+bool looks_like_decimal_comma(const std::vector<CsvField>& fields) {
+  const auto digits = [](const std::string& s) {
+    if (s.empty()) return false;
+    std::size_t i = s[0] == '-' || s[0] == '+' ? 1 : 0;
+    if (i == s.size()) return false;
+    for (; i < s.size(); ++i) {
+      if (s[i] < '0' || s[i] > '9') return false;
+    }
+    return true;
+  };
+  for (std::size_t i = 1; i < fields.size(); ++i) {
+    if (digits(fields[i - 1].text) && digits(fields[i].text)) return true;
+  }
+  return false;
+}
+
 }  // namespace
 
 CsvTable::CsvTable(std::istream& in, std::string source_name)
@@ -70,13 +101,70 @@ CsvTable::CsvTable(std::istream& in, std::string source_name)
     throw InputError(source_, line_ > 0 ? line_ : 1, 1, "(header)",
                      "the file has no header line naming the columns");
   }
+  if (header_.fields.size() > kMaxCsvColumns) {
+    throw error(header_.line, header_.fields[kMaxCsvColumns].column, "(header)",
+                "the header names " + std::to_string(header_.fields.size()) +
+                    " columns, more than the plausibility limit of " +
+                    std::to_string(kMaxCsvColumns) + " (see docs/input-format.md)");
+  }
+  if (header_.fields.size() == 1 && header_.fields[0].text.find(';') != std::string::npos) {
+    throw error(header_.line, 1, "(header)",
+                "the columns are separated by ';', as a spreadsheet saves CSV in a locale with "
+                "a decimal comma; stowage reads ',' between fields and '.' as the decimal "
+                "point: save the file as CSV with those, or replace ';' by ',' and decimal "
+                "commas by points");
+  }
+}
+
+bool CsvTable::get_line(std::string& text) {
+  text.clear();
+  std::streambuf* buffer = in_.rdbuf();
+  if (buffer == nullptr || !in_.good()) return false;
+  bool any = false;
+  while (true) {
+    const int c = buffer->sbumpc();
+    if (c == std::char_traits<char>::eof()) {
+      in_.setstate(std::ios::eofbit);
+      break;
+    }
+    any = true;
+    if (++bytes_ > kMaxCsvFileBytes) {
+      throw error(
+          line_ + 1, 1, "(file)",
+          "the file is larger than the " + size_text(kMaxCsvFileBytes) + " a CSV input may have");
+    }
+    if (c == '\n') break;
+    if (text.size() >= kMaxCsvLineBytes) {
+      throw error(line_ + 1, 1, "(line)",
+                  "the line is longer than " + size_text(kMaxCsvLineBytes) +
+                      " (a plausibility limit, see docs/input-format.md); is this a CSV file?");
+    }
+    text += static_cast<char>(c);
+  }
+  return any;
 }
 
 bool CsvTable::read_line(CsvRow& row) {
   std::string text;
-  while (std::getline(in_, text)) {
+  while (get_line(text)) {
     ++line_;
+    if (line_ == 1) {
+      if (text.compare(0, 2, "\xff\xfe") == 0 || text.compare(0, 2, "\xfe\xff") == 0) {
+        throw error(1, 1, "(file)",
+                    "the file is UTF-16 (it starts with a UTF-16 byte-order mark); save it as "
+                    "UTF-8 CSV");
+      }
+      // The UTF-8 byte-order mark some spreadsheets write first.
+      if (text.compare(0, 3, "\xef\xbb\xbf") == 0) text.erase(0, 3);
+    }
     if (!text.empty() && text.back() == '\r') text.pop_back();
+    if (const std::size_t bad = invalid_utf8_at(text); bad != std::string::npos) {
+      int column = 1;
+      for (std::size_t i = 0; i < bad; ++i) column += (text[i] & 0xC0) != 0x80;
+      throw error(line_, column, utf8_field(text, bad),
+                  "the line is not valid UTF-8 here (byte " + escape_controls(text.substr(bad, 1)) +
+                      "); save the file as UTF-8");
+    }
     if (blank(text)) continue;
     const std::size_t first = text.find_first_not_of(" \t");
     if (text[first] == '#') continue;
@@ -86,6 +174,21 @@ bool CsvTable::read_line(CsvRow& row) {
   }
   if (in_.bad()) throw InputError(source_, line_ + 1, 1, "(file)", "read error");
   return false;
+}
+
+// The column a byte offset of a line falls into, named by the header once it has been read.
+std::string CsvTable::utf8_field(const std::string& text, std::size_t offset) const {
+  const std::size_t first = text.find_first_not_of(" \t");
+  if (first != std::string::npos && text[first] == '#') return "(comment)";
+  if (header_.fields.empty()) return "(header)";
+  std::size_t index = 0;
+  bool quoted = false;
+  for (std::size_t i = 0; i < offset; ++i) {
+    if (text[i] == '"') quoted = !quoted;
+    if (text[i] == ',' && !quoted) ++index;
+  }
+  if (index < header_.fields.size()) return printable_input(header_.fields[index].text);
+  return "(extra field " + std::to_string(index + 1) + ")";
 }
 
 bool CsvTable::next(CsvRow& row) {
@@ -100,7 +203,11 @@ bool CsvTable::next(CsvRow& row) {
   if (row.fields.size() > want) {
     throw error(row.line, row.fields[want].column, "(extra field " + std::to_string(want + 1) + ")",
                 "the row has " + std::to_string(row.fields.size()) +
-                    " fields, the header names only " + std::to_string(want) + " columns");
+                    " fields, the header names only " + std::to_string(want) + " columns" +
+                    (looks_like_decimal_comma(row.fields)
+                         ? "; the values look written with a decimal comma (0,62 for 0.62), "
+                           "which splits each of them in two: write the decimal point '.'"
+                         : ""));
   }
   return true;
 }
@@ -136,11 +243,12 @@ double csv_number(const CsvTable& table, const CsvRow& row, std::size_t index,
     case CsvNumberStatus::Empty:
       throw table.error(row.line, cell.column, field, "missing value");
     case CsvNumberStatus::NotANumber:
-      throw table.error(row.line, cell.column, field,
-                        "not a number: '" + cell.text + "' (use '.' as the decimal point)");
+      throw table.error(
+          row.line, cell.column, field,
+          "not a number: '" + printable_input(cell.text) + "'" + decimal_comma_hint(cell.text));
     case CsvNumberStatus::NotFinite:
       throw table.error(row.line, cell.column, field,
-                        "must be a finite number, found '" + cell.text + "'");
+                        "must be a finite number, found '" + printable_input(cell.text) + "'");
   }
   if (value < min_value || value > max_value) {
     std::string range;
@@ -150,7 +258,7 @@ double csv_number(const CsvTable& table, const CsvRow& row, std::size_t index,
       range = "must be within [" + number_text(min_value) + ", " + number_text(max_value) + "]";
     }
     throw table.error(row.line, cell.column, field,
-                      range + ", found " + cell.text + (range_hint.empty() ? "" : range_hint));
+                      range + ", found " + printable_input(cell.text) + range_hint);
   }
   return value;
 }

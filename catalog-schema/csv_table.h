@@ -5,13 +5,17 @@
 // Dialect: comma-separated; a line whose first non-blank character is '#' is a comment; blank
 // lines are skipped; the first other line is the header of column names; a field may be quoted
 // with double quotes (a doubled quote inside stands for one); spaces around a field are
-// dropped; CRLF line ends are accepted. Lines are counted physically (1-based, comments
-// included) so every error points at the line an editor shows. A row must have as many fields
-// as the header.
+// dropped; CRLF line ends and a UTF-8 byte-order mark (as spreadsheets save CSV) are
+// accepted. Lines are counted physically (1-based, comments included) so every error points at
+// the line an editor shows. A row must have as many fields as the header. Every line must be
+// UTF-8 (a UTF-16 file is named as such); a header separated by ';' is refused with the hint
+// that the file was saved in a decimal-comma locale, and so is a row split by decimal commas.
+// Lines are at most kMaxCsvLineBytes and the file kMaxCsvFileBytes (input_limits.h).
 // Numbers are decimal with '.' as the point (1, -2.5, 3e-2); nan/inf in any spelling are
 // recognised so that the message can say "not finite" rather than "not a number".
 #pragma once
 
+#include <cstdint>
 #include <istream>
 #include <optional>
 #include <string>
@@ -48,11 +52,14 @@ class CsvTable {
                    const std::string& message) const;
 
  private:
-  bool read_line(CsvRow& row);  // next non-comment, non-blank line split into fields
+  bool read_line(CsvRow& row);       // next non-comment, non-blank line split into fields
+  bool get_line(std::string& text);  // std::getline bounded by the line and file limits
+  std::string utf8_field(const std::string& text, std::size_t offset) const;
   std::istream& in_;
   std::string source_;
   CsvRow header_;
   int line_ = 0;
+  std::uintmax_t bytes_ = 0;
 };
 
 enum class CsvNumberStatus { Ok, Empty, NotANumber, NotFinite };

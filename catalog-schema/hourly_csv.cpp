@@ -2,6 +2,7 @@
 #include "catalog-schema/hourly_csv.h"
 
 #include <cctype>
+#include <cmath>
 #include <limits>
 #include <optional>
 #include <regex>
@@ -10,7 +11,9 @@
 #include "catalog-schema/decimal_text.h"
 #include "catalog-schema/input_error.h"
 #include "catalog-schema/input_file.h"
+#include "catalog-schema/input_limits.h"
 #include "catalog-schema/schema_validator.h"
+#include "catalog-schema/time_column.h"
 #include "model/site.h"
 
 namespace stowage {
@@ -34,7 +37,17 @@ bool is_price_column(const std::string& name) {
 
 bool allowed_name(const std::string& name) {
   return name == "load_kw" || name == "source_kw" || name == "temp_c" || name == "hour" ||
-         is_price_column(name);
+         name == "time" || is_price_column(name);
+}
+
+// The step between two rows of the time column: an hour, or 25 hours from 28 February to
+// 1 March where a leap year's 29 February was dropped as the format asks.
+bool hourly_step(const TimeValue& previous, const TimeValue& next) {
+  const double step = next.hours - previous.hours;
+  constexpr double kSecond = 1.0 / 3600.0;
+  if (std::fabs(step - 1.0) <= kSecond) return true;
+  return previous.is_date && previous.month == 2 && previous.day == 28 && next.month == 3 &&
+         next.day == 1 && std::fabs(step - 25.0) <= kSecond;
 }
 
 }  // namespace
@@ -47,9 +60,7 @@ std::string hourly_column_problem(const std::string& name) {
   static const std::regex power("(load|source)_([A-Za-z0-9]+)");
   static const std::regex temperature("(temp|temperature)_([A-Za-z0-9]+)");
   static const std::regex price("(price(_[a-z0-9]+)*)_per_([A-Za-z0-9]+)");
-  if (name.size() > kMaxPatternText) {
-    return "unknown column (a name of " + std::to_string(name.size()) + " characters)";
-  }
+  if (name.size() > kMaxPatternText) return "";
   std::smatch m;
   if (std::regex_match(name, m, power)) {
     return "expected kW: name it " + m[1].str() + "_kw and give the values in kilowatts";
@@ -61,20 +72,21 @@ std::string hourly_column_problem(const std::string& name) {
     return "expected a price per kWh: name it " + m[1].str() +
            "_per_kwh and give the values in currency per kWh";
   }
-  std::string message =
-      "unknown column; the columns are load_kw, source_kw, temp_c, and optionally "
-      "price_per_kwh (or price_<tag>_per_kwh) and hour";
+  // A near miss of a name is refused: ignoring it would hide the column the user meant.
   const std::string hint =
-      closest_match(name, {"load_kw", "source_kw", "temp_c", "price_per_kwh", "hour"});
-  if (!hint.empty()) message += " (did you mean '" + hint + "'?)";
-  return message;
+      closest_match(name, {"load_kw", "source_kw", "temp_c", "price_per_kwh", "hour", "time"});
+  if (hint.empty()) return "";
+  return "unknown column (did you mean '" + hint +
+         "'?); the columns are load_kw, source_kw, temp_c, and optionally price_per_kwh (or "
+         "price_<tag>_per_kwh), hour and time";
 }
 
 HourlySeries read_hourly_csv(std::istream& in, const std::string& source_name) {
   CsvTable table(in, source_name);
   const CsvRow& header = table.header();
 
-  std::optional<std::size_t> load, source, temp;
+  std::optional<std::size_t> load, source, temp, time;
+  std::vector<std::size_t> ignored;
   std::map<std::string, std::size_t> price_index;
   for (std::size_t i = 0; i < header.fields.size(); ++i) {
     const CsvField& field = header.fields[i];
@@ -85,6 +97,7 @@ HourlySeries read_hourly_csv(std::istream& in, const std::string& source_name) {
     }
     const std::string problem = hourly_column_problem(name);
     if (!problem.empty()) throw table.error(header.line, field.column, name, problem);
+    if (!allowed_name(name)) ignored.push_back(i);
     for (std::size_t j = 0; j < i; ++j) {
       if (header.fields[j].text == name) {
         throw table.error(header.line, field.column, name,
@@ -94,6 +107,7 @@ HourlySeries read_hourly_csv(std::istream& in, const std::string& source_name) {
     if (name == "load_kw") load = i;
     if (name == "source_kw") source = i;
     if (name == "temp_c") temp = i;
+    if (name == "time") time = i;
     if (is_price_column(name)) price_index[name] = i;
   }
   for (const char* required : {"load_kw", "source_kw", "temp_c"}) {
@@ -107,22 +121,80 @@ HourlySeries read_hourly_csv(std::istream& in, const std::string& source_name) {
   }
 
   HourlySeries series;
+  for (const std::size_t i : ignored) {
+    series.notes.push_back({table.source(), header.line, header.fields[i].column,
+                            header.fields[i].text,
+                            "column ignored: the hourly CSV uses load_kw, source_kw, temp_c, "
+                            "price columns, hour and time"});
+  }
+  std::optional<TimeValue> previous_time;
   for (const auto& entry : price_index) series.prices[entry.first];
   const std::size_t hours = static_cast<std::size_t>(kHoursPerYear);
   series.load_kw.reserve(hours);
   series.source_kw.reserve(hours);
   series.temp_c.reserve(hours);
 
+  const auto power = [&](const CsvRow& row, std::size_t index, const char* name) {
+    const double kw = csv_number(table, row, index, name, 0, kInf);
+    if (kw > kMaxPowerKw) {
+      throw table.error(row.line, row.fields[index].column, name,
+                        limit_message(kMaxPowerKw, printable_input(row.fields[index].text),
+                                      " kW (values in W instead of kW?)"));
+    }
+    return kw;
+  };
   std::size_t rows = 0;
   int first_extra_line = 0;
   CsvRow row;
   while (table.next(row)) {
     ++rows;
     if (rows == hours + 1) first_extra_line = row.line;
-    series.load_kw.push_back(csv_number(table, row, *load, "load_kw", 0, kInf));
-    series.source_kw.push_back(csv_number(table, row, *source, "source_kw", 0, kInf));
+    series.load_kw.push_back(power(row, *load, "load_kw"));
+    series.source_kw.push_back(power(row, *source, "source_kw"));
     series.temp_c.push_back(csv_number(table, row, *temp, "temp_c", kMinPlausibleTempC,
                                        kMaxPlausibleTempC, kTempRangeHint));
+    if (time) {
+      const CsvField& cell = row.fields[*time];
+      std::string problem;
+      const std::optional<TimeValue> t = parse_time(cell.text, problem);
+      if (!t) {
+        throw table.error(row.line, cell.column, "time",
+                          "'" + printable_input(cell.text) + "': " + problem);
+      }
+      if (!previous_time) {
+        // Hour 0 of the format is 1 January 00:00; a series that starts elsewhere would be
+        // read a season out of place.
+        const bool starts_the_year =
+            t->is_date ? t->month == 1 && t->day == 1 && t->clock_hours == 0 : t->hours == 0;
+        if (!starts_the_year) {
+          throw table.error(row.line, cell.column, "time",
+                            "the first row is '" + printable_input(cell.text) +
+                                "', but the hourly CSV is one year from 1 January 00:00 (hour "
+                                "0): start the file there");
+        }
+      } else {
+        if (t->is_date != previous_time->is_date) {
+          throw table.error(row.line, cell.column, "time",
+                            "'" + printable_input(cell.text) +
+                                "' is not in the form of the previous row's time; give every "
+                                "time as hours or every time as a date-time");
+        }
+        if (!(t->hours > previous_time->hours)) {
+          throw table.error(row.line, cell.column, "time",
+                            "times must increase from row to row: '" + printable_input(cell.text) +
+                                "' is " +
+                                (t->hours == previous_time->hours ? "the same as" : "before") +
+                                " the previous row's");
+        }
+        if (!hourly_step(*previous_time, *t)) {
+          throw table.error(row.line, cell.column, "time",
+                            "the rows must be one hour apart, this one is " +
+                                duration_text(t->hours - previous_time->hours) +
+                                " after the previous row (the hourly CSV holds hourly means)");
+        }
+      }
+      previous_time = t;
+    }
     for (const auto& entry : price_index) {
       series.prices[entry.first].push_back(
           csv_number(table, row, entry.second, entry.first, 0, kInf));
@@ -146,7 +218,7 @@ HourlySeries read_hourly_csv(std::istream& in, const std::string& source_name) {
 }
 
 HourlySeries read_hourly_csv_file(const std::string& path) {
-  std::ifstream in = open_input_or_throw(path, "(file)");
+  std::ifstream in = open_input_or_throw(path, "(file)", kMaxCsvFileBytes);
   return read_hourly_csv(in, path);
 }
 

@@ -8,11 +8,14 @@
 //   price_per_kwh, price_<tag>_per_kwh   price of charging energy, currency/kWh, >= 0 (optional;
 //               a site's charging_price.column picks one)
 //   hour        ignored (optional, for the reader's orientation)
+//   time        optional: hours or ISO 8601 date-times (time_column.h), from hour 0 or
+//               1 January 00:00, one hour apart (25 h over a dropped 29 February)
 // A column with a known quantity but another unit (load_w, source_mw, temp_f, temp_k,
-// price_per_mwh) is an error naming the expected unit and name; any other unknown column is an
-// error too. Exactly 8760 data rows; 8784 rows means a leap year, whose 29 February must be
-// dropped. Every value must be finite. Errors name the file, the physical line (1-based,
-// comments counted), the character column and the CSV column name. CSV dialect: csv_table.h.
+// price_per_mwh) or a near miss of a name (laod_kw) is an error naming the expected name; any
+// other column (irradiance, wind speed) is ignored with a note. Exactly 8760 data rows; 8784 rows
+// means a leap year, whose 29 February must be dropped. Every value must be finite. Errors name the
+// file, the physical line (1-based, comments counted), the character column and the CSV column
+// name. CSV dialect: csv_table.h.
 #pragma once
 
 #include <istream>
@@ -29,13 +32,14 @@ struct HourlySeries {
   std::vector<double> source_kw;
   std::vector<double> temp_c;
   std::map<std::string, std::vector<double>> prices;  // price column name -> 8760 values
+  std::vector<InputNote> notes;                       // columns ignored
 };
 
 HourlySeries read_hourly_csv(std::istream& in, const std::string& source_name);
 HourlySeries read_hourly_csv_file(const std::string& path);
 
-// The message for a column name that is not allowed in an hourly CSV ("" when it is allowed):
-// the wrong-unit hint ("expected kW: name it load_kw") or the list of allowed names.
+// The message for a column name that is refused in an hourly CSV ("" when it is used or
+// ignored): the wrong-unit hint ("expected kW: name it load_kw") or the nearest allowed name.
 std::string hourly_column_problem(const std::string& name);
 
 }  // namespace stowage

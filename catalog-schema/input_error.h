@@ -8,12 +8,28 @@
 // terminals turn into a link.
 // A file that cannot be opened is reported at line 1, column 1 of that file. Line and column
 // are never 0 once built through the factories below (yaml-cpp marks are 0-based: add 1).
+// what() never carries a control character or a byte that is not UTF-8: they are written as
+// escapes (\x1b, \u0085), so a hostile file cannot drive the terminal that shows the message;
+// a field path longer than kMaxEchoedChars is cut.
 #pragma once
 
+#include <cstddef>
 #include <stdexcept>
 #include <string>
+#include <string_view>
 
 namespace stowage {
+
+// Input text as messages show it: control characters and bytes that are not UTF-8 escaped, and
+// cut after `max_chars` code points ("...", then the full length in characters).
+constexpr std::size_t kMaxEchoedChars = 60;
+std::string printable_input(std::string_view text, std::size_t max_chars = kMaxEchoedChars);
+// Only the escaping of printable_input(), no cut.
+std::string escape_controls(std::string_view text);
+
+// Position of the first byte of `text` that does not start a valid UTF-8 sequence (overlong
+// forms, surrogates and code points above U+10FFFF count as invalid); npos when all is valid.
+std::size_t invalid_utf8_at(std::string_view text);
 
 class InputError : public std::runtime_error {
  public:
@@ -35,6 +51,19 @@ class InputError : public std::runtime_error {
   int column_;
   std::string field_;
   std::string message_;
+};
+
+// Something a loader noticed and accepted, for the caller to show (an ignored CSV column): same
+// location as an error, but the input is used. text() is "FILE:LINE:COL: FIELD: note: message",
+// escaped like an error's what().
+struct InputNote {
+  std::string file;
+  int line = 1;
+  int column = 1;
+  std::string field;
+  std::string message;
+
+  std::string text() const;
 };
 
 }  // namespace stowage

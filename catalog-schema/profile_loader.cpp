@@ -10,6 +10,7 @@
 #include "catalog-schema/decimal_text.h"
 #include "catalog-schema/input_error.h"
 #include "catalog-schema/input_file.h"
+#include "catalog-schema/input_limits.h"
 #include "catalog-schema/schema_validator.h"
 #include "catalog-schema/yaml_document.h"
 #include "model/invalid_value.h"
@@ -159,7 +160,8 @@ LoadedProfile build_profile(const YamlDocument& doc) {
   const YAML::Node cell = p["cell"];
   check_cell(doc, cell);
   profile.cell_nominal_v = number(cell["nominal_v"]);
-  profile.cell_capacity_ah = number(cell["capacity_ah"]);
+  profile.cell_capacity_ah = plausible_number(doc, cell["capacity_ah"], "profile.cell.capacity_ah",
+                                              kMaxCellCapacityAh, " Ah");
   read_optional(cell, "capacity_rate_hours", profile.capacity_rate_hours);
   profile.mean_charge_v = number(cell["mean_charge_v"]);
   profile.mean_discharge_v = number(cell["mean_discharge_v"]);
@@ -237,7 +239,7 @@ LoadedProfile load_profile_details(std::istream& in, const std::string& source_n
 }
 
 LoadedProfile load_profile_details_file(const std::string& path) {
-  std::ifstream in = open_input_or_throw(path, "profile");
+  std::ifstream in = open_input_or_throw(path, "profile", kMaxYamlFileBytes);
   return load_profile_details(in, path);
 }
 

@@ -6,7 +6,8 @@
 // keys), then the rules that relate values to each other: mean_charge_v > mean_discharge_v,
 // dod.min <= dod.default <= dod.max, cycle-life DoDs unique and cycles strictly falling as DoD
 // grows, capacity-factor temperatures strictly increasing, operating/charging min < max, every
-// `sources` key naming a field present in the profile. Finally the model's own validate() runs;
+// `sources` key naming a field present in the profile, cell.capacity_ah at most
+// kMaxCellCapacityAh (input_limits.h). Finally the model's own validate() runs;
 // should it refuse a value the loader let through, its field path is mapped back to the node.
 // Every failure is an InputError naming the file, line, column and field path
 // ("profile.ageing.cycle_life[2].cycles", paths as written in the file).

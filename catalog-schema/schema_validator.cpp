@@ -13,6 +13,7 @@
 
 #include "catalog-schema/decimal_text.h"
 #include "catalog-schema/embedded_schemas.h"
+#include "catalog-schema/input_limits.h"
 
 namespace stowage {
 namespace {
@@ -271,8 +272,8 @@ void SchemaValidator::check_node(const YAML::Node& schema_in, const YAML::Node& 
       const bool numeric = std::find(types.begin(), types.end(), "number") != types.end() ||
                            std::find(types.begin(), types.end(), "integer") != types.end();
       if (numeric && value.IsScalar() && scalar_kind(value) == ScalarKind::NonFiniteNumber) {
-        out.push_back(
-            document.error_at(where, path, "must be a finite number, found " + value.Scalar()));
+        out.push_back(document.error_at(
+            where, path, "must be a finite number, found " + printable_input(value.Scalar())));
         return;
       }
       std::vector<std::string> phrases;
@@ -280,7 +281,7 @@ void SchemaValidator::check_node(const YAML::Node& schema_in, const YAML::Node& 
       std::string message =
           "expected " + join_words(phrases, " or ") + ", found " + describe_node(value);
       if (std::find(types.begin(), types.end(), "integer") != types.end() && scalar_number(value)) {
-        message = "expected a whole number, found " + value.Scalar();
+        message = "expected a whole number, found " + printable_input(value.Scalar());
       } else if (value.IsScalar() && scalar_kind(value) == ScalarKind::Text && numeric &&
                  value.Tag() == "!") {
         message += " (remove the quotes to give a number)";
@@ -327,14 +328,39 @@ void SchemaValidator::check_node(const YAML::Node& schema_in, const YAML::Node& 
       if (!bound.holds(*x, limit)) {
         out.push_back(document.error_at(where, path,
                                         std::string("must be ") + bound.relation + " " +
-                                            format_number(limit) + ", found " + value.Scalar()));
+                                            format_number(limit) + ", found " +
+                                            printable_input(value.Scalar())));
         return;
       }
+    }
+    if (std::fabs(*x) > kMaxInputMagnitude) {
+      out.push_back(document.error_at(
+          where, path,
+          "is beyond the plausible range of any input of the formats (magnitude at most " +
+              format_number(kMaxInputMagnitude) + ", see docs/input-format.md), found " +
+              printable_input(value.Scalar())));
+      return;
     }
   }
 
   if (value.IsScalar() && scalar_kind(value) == ScalarKind::Text) {
     const std::string& text = value.Scalar();
+    // A quoted YAML scalar can spell any control character ("\e[2J"); text fields reach
+    // reports and the terminal, so none may hold one but the line break of a YAML block
+    // scalar (a tab neither: it shows as spaces).
+    for (std::size_t i = 0; i < text.size(); ++i) {
+      const unsigned char c = static_cast<unsigned char>(text[i]);
+      const bool c1 = c == 0xC2 && i + 1 < text.size() &&
+                      static_cast<unsigned char>(text[i + 1]) >= 0x80 &&
+                      static_cast<unsigned char>(text[i + 1]) < 0xA0;
+      if ((c < 0x20 && c != '\n') || c == 0x7F || c1) {
+        out.push_back(document.error_at(where, path,
+                                        "must not hold control characters, found " +
+                                            printable_input(text.substr(i, c1 ? 2 : 1)) + " in '" +
+                                            printable_input(text) + "'"));
+        return;
+      }
+    }
     if (schema["minLength"]) {
       std::size_t length = 0;  // code points, counting UTF-8 lead bytes
       for (const char c : text) length += (static_cast<unsigned char>(c) & 0xC0) != 0x80;
@@ -352,7 +378,7 @@ void SchemaValidator::check_node(const YAML::Node& schema_in, const YAML::Node& 
       }
       const std::regex re(schema["pattern"].Scalar(), std::regex::ECMAScript);
       if (!std::regex_search(text, re)) {
-        std::string message = "'" + text + "' is not in the expected form";
+        std::string message = "'" + printable_input(text) + "' is not in the expected form";
         if (schema["patternErrorMessage"]) {
           message += ": " + schema["patternErrorMessage"].Scalar();
         } else {
@@ -414,14 +440,15 @@ void SchemaValidator::check_object(const YAML::Node& schema, const YAML::Node& v
     const auto first = seen_at_line.emplace(key, key_node.Mark().line + 1);
     if (!first.second) {
       out.push_back(document.error_at(key_node, field,
-                                      "duplicate key '" + key + "' (first given on line " +
+                                      "duplicate key '" + printable_input(key) +
+                                          "' (first given on line " +
                                           std::to_string(first.first->second) + ")"));
       continue;
     }
     if (properties && properties[key]) {
       check_node(properties[key], it->second, key_node, field, document, out);
     } else if (closed) {
-      std::string message = "unknown key '" + key + "'";
+      std::string message = "unknown key '" + printable_input(key) + "'";
       const std::string hint = closest_match(key, allowed);
       if (!hint.empty() && !value[hint]) {
         message += " (did you mean '" + hint + "'?)";

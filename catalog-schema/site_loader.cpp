@@ -7,6 +7,7 @@
 #include "catalog-schema/hourly_csv.h"
 #include "catalog-schema/input_error.h"
 #include "catalog-schema/input_file.h"
+#include "catalog-schema/input_limits.h"
 #include "catalog-schema/schema_validator.h"
 #include "catalog-schema/yaml_document.h"
 #include "model/invalid_value.h"
@@ -28,9 +29,14 @@ LoadedSite build_site(const YamlDocument& doc, const std::string& base_dir) {
   loaded.path = doc.source();
   SiteConditions& site = loaded.site;
   site.name = s["name"].Scalar();
-  site.bus_voltage_v = number(s["bus_voltage_v"]);
-  site.autonomy_days = number(s["autonomy_days"]);
-  if (s["design_margin"]) site.design_margin = number(s["design_margin"]);
+  site.bus_voltage_v =
+      plausible_number(doc, s["bus_voltage_v"], "site.bus_voltage_v", kMaxBusVoltageV, " V");
+  site.autonomy_days =
+      plausible_number(doc, s["autonomy_days"], "site.autonomy_days", kMaxAutonomyDays, " days");
+  if (s["design_margin"]) {
+    site.design_margin =
+        plausible_number(doc, s["design_margin"], "site.design_margin", kMaxDesignMargin);
+  }
   site.charger_efficiency = number(s["charger_efficiency"]);
   site.inverter_efficiency = number(s["inverter_efficiency"]);
   if (s["source_to_load_efficiency"]) {
@@ -49,10 +55,11 @@ LoadedSite build_site(const YamlDocument& doc, const std::string& base_dir) {
   loaded.hourly_path = resolve_relative(base_dir, s["hourly"].Scalar());
   std::ifstream csv;
   std::string reason;
-  if (!open_input(loaded.hourly_path, csv, reason)) {
+  if (!open_input(loaded.hourly_path, csv, reason, kMaxCsvFileBytes)) {
     throw doc.error_at(s["hourly"], "site.hourly", "hourly CSV: " + reason);
   }
   HourlySeries hourly = read_hourly_csv(csv, loaded.hourly_path);
+  loaded.notes = std::move(hourly.notes);
   site.load_kw = std::move(hourly.load_kw);
   site.source_kw = std::move(hourly.source_kw);
   site.temp_c = std::move(hourly.temp_c);
@@ -100,7 +107,7 @@ LoadedSite load_site_details(std::istream& in, const std::string& source_name,
 }
 
 LoadedSite load_site_details_file(const std::string& path) {
-  std::ifstream in = open_input_or_throw(path, "site");
+  std::ifstream in = open_input_or_throw(path, "site", kMaxYamlFileBytes);
   return load_site_details(in, path, parent_directory(path));
 }
 

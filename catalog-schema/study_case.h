@@ -6,6 +6,7 @@
 #pragma once
 
 #include <optional>
+#include <vector>
 
 #include "model/study.h"
 
@@ -24,5 +25,9 @@ struct SearchSettings {
 struct StudyCase : Study {
   SearchSettings search;
 };
+
+// The DoD ladder of `search` restricted to the profile's allowed [dod.min, dod.max]; values
+// are rounded to 1e-9 so 0.05 steps land on exact decimals.
+std::vector<double> dod_ladder(const SearchSettings& search, const ChemistryProfile& profile);
 
 }  // namespace stowage

@@ -8,10 +8,12 @@
 #include "catalog-schema/decimal_text.h"
 #include "catalog-schema/input_error.h"
 #include "catalog-schema/input_file.h"
+#include "catalog-schema/input_limits.h"
 #include "catalog-schema/schema_validator.h"
 #include "catalog-schema/yaml_document.h"
 #include "model/bank.h"
 #include "model/invalid_value.h"
+#include "model/sizing.h"
 
 namespace stowage {
 namespace {
@@ -24,7 +26,8 @@ std::string where(const SourcePosition& p) {
 
 Economics read_economics(const YamlDocument& doc, const YAML::Node& e) {
   Economics economics;
-  economics.project_years = static_cast<int>(std::lround(number(e["project_years"])));
+  economics.project_years =
+      plausible_count(doc, e["project_years"], "study.economics.project_years", 100, " years");
   economics.real_discount_rate = number(e["real_discount_rate"]);
   economics.currency = e["currency"].Scalar();
   try {
@@ -37,10 +40,11 @@ Economics read_economics(const YamlDocument& doc, const YAML::Node& e) {
 
 std::ifstream open_referenced(const YamlDocument& doc, const YAML::Node& node,
                               const std::string& field, const std::string& path,
-                              const std::string& what) {
+                              const std::string& what, std::uintmax_t max_bytes) {
   std::ifstream in;
   std::string reason;
-  if (!open_input(path, in, reason)) throw doc.error_at(node, field, what + ": " + reason);
+  if (!open_input(path, in, reason, max_bytes))
+    throw doc.error_at(node, field, what + ": " + reason);
   return in;
 }
 
@@ -49,10 +53,17 @@ void read_profiles(const YamlDocument& doc, const std::string& base_dir, LoadedS
   const YAML::Node currency_node = doc.root()["study"]["economics"]["currency"];
   const std::string currency = loaded.study.economics.currency;
   const InputError currency_at = doc.error_at(currency_node, "", "");
+  if (list.size() > kMaxProfiles) {
+    throw doc.error_at(list, "study.profiles",
+                       "lists " + std::to_string(list.size()) +
+                           " profiles, more than the plausibility limit of " +
+                           std::to_string(kMaxProfiles) + " (see docs/input-format.md)");
+  }
   for (std::size_t i = 0; i < list.size(); ++i) {
     const std::string field = join_index("study.profiles", i);
     const std::string path = resolve_relative(base_dir, list[i].Scalar());
-    std::ifstream in = open_referenced(doc, list[i], field, path, "profile file");
+    std::ifstream in =
+        open_referenced(doc, list[i], field, path, "profile file", kMaxYamlFileBytes);
     LoadedProfile profile = load_profile_details(in, path);
     for (std::size_t j = 0; j < loaded.profiles.size(); ++j) {
       if (loaded.profiles[j].profile.id == profile.profile.id) {
@@ -73,6 +84,17 @@ void read_profiles(const YamlDocument& doc, const std::string& base_dir, LoadedS
                            "); convert the profile's prices or change the study's currency");
     }
     const double bus_v = loaded.study.site.bus_voltage_v;
+    // Checked on the double before cells_in_series() rounds it into an int.
+    const double cells_needed = bus_v / profile.profile.cell_nominal_v;
+    if (!(cells_needed <= static_cast<double>(kMaxCellsInSeries))) {
+      throw doc.error_at(
+          list[i], field,
+          "cells of " + number_text(profile.profile.cell_nominal_v) + " V would need " +
+              number_text(std::round(cells_needed)) + " in series for the site's " +
+              number_text(bus_v) + " V bus, more than the plausibility limit of " +
+              std::to_string(kMaxCellsInSeries) +
+              " (see docs/input-format.md); check profile.cell.nominal_v (" + profile.path + ")");
+    }
     const double mismatch = bus_voltage_mismatch(profile.profile, bus_v);
     if (mismatch > kMaxBusVoltageMismatch) {
       const ChemistryProfile& p = profile.profile;
@@ -95,6 +117,12 @@ void read_profiles(const YamlDocument& doc, const std::string& base_dir, LoadedS
 void read_designs(const YamlDocument& doc, LoadedStudy& loaded) {
   const YAML::Node list = doc.root()["study"]["designs"];
   if (!list) return;
+  if (list.size() > kMaxDesigns) {
+    throw doc.error_at(list, "study.designs",
+                       "lists " + std::to_string(list.size()) +
+                           " designs, more than the plausibility limit of " +
+                           std::to_string(kMaxDesigns) + " (see docs/input-format.md)");
+  }
   std::vector<std::string> ids;
   for (const ChemistryProfile& p : loaded.study.profiles) ids.push_back(p.id);
   for (std::size_t i = 0; i < list.size(); ++i) {
@@ -104,7 +132,8 @@ void read_designs(const YamlDocument& doc, LoadedStudy& loaded) {
     design.profile_id = d["profile"].Scalar();
     const std::optional<std::size_t> index = loaded.study.find_profile(design.profile_id);
     if (!index) {
-      std::string message = "no loaded profile has the id '" + design.profile_id + "'";
+      std::string message =
+          "no loaded profile has the id '" + printable_input(design.profile_id) + "'";
       const std::string hint = closest_match(design.profile_id, ids);
       if (!hint.empty()) message += " (did you mean '" + hint + "'?)";
       std::string all;
@@ -124,7 +153,9 @@ void read_designs(const YamlDocument& doc, LoadedStudy& loaded) {
       design.dod_setpoint = setpoint;
     }
     if (d["strings_parallel"]) {
-      design.strings_parallel = static_cast<int>(std::lround(number(d["strings_parallel"])));
+      design.strings_parallel =
+          plausible_count(doc, d["strings_parallel"], base + ".strings_parallel",
+                          kMaxStringsParallel, " strings in parallel");
     }
     loaded.study.designs.push_back(design);
   }
@@ -143,9 +174,23 @@ void read_search(const YamlDocument& doc, LoadedStudy& loaded) {
                          "must not exceed dod_ladder.to (" + number_text(search.dod_to) +
                              "), found " + number_text(search.dod_from));
     }
+    // The optimiser builds and simulates every setpoint: bound their number before it does.
+    const double setpoints = std::floor((search.dod_to - search.dod_from) / search.dod_step + 1e-9);
+    if (!(setpoints + 1 <= static_cast<double>(kMaxDodLadderSetpoints))) {
+      throw doc.error_at(ladder["step"], "study.search.dod_ladder.step",
+                         "gives " + number_text(setpoints + 1) + " setpoints from " +
+                             number_text(search.dod_from) + " to " + number_text(search.dod_to) +
+                             ", more than the plausibility limit of " +
+                             std::to_string(kMaxDodLadderSetpoints) +
+                             " (see docs/input-format.md); use a step of at least " +
+                             number_text((search.dod_to - search.dod_from) /
+                                         static_cast<double>(kMaxDodLadderSetpoints - 1)));
+    }
   }
   if (s["max_strings_parallel"]) {
-    search.max_strings_parallel = static_cast<int>(std::lround(number(s["max_strings_parallel"])));
+    search.max_strings_parallel =
+        plausible_count(doc, s["max_strings_parallel"], "study.search.max_strings_parallel",
+                        kMaxStringsParallel, " strings in parallel");
   }
   if (s["budget"]) search.budget = number(s["budget"]);
   // A mass or volume limit can only be checked when every profile gives the per-cell figure.
@@ -171,6 +216,52 @@ void read_search(const YamlDocument& doc, LoadedStudy& loaded) {
   }
 }
 
+// Sizing for autonomy runs only when a study is evaluated, optimised or summarised by check;
+// it is run here for every DoD those use, so a site and profile it refuses (an autonomy of
+// months on a tiny cell) are refused by `check` with the place to look, not later without one.
+// A sized bank is held to the same limit as a given strings_parallel.
+void check_sizing(const YamlDocument& doc, const LoadedStudy& loaded) {
+  const StudyCase& study = loaded.study;
+  const auto size = [&](const ChemistryProfile& p, double dod, const YAML::Node& node,
+                        const std::string& field, bool used) {
+    const std::string what = "sizing profile " + p.id + " for " +
+                             number_text(study.site.autonomy_days) + " days of autonomy at DoD " +
+                             number_text(dod);
+    const std::string hint = "; check site.autonomy_days and design_margin (" + loaded.site_path +
+                             "), load_kw (" + loaded.hourly_path + ") and cell.capacity_ah (" +
+                             loaded.profile_paths[&p - study.profiles.data()] + ")";
+    int strings = 0;
+    try {
+      strings = size_for_autonomy(p, study.site, dod).strings_parallel;
+    } catch (const InvalidValue& e) {
+      throw doc.error_at(node, field, what + " fails: " + e.rule() + hint);
+    }
+    if (used && strings > kMaxStringsParallel) {
+      throw doc.error_at(node, field,
+                         what + " needs " + std::to_string(strings) +
+                             " strings in parallel, more than the plausibility limit of " +
+                             std::to_string(kMaxStringsParallel) + hint);
+    }
+  };
+  const YAML::Node s = doc.root()["study"];
+  for (std::size_t i = 0; i < study.profiles.size(); ++i) {
+    const ChemistryProfile& p = study.profiles[i];
+    const YAML::Node node = s["profiles"][i];
+    const std::string field = join_index("study.profiles", i);
+    size(p, p.dod.default_setpoint, node, field, study.designs.empty());
+    // The optimiser sizes at every ladder setpoint; the shallowest needs the most strings.
+    const std::vector<double> ladder = dod_ladder(study.search, p);
+    if (!ladder.empty()) size(p, ladder.front(), node, field, false);
+  }
+  for (std::size_t i = 0; i < study.designs.size(); ++i) {
+    const DesignSpec& d = study.designs[i];
+    if (d.strings_parallel) continue;
+    const ChemistryProfile& p = study.profiles[*study.find_profile(d.profile_id)];
+    size(p, d.dod_setpoint.value_or(p.dod.default_setpoint), s["designs"][i],
+         join_index("study.designs", i), true);
+  }
+}
+
 LoadedStudy build_study(const YamlDocument& doc, const std::string& base_dir) {
   const YAML::Node s = doc.root()["study"];
   LoadedStudy loaded;
@@ -180,19 +271,24 @@ LoadedStudy build_study(const YamlDocument& doc, const std::string& base_dir) {
 
   loaded.site_path = resolve_relative(base_dir, s["site"].Scalar());
   {
-    std::ifstream in = open_referenced(doc, s["site"], "study.site", loaded.site_path, "site file");
+    std::ifstream in = open_referenced(doc, s["site"], "study.site", loaded.site_path, "site file",
+                                       kMaxYamlFileBytes);
     LoadedSite site = load_site_details(in, loaded.site_path, parent_directory(loaded.site_path));
     loaded.hourly_path = site.hourly_path;
+    loaded.notes = std::move(site.notes);
     loaded.study.site = std::move(site.site);
   }
   read_profiles(doc, base_dir, loaded);
   read_designs(doc, loaded);
   read_search(doc, loaded);
+  check_sizing(doc, loaded);
   if (s["soc_log"]) {
     loaded.soc_log_path = resolve_relative(base_dir, s["soc_log"].Scalar());
-    std::ifstream in =
-        open_referenced(doc, s["soc_log"], "study.soc_log", loaded.soc_log_path, "SOC log");
+    std::ifstream in = open_referenced(doc, s["soc_log"], "study.soc_log", loaded.soc_log_path,
+                                       "SOC log", kMaxCsvFileBytes);
     loaded.soc_log = read_soc_series(in, loaded.soc_log_path);
+    loaded.notes.insert(loaded.notes.end(), loaded.soc_log->notes.begin(),
+                        loaded.soc_log->notes.end());
   }
   return loaded;
 }
@@ -211,7 +307,7 @@ LoadedStudy load_study_details(std::istream& in, const std::string& source_name,
 }
 
 LoadedStudy load_study_details_file(const std::string& path) {
-  std::ifstream in = open_input_or_throw(path, "study");
+  std::ifstream in = open_input_or_throw(path, "study", kMaxYamlFileBytes);
   return load_study_details(in, path, parent_directory(path));
 }
 

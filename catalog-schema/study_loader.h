@@ -12,8 +12,17 @@
 //     dod_setpoint lies within that profile's [dod.min, dod.max];
 //   - search.dod_ladder has from <= to; search.max_mass_kg / max_volume_l need cell.mass_kg /
 //     cell.volume_l in every profile.
+//   - at most kMaxProfiles profiles and kMaxDesigns designs; strings_parallel and
+//     max_strings_parallel at most kMaxStringsParallel, compared before the conversion to int;
+//     the DoD ladder at most kMaxDodLadderSetpoints; at most kMaxCellsInSeries cells make the
+//     bus (input_limits.h);
+//   - sizing for autonomy succeeds for each profile at its default DoD and at the shallowest
+//     ladder setpoint, and for each design without strings_parallel; where the sized bank is
+//     used (no designs listed, or a design without strings_parallel) it has at most
+//     kMaxStringsParallel strings. So `check` refuses what evaluate and optimise would.
 // The optional study.soc_log (a logged SOC series of an existing bank, soc_series.h) is read
-// and checked too; a file that cannot be opened is reported at study.soc_log.
+// and checked too; a file that cannot be opened is reported at study.soc_log. What the CSV
+// readers ignored (extra columns) is collected in LoadedStudy::notes.
 // Designs and search keep the model defaults when left out (no designs: each profile at its
 // default DoD, sized for autonomy).
 #pragma once
@@ -40,6 +49,7 @@ struct LoadedStudy {
   std::vector<LoadedProfile> profiles;     // same order; currency and sources of each
   std::string soc_log_path;                // study.soc_log as opened; empty when not given
   std::optional<SocSeries> soc_log;        // the logged SOC series, when study.soc_log is given
+  std::vector<InputNote> notes;            // what the readers accepted but ignored, for display
 };
 
 LoadedStudy load_study_details(std::istream& in, const std::string& source_name,

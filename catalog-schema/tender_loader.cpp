@@ -6,6 +6,7 @@
 
 #include "catalog-schema/decimal_text.h"
 #include "catalog-schema/input_file.h"
+#include "catalog-schema/input_limits.h"
 #include "catalog-schema/profile_loader.h"
 #include "catalog-schema/schema_validator.h"
 #include "catalog-schema/site_loader.h"
@@ -28,7 +29,8 @@ std::ifstream open_referenced(const YamlDocument& doc, const YAML::Node& node,
                               const std::string& what) {
   std::ifstream in;
   std::string reason;
-  if (!open_input(path, in, reason)) throw doc.error_at(node, field, what + ": " + reason);
+  if (!open_input(path, in, reason, kMaxYamlFileBytes))
+    throw doc.error_at(node, field, what + ": " + reason);
   return in;
 }
 
@@ -46,7 +48,7 @@ Economics read_economics(const YamlDocument& doc, const YAML::Node& e) {
 }
 
 Bid read_bid(const std::string& path, const TenderCase& tender) {
-  std::ifstream in = open_input_or_throw(path, "bid");
+  std::ifstream in = open_input_or_throw(path, "bid", kMaxYamlFileBytes);
   const YamlDocument doc = parse_yaml(in, path);
   SchemaValidator::embedded("bid").enforce(doc);
   const YAML::Node b = doc.root()["bid"];
@@ -122,7 +124,7 @@ Bid read_bid(const std::string& path, const TenderCase& tender) {
 }  // namespace
 
 TenderCase load_tender_file(const std::string& path) {
-  std::ifstream in = open_input_or_throw(path, "tender");
+  std::ifstream in = open_input_or_throw(path, "tender", kMaxYamlFileBytes);
   const YamlDocument doc = parse_yaml(in, path);
   SchemaValidator::embedded("tender").enforce(doc);
   const YAML::Node t = doc.root()["tender"];
@@ -160,7 +162,7 @@ TenderCase load_tender_file(const std::string& path) {
     const std::string bid_path = resolve_relative(base, list[i].Scalar());
     std::ifstream probe;
     std::string reason;
-    if (!open_input(bid_path, probe, reason)) {
+    if (!open_input(bid_path, probe, reason, kMaxYamlFileBytes)) {
       throw doc.error_at(list[i], indexed("tender.bids", i), "bid file: " + reason);
     }
     Bid bid = read_bid(bid_path, tender);

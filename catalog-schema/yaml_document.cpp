@@ -13,6 +13,8 @@
 #include <vector>
 
 #include "catalog-schema/decimal_text.h"
+#include "catalog-schema/input_file.h"
+#include "catalog-schema/input_limits.h"
 
 namespace stowage {
 namespace {
@@ -43,8 +45,11 @@ std::string guess_path(const std::string& text, int line) {
   std::istringstream in(text);
   std::string row;
   for (int i = 0; i <= line && std::getline(in, row); ++i) {
+    // A key is near the start of its line; only that much is matched, so a long line costs
+    // the regex nothing.
+    if (row.size() > kMaxPatternText) row.resize(kMaxPatternText);
     std::smatch m;
-    if (row.size() > kMaxPatternText || !std::regex_search(row, m, key_line)) continue;
+    if (!std::regex_search(row, m, key_line)) continue;
     std::size_t indent = m[1].length() + m[2].length();
     while (!stack.empty() && stack.back().first >= indent) stack.pop_back();
     stack.emplace_back(indent, m[3].str());
@@ -82,6 +87,106 @@ void find_unclosed_bracket(const std::string& text, int& line, int& column) {
       column = opened_at;
       return;
     }
+  }
+}
+
+// 1-based line and column (in characters) of byte `offset` of `text`.
+std::pair<int, int> line_and_column(const std::string& text, std::size_t offset) {
+  int line = 1, column = 1;
+  for (std::size_t i = 0; i < offset && i < text.size(); ++i) {
+    if (text[i] == '\n') {
+      ++line;
+      column = 1;
+    } else if ((static_cast<unsigned char>(text[i]) & 0xC0) != 0x80) {
+      ++column;
+    }
+  }
+  return {line, column};
+}
+
+// Refuses text that is not UTF-8 at the first offending byte, before yaml-cpp sees it: such
+// bytes would otherwise reach reports and JSON that no parser can read.
+void require_utf8(const std::string& text, const std::string& source_name) {
+  const std::size_t bad = invalid_utf8_at(text);
+  if (bad == std::string::npos) return;
+  const auto at = line_and_column(text, bad);
+  std::string message = "the file is not valid UTF-8 here (byte " +
+                        escape_controls(text.substr(bad, 1)) + "); save it as UTF-8";
+  if (text.compare(0, 2, "\xff\xfe") == 0 || text.compare(0, 2, "\xfe\xff") == 0) {
+    message = "the file is UTF-16 (it starts with a UTF-16 byte-order mark); save it as UTF-8";
+  }
+  throw InputError(source_name, at.first, at.second, display_path(guess_path(text, at.first - 1)),
+                   message);
+}
+
+// Estimates how deep collections nest, line by line, and refuses the text at the first point
+// where the estimate passes kMaxYamlNestingDepth: yaml-cpp builds every level as nodes (a few
+// megabytes of "[[[[" take hundreds of megabytes) and recurses through them. Block levels are
+// counted from the indentation and from compact "- - " entries, flow levels from the brackets
+// outside quotes and comments. The estimate can only overcount a little (a quote inside a plain
+// scalar), far below the limit for any file of the formats.
+void require_shallow(const std::string& text, const std::string& source_name) {
+  std::vector<std::size_t> indents;  // open block levels
+  int flow = 0;
+  char quote = 0;
+  std::size_t line_start = 0;
+  int line = 0;
+  while (line_start <= text.size()) {
+    std::size_t line_end = text.find('\n', line_start);
+    if (line_end == std::string::npos) line_end = text.size();
+    const std::string_view row(text.data() + line_start, line_end - line_start);
+    std::size_t i = 0;
+    int block = static_cast<int>(indents.size());
+    if (flow == 0 && quote == 0) {
+      while (i < row.size() && row[i] == ' ') ++i;
+      const bool content = i < row.size() && row[i] != '#' && row[i] != '\r';
+      if (content) {
+        while (!indents.empty() && indents.back() >= i) indents.pop_back();
+        indents.push_back(i);
+        // "- - - x": each dash opens one more level.
+        std::size_t j = i;
+        while (j + 1 < row.size() && (row[j] == '-' || row[j] == '?') && row[j + 1] == ' ') {
+          j += 2;
+          while (j < row.size() && row[j] == ' ') ++j;
+          indents.push_back(j);
+        }
+      }
+      block = static_cast<int>(indents.size());
+    }
+    for (; i < row.size(); ++i) {
+      const char c = row[i];
+      if (quote != 0) {
+        if (quote == '"' && c == '\\') {
+          ++i;
+        } else if (c == quote) {
+          if (quote == '\'' && i + 1 < row.size() && row[i + 1] == '\'') {
+            ++i;
+          } else {
+            quote = 0;
+          }
+        }
+        continue;
+      }
+      const bool at_token = i == 0 || row[i - 1] == ' ' || row[i - 1] == '[' || row[i - 1] == '{' ||
+                            row[i - 1] == ',' || row[i - 1] == ':';
+      if (c == '#' && (i == 0 || row[i - 1] == ' ' || row[i - 1] == '\t')) break;
+      if ((c == '"' || c == '\'') && at_token) quote = c;
+      if (c == '[' || c == '{') ++flow;
+      if ((c == ']' || c == '}') && flow > 0) --flow;
+      if (block + flow > kMaxYamlNestingDepth) {
+        throw InputError(source_name, line + 1, static_cast<int>(i) + 1,
+                         display_path(guess_path(text, line)),
+                         "collections nest more than " + std::to_string(kMaxYamlNestingDepth) +
+                             " levels deep here; no field of the format is deeper than 5");
+      }
+    }
+    if (block + flow > kMaxYamlNestingDepth) {
+      throw InputError(source_name, line + 1, 1, display_path(guess_path(text, line)),
+                       "collections nest more than " + std::to_string(kMaxYamlNestingDepth) +
+                           " levels deep here; no field of the format is deeper than 5");
+    }
+    line_start = line_end + 1;
+    ++line;
   }
 }
 
@@ -127,17 +232,15 @@ std::string describe_node(const YAML::Node& node) {
     case ScalarKind::Null:
       return "nothing (an empty value)";
     case ScalarKind::Boolean:
-      return "the truth value " + node.Scalar();
+      return "the truth value " + printable_input(node.Scalar());
     case ScalarKind::Integer:
     case ScalarKind::Number:
     case ScalarKind::NonFiniteNumber:
-      return "the number " + node.Scalar();
+      return "the number " + printable_input(node.Scalar());
     case ScalarKind::Text:
       break;
   }
-  std::string text = node.Scalar();
-  if (text.size() > 40) text = text.substr(0, 37) + "...";
-  return "the text '" + text + "'";
+  return "the text '" + printable_input(node.Scalar(), 40) + "'";
 }
 
 std::string join_key(const std::string& parent, const std::string& key) {
@@ -222,8 +325,22 @@ InputError YamlDocument::error_at_path(const std::string& field, const std::stri
 }
 
 YamlDocument parse_yaml(std::istream& in, const std::string& source_name) {
-  std::string text((std::istreambuf_iterator<char>(in)), std::istreambuf_iterator<char>());
+  // Read at most one byte past the limit: a stream (or a file that grew after it was opened)
+  // is never read without end.
+  std::string text;
+  char buffer[8192];
+  while (in && text.size() <= kMaxYamlFileBytes) {
+    in.read(buffer, sizeof buffer);
+    text.append(buffer, static_cast<std::size_t>(in.gcount()));
+  }
   if (in.bad()) throw InputError::unreadable(source_name, "(top level)", "read error");
+  if (text.size() > kMaxYamlFileBytes) {
+    throw InputError::unreadable(
+        source_name, "(top level)",
+        "the file is larger than the " + size_text(kMaxYamlFileBytes) + " a YAML input may have");
+  }
+  require_utf8(text, source_name);
+  require_shallow(text, source_name);
   try {
     return YamlDocument(source_name, YAML::Load(text));
   } catch (const YAML::ParserException& e) {

@@ -60,7 +60,9 @@ class YamlDocument {
   YAML::Node root_;
 };
 
-// Parses the whole stream. Throws InputError on a syntax error or a read failure.
+// Parses the whole stream. Throws InputError on a syntax error or a read failure, and before
+// yaml-cpp sees the text, for more than kMaxYamlFileBytes, a byte that is not UTF-8 (at its
+// line and column) or collections nested deeper than kMaxYamlNestingDepth (input_limits.h).
 YamlDocument parse_yaml(std::istream& in, const std::string& source_name);
 
 }  // namespace stowage

@@ -113,10 +113,6 @@ struct DesignSpace {
 
 DesignSpace build_design_space(const StudyCase& study);
 
-// The DoD ladder of `search` restricted to the profile's allowed [dod.min, dod.max]; values
-// are rounded to 1e-9 so 0.05 steps land on exact decimals.
-std::vector<double> dod_ladder(const SearchSettings& search, const ChemistryProfile& profile);
-
 // Per-string figures of a profile on the study's bus.
 double string_nameplate_kwh(const ChemistryProfile& profile, double bus_voltage_v);
 double string_discharge_power_kw(const ChemistryProfile& profile, double bus_voltage_v);

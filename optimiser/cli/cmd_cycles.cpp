@@ -45,6 +45,8 @@ void register_cycles(CLI::App& app, int& exit_code) {
   cmd->callback([args, &exit_code]() {
     exit_code = run_guarded([&]() {
       const SocSeries series = read_soc_series_file(args->series_path);
+      // A time column gives the real spacing; --hours-per-row is for a log without one.
+      if (series.hours_per_sample) args->hours_per_row = *series.hours_per_sample;
       std::optional<ChemistryProfile> profile;
       if (!args->profile_path.empty()) profile = load_profile_file(args->profile_path);
       const DutyCycleSummary summary = summarise_cycles(series.soc_fraction, args->bins);

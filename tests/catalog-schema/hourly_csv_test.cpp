@@ -4,8 +4,10 @@
 #include "catalog-schema/hourly_csv.h"
 
 #include <catch2/catch.hpp>
+#include <cstdio>
 #include <sstream>
 
+#include "catalog-schema/input_limits.h"
 #include "catalog_test_support.h"
 
 namespace stowage {
@@ -13,6 +15,7 @@ namespace {
 
 using testing::expect_input_error;
 using testing::fixture_path;
+using testing::replace_once;
 
 const char* const kName = "hourly.csv";
 
@@ -127,8 +130,8 @@ TEST_CASE("a column in the wrong unit names the expected unit and name", "[catal
 TEST_CASE("unknown, duplicate and missing columns are refused", "[catalog][csv][bad]") {
   CHECK_THAT(csv_error(make_csv("laod_kw,source_kw,temp_c", 8760, "1,0,20"), 2, "laod_kw"),
              Catch::Contains("did you mean 'load_kw'?"));
-  CHECK_THAT(csv_error(make_csv("load_kw,source_kw,temp_c,wind", 8760, "1,0,20,3"), 2, "wind"),
-             Catch::Contains("unknown column"));
+  CHECK_THAT(csv_error(make_csv("load_kw,source_kw,temp_c,tmep_c", 8760, "1,0,20,3"), 2, "tmep_c"),
+             Catch::Contains("did you mean 'temp_c'?"));
   CHECK_THAT(csv_error(make_csv("load_kw,source_kw,load_kw", 8760, "1,0,20"), 2, "load_kw"),
              Catch::Contains("appears twice"));
   CHECK_THAT(csv_error(make_csv("load_kw,source_kw", 8760, "1,0"), 2, "temp_c"),
@@ -139,6 +142,116 @@ TEST_CASE("unknown, duplicate and missing columns are refused", "[catalog][csv][
 TEST_CASE("an unreadable hourly CSV is an InputError", "[catalog][csv][bad]") {
   const std::string missing = fixture_path("no-such.csv");
   expect_input_error([&] { read_hourly_csv_file(missing); }, missing, 1, "(file)");
+}
+
+}  // namespace
+}  // namespace stowage
+
+namespace stowage {
+namespace {
+
+// An hourly CSV of one year with a time column of ISO 8601 date-times starting at `year`-01-01;
+// the 29 February of a leap year is left out, as the format asks.
+std::string dated_csv(int year, const std::string& extra_header = "",
+                      const std::string& extra_value = "") {
+  static const int days[] = {31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31};
+  std::string text = "time,load_kw,source_kw,temp_c" + extra_header + "\n";
+  char stamp[32];
+  for (int m = 1; m <= 12; ++m) {
+    for (int d = 1; d <= days[m - 1]; ++d) {
+      for (int h = 0; h < 24; ++h) {
+        std::snprintf(stamp, sizeof stamp, "%04d-%02d-%02dT%02d:00", year, m, d, h);
+        text += std::string(stamp) + ",1,0,20" + extra_value + "\n";
+      }
+    }
+  }
+  return text;
+}
+
+TEST_CASE("a file saved by a spreadsheet reads: byte-order mark, CRLF, time, extra columns",
+          "[catalog][csv][spreadsheet]") {
+  std::string text = "\xef\xbb\xbf" + dated_csv(2026, ",irradiance_w_m2", ",0");
+  std::string crlf;
+  for (const char c : text) crlf += c == '\n' ? std::string("\r\n") : std::string(1, c);
+  const HourlySeries s = read_text(crlf);
+  CHECK(s.load_kw.size() == 8760);
+  REQUIRE(s.notes.size() == 1);
+  CHECK(s.notes[0].field == "irradiance_w_m2");
+  CHECK(s.notes[0].line == 1);
+  CHECK(s.notes[0].message.find("ignored") != std::string::npos);
+  // A leap year with its 29 February dropped: the 25 h step over it is accepted.
+  CHECK(read_text(dated_csv(2028)).load_kw.size() == 8760);
+  // Hours as numbers from 0.
+  std::string hours = "time,load_kw,source_kw,temp_c\n";
+  for (int h = 0; h < 8760; ++h) hours += std::to_string(h) + ",1,0,20\n";
+  CHECK(read_text(hours).load_kw.size() == 8760);
+  // Another year, every time with an offset: the clock reads 1 January 00:00.
+  std::string offset = dated_csv(2031);
+  for (std::size_t at = offset.find(",1,0,20"); at != std::string::npos;
+       at = offset.find(",1,0,20", at + 13)) {
+    offset.insert(at, "+02:00");
+  }
+  REQUIRE(offset.find("2031-12-31T23:00+02:00,1,0,20") != std::string::npos);
+  CHECK(read_text(offset).load_kw.size() == 8760);
+}
+
+TEST_CASE("a time column that is not hourly and increasing is refused at its row",
+          "[catalog][csv][spreadsheet][bad]") {
+  std::string quarter = "time,load_kw,source_kw,temp_c\n";
+  for (int i = 0; i < 8760; ++i) quarter += std::to_string(i * 0.25) + ",1,0,20\n";
+  CHECK_THAT(csv_error(quarter, 3, "time"), Catch::Contains("one hour apart, this one is 15 min"));
+  const std::string back = replace_once(dated_csv(2026), "2026-01-01T02:00", "2026-01-01T00:30");
+  CHECK_THAT(csv_error(back, 4, "time"), Catch::Contains("before the previous row"));
+  const std::string gap = replace_once(dated_csv(2026), "2026-01-01T05:00", "2026-01-01T04:59");
+  CHECK_THAT(csv_error(gap, 7, "time"), Catch::Contains("59 min"));
+  // A year that starts on 1 June would be read a season out of place.
+  std::string june = "time,load_kw,source_kw,temp_c\n";
+  for (int h = 0; h < 8760; ++h) june += std::to_string(h + 3624) + ",1,0,20\n";
+  CHECK_THAT(csv_error(june, 2, "time"), Catch::Contains("from 1 January 00:00"));
+  CHECK_THAT(
+      csv_error(replace_once(dated_csv(2026), "2026-01-01T00:00", "2026-01-01T01:00"), 2, "time"),
+      Catch::Contains("start the file there"));
+  CHECK_THAT(csv_error(replace_once(dated_csv(2026), "2026-01-01T05:00", "5 o'clock"), 7, "time"),
+             Catch::Contains("not a time"));
+}
+
+TEST_CASE("semicolons and decimal commas are named as such", "[catalog][csv][spreadsheet][bad]") {
+  const std::string semicolon = make_csv("load_kw;source_kw;temp_c", 8760, "1;0;20");
+  CHECK_THAT(csv_error(semicolon, 2, "(header)"),
+             Catch::Contains("separated by ';'") && Catch::Contains("decimal comma"));
+  const std::string split = make_csv("load_kw,source_kw,temp_c", 8760, "1,0,20", {"0,62,0,20"});
+  CHECK_THAT(csv_error(split, 3, "(extra field 4)"), Catch::Contains("decimal comma (0,62"));
+  const std::string quoted =
+      make_csv("load_kw,source_kw,temp_c", 8760, "1,0,20", {"\"0,62\",0,20"});
+  CHECK_THAT(csv_error(quoted, 3, "load_kw"), Catch::Contains("a decimal comma: write 0.62"));
+}
+
+TEST_CASE("bytes that are not UTF-8 and overlong lines are refused at their line",
+          "[catalog][csv][bad]") {
+  const std::string latin1 = make_csv("load_kw,source_kw,temp_c", 8760, "1,0,20", {"1,0,2\xb0"});
+  const InputError e = expect_input_error([&] { read_text(latin1); }, kName, 3, "temp_c");
+  CHECK(e.column() == 6);
+  CHECK_THAT(e.message(), Catch::Contains("not valid UTF-8"));
+  CHECK_THAT(csv_error("# caf\xe9\nload_kw,source_kw,temp_c\n", 1, "(comment)"),
+             Catch::Contains("UTF-8"));
+  CHECK_THAT(csv_error(std::string("\xff\xfel\0o\0", 6), 1, "(file)"), Catch::Contains("UTF-16"));
+  const std::string wide = "load_kw,source_kw,temp_c\n" + std::string(kMaxCsvLineBytes + 1, '1');
+  CHECK_THAT(csv_error(wide, 2, "(line)"), Catch::Contains("longer than 64 KiB"));
+}
+
+TEST_CASE("load and source power beyond the plausibility limit are refused",
+          "[catalog][csv][bad]") {
+  const std::string huge = make_csv("load_kw,source_kw,temp_c", 8760, "1,0,20", {"1e300,0,20"});
+  CHECK_THAT(csv_error(huge, 3, "load_kw"), Catch::Contains("at most 100000"));
+  const std::string watts = make_csv("load_kw,source_kw,temp_c", 8760, "1,0,20", {"1,250000,20"});
+  CHECK_THAT(csv_error(watts, 3, "source_kw"), Catch::Contains("W instead of kW"));
+}
+
+TEST_CASE("control characters in a CSV field are escaped in the message", "[catalog][csv][bad]") {
+  const std::string bell = make_csv("load_kw,source_kw,temp_c", 8760, "1,0,20", {"1\x1b[2J,0,20"});
+  const InputError e = expect_input_error([&] { read_text(bell); }, kName, 3, "load_kw");
+  CHECK(std::string(e.what()).find('\x1b') == std::string::npos);
+  CHECK_THAT(e.what(), Catch::Contains("1\\x1b[2J"));
 }
 
 }  // namespace

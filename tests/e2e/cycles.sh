@@ -11,7 +11,7 @@ history = [-2, 1, -3, 5, -1, 3, -4, 4, -2]
 with open(sys.argv[1], "w") as f:
     f.write("# ASTM E1049-85 example as SOC\ntime,soc\n")
     for i, x in enumerate(history):
-        f.write(f"t{i},{(x + 5) / 10:g}\n")
+        f.write(f"{i},{(x + 5) / 10:g}\n")
 with open(sys.argv[2], "w") as f:
     f.write("soc_pct\n")
     for x in history:
@@ -38,6 +38,30 @@ expect_exit 0 -- "$STOWAGE" cycles --format json "$WORK/soc_pct.csv" && "$PY" -c
 profile="$SRC/tests/e2e/fixtures/power-law-profile.yaml"
 expect_exit 0 -- "$STOWAGE" cycles --format json --profile "$profile" "$WORK/soc.csv" && "$PY" -c "$check_json" "$WORK/out" damage || fail "damage with a profile"
 expect_exit 0 -- "$STOWAGE" cycles --profile "$profile" "$WORK/soc.csv" && grep -q "Equivalent full cycles: 2.30" "$WORK/out" || fail "text report"
+# The time column sets the spacing: the same history logged every 15 minutes (ISO 8601 times)
+# is 0.25 h a sample, so its calendar damage is a quarter of the hourly log's (duty_damage:
+# calendar damage is proportional to the logged hours), and the cycle damage is the same.
+"$PY" - "$WORK/soc15.csv" <<'PY'
+import sys
+history = [-2, 1, -3, 5, -1, 3, -4, 4, -2]
+with open(sys.argv[1], "w") as f:
+    f.write("time,soc\n")
+    for i, x in enumerate(history):
+        f.write(f"2026-03-01T{i * 15 // 60:02d}:{i * 15 % 60:02d},{(x + 5) / 10:g}\n")
+PY
+expect_exit 0 -- "$STOWAGE" cycles --format json --profile "$profile" "$WORK/soc.csv" && cp "$WORK/out" "$WORK/hourly.json" || fail "hourly log"
+expect_exit 0 -- "$STOWAGE" cycles --format json --profile "$profile" "$WORK/soc15.csv" && "$PY" - "$WORK/hourly.json" "$WORK/out" <<'PY' || fail "15-minute log uses its time column"
+import json, math, sys
+hourly, quarter = (json.load(open(p)) for p in sys.argv[1:3])
+assert hourly["hours_per_sample"] == 1, hourly["hours_per_sample"]
+assert math.isclose(quarter["hours_per_sample"], 0.25, rel_tol=1e-9), quarter["hours_per_sample"]
+assert math.isclose(quarter["damage"], hourly["damage"], rel_tol=1e-12)
+assert math.isclose(quarter["calendar_damage"], hourly["calendar_damage"] / 4, rel_tol=1e-9)
+PY
+expect_exit 0 -- "$STOWAGE" cycles "$WORK/soc15.csv" && grep -q "9 samples, 0.25 h apart" "$WORK/out" || fail "15-minute text report"
+# Times that go back are bad input at their line and column.
+printf 'time,soc\n0,0.5\n2,0.6\n1,0.7\n' >"$WORK/back.csv"
+expect_exit 2 -- "$STOWAGE" cycles "$WORK/back.csv" && grep -q "back.csv:4:1: time: times must increase" "$WORK/err" || fail "decreasing time"
 # A series with a value out of range is bad input naming the file and line.
 printf 'soc\n0.5\n1.7\n' >"$WORK/bad.csv"
 expect_exit 2 -- "$STOWAGE" cycles "$WORK/bad.csv" && grep -q "bad.csv:3" "$WORK/err" || fail "out-of-range SOC"
