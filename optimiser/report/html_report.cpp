@@ -20,11 +20,12 @@ h2 { font-size: 1.25em; border-bottom: 2px solid #000; padding-bottom: 2px; marg
 p.subtitle { font-size: 1.05em; margin: 0.2em 0; }
 p.generated { font-size: 0.85em; color: #333; }
 nav ol { columns: 2; font-size: 0.9em; }
-table { border-collapse: collapse; margin: 0.6em 0 1em; font-size: 0.88em; }
+table { border-collapse: collapse; margin: 0.6em 0 1em; font-size: 0.88em; max-width: 100%; }
 caption { text-align: left; font-weight: bold; padding: 0.2em 0; }
-th, td { border: 1px solid #777; padding: 3px 6px; vertical-align: top; text-align: left; }
+th, td { border: 1px solid #777; padding: 3px 6px; vertical-align: top; text-align: left;
+         overflow-wrap: break-word; }
 th { background: #e8e8e8; }
-td.num, th.num { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
+td.num, th.num { text-align: right; font-variant-numeric: tabular-nums; }
 table.wrap td { word-break: break-all; font-family: "DejaVu Sans Mono", monospace; font-size: 0.9em; }
 figure { margin: 1em 0; }
 figure svg { max-width: 100%; height: auto; display: block; }

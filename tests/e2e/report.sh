@@ -112,7 +112,7 @@ for path, (w, h) in zip(sys.argv[1:3], [(612, 792), (595.28, 841.89)]):
     assert len(boxes) >= 3, f"{path}: {len(boxes)} pages"
     for bw, bh in boxes:
         assert abs(float(bw) - w) < 1 and abs(float(bh) - h) < 1, (path, bw, bh)
-    shutil.copy(path, sys.argv[3])
+    shutil.copy(path, sys.argv[3] + "/report-" + path.rsplit("/", 1)[1])
 PY
 fi
 finish
