@@ -12,6 +12,7 @@
 #include <stdexcept>
 #include <utility>
 
+#include "catalog-schema/study_loader.h"
 #include "optimiser/cli/cli_support.h"
 #include "optimiser/cli/command.h"
 #include "optimiser/optimise.h"
@@ -27,6 +28,7 @@ struct OptimiseArgs {
   std::string study_path;
   OutputFormat format = OutputFormat::Text;
   std::optional<std::string> out_dir;
+  std::optional<std::string> report_dir;
   std::string method = "milp";
   std::optional<double> time_limit_s;
   std::string export_model;
@@ -91,11 +93,18 @@ void register_optimise(CLI::App& app, int& exit_code) {
   cmd->add_option("--out", args->out_dir,
                   "Also write designs.csv and cash-flows.csv of the ranking into this directory")
       ->type_name("DIR");
+  cmd->add_option("--report", args->report_dir,
+                  "Also write the study report (HTML, Markdown, SVG figures, JSON, CSV) into "
+                  "this directory")
+      ->type_name("DIR");
   cmd->callback([args, &exit_code]() {
     exit_code = run_guarded([&]() {
       std::optional<report::OutputSet> files;
       if (args->out_dir) files.emplace(*args->out_dir);  // refuses a bad DIR now
-      const StudyCase study = load_study_for_cli(args->study_path);
+      std::optional<report::OutputSet> report_files;
+      if (args->report_dir) report_files.emplace(*args->report_dir);
+      const LoadedStudy loaded = load_study_details_file(args->study_path);
+      const StudyCase& study = loaded.study;
       if (!args->export_model.empty()) {
         if (build_design_space(study).admissible_choices() == 0) {
           report::write_no_model_exported(std::cerr, args->export_model);
@@ -124,6 +133,7 @@ void register_optimise(CLI::App& app, int& exit_code) {
                    [&](std::ostream& out) { report::write_cash_flows_csv(out, result.ranking); });
         files->commit();
       }
+      if (report_files) write_study_report(*report_files, loaded, result);
       if (args->format == OutputFormat::Json) {
         report::write_optimise_json(std::cout, study, result);
       } else {

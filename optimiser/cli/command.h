@@ -6,6 +6,10 @@
 
 #include <CLI/CLI.hpp>
 
+#include "catalog-schema/study_loader.h"
+#include "optimiser/optimise.h"
+#include "optimiser/report/output_set.h"
+
 namespace stowage::cli {
 
 enum ExitCode : int {
@@ -20,5 +24,11 @@ void register_evaluate(CLI::App& app, int& exit_code);
 void register_cycles(CLI::App& app, int& exit_code);
 void register_optimise(CLI::App& app, int& exit_code);
 void register_tender(CLI::App& app, int& exit_code);
+void register_report(CLI::App& app, int& exit_code);
+
+// Adds the study report of `result` to `files` and commits them (cmd_report.cpp); returns
+// kExitOk, or kExitInfeasible when no design is feasible (the report then says why).
+int write_study_report(report::OutputSet& files, const LoadedStudy& loaded,
+                       const OptimiseResult& result);
 
 }  // namespace stowage::cli

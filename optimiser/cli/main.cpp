@@ -21,6 +21,7 @@ int main(int argc, char** argv) {
   stowage::cli::register_cycles(app, exit_code);
   stowage::cli::register_optimise(app, exit_code);
   stowage::cli::register_tender(app, exit_code);
+  stowage::cli::register_report(app, exit_code);
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {

@@ -1,0 +1,32 @@
+// SPDX-License-Identifier: MIT
+// The report's figures, drawn with svg_chart.h from the result objects as they are (nothing
+// is re-derived: the bars are CostBreakdown's present values, the capacity and damage lines
+// are YearRecord's, the SOC, cycles and temperature effects are the first-year DesignTrace of
+// optimiser/analysis/design_trace.h). Each returns a ReportFigure whose id is also the name
+// of its .svg file.
+#pragma once
+
+#include <vector>
+
+#include "model/chemistry_profile.h"
+#include "model/lifecycle.h"
+#include "optimiser/analysis/design_trace.h"
+#include "optimiser/report/report_document.h"
+
+namespace stowage::report {
+
+// Stacked present-value bars, one per design, positive items up from zero, credits down.
+ReportFigure breakdown_chart(const std::vector<DesignResult>& designs, const std::string& currency);
+// SOC at the end of each hour of year 1, by hour of day (rows) and day of year (columns).
+ReportFigure soc_heat_map(const DesignResult& design, const DesignTrace& trace);
+// Rainflow cycles of year 1 by depth, 5 % bins.
+ReportFigure rainflow_histogram(const DesignResult& design, const DesignTrace& trace);
+// Capacity at the start of each year and damage at its end, replacements marked.
+ReportFigure life_chart(const DesignResult& design, const ChemistryProfile& profile);
+// The profile's cycle-life curve (log-log) with its table points and the setpoint marked.
+ReportFigure cycle_life_chart(const DesignResult& design, const ChemistryProfile& profile);
+// Daily site temperature, available capacity factor and ageing acceleration over year 1.
+ReportFigure temperature_chart(const DesignResult& design, const DesignTrace& trace,
+                               const ChemistryProfile& profile);
+
+}  // namespace stowage::report

@@ -1,0 +1,51 @@
+// SPDX-License-Identifier: MIT
+// The study report (`stowage report`, `optimise --report`): what was decided and why, the
+// inputs with their units and sources, the fingerprint of every input file, the ranking with
+// its cost breakdown, the recommended design over its life, method, limits and the safety
+// cautions. Built once as a ReportDocument and written as report.html (html_report.h) and
+// report.md (markdown_report.h) with the figures as .svg files beside them, together with the
+// data it was made from: result.json (write_optimise_json, the same result object),
+// designs.csv, cash-flows.csv and recommended-first-year.csv (the hourly trace the SOC,
+// rainflow and temperature figures draw).
+// Every number shown is read from the OptimiseResult, the LoadedStudy or the DesignTrace and
+// formatted by number_format.h; none is re-derived. Numbers that result.json also carries are
+// tagged with their JSON path (report_document.h) so a test can compare them.
+// The only line that changes between reruns of the same inputs is the "Generated ..." line.
+#pragma once
+
+#include <string>
+#include <vector>
+
+#include "catalog-schema/study_loader.h"
+#include "optimiser/analysis/design_trace.h"
+#include "optimiser/optimise.h"
+#include "optimiser/report/output_set.h"
+#include "optimiser/report/report_document.h"
+
+namespace stowage::report {
+
+struct ReportInputs {
+  const LoadedStudy* loaded = nullptr;     // required
+  const OptimiseResult* result = nullptr;  // required
+  // First-year trace of result->best(), required when the result is feasible.
+  const DesignTrace* trace = nullptr;
+  std::string generated_at;  // UTC time stamp, e.g. from report_timestamp()
+  // Extension point for analyses run on the same study (sensitivity, break-even,
+  // uncertainty, tender scoring): each section a caller builds from its own result object is
+  // placed after the ranking, in the given order, and written by both renderers like every
+  // other section (figures too). Empty when none was run: the report then has no such section.
+  std::vector<ReportSection> analysis_sections;
+};
+
+// Throws ContractViolation when a required input is missing.
+ReportDocument build_study_report(const ReportInputs& inputs);
+
+// Adds report.html, report.md, one .svg per figure and the data files to `set` (not yet
+// committed). The inputs must outlive set.commit().
+void add_report_files(OutputSet& set, const ReportInputs& inputs);
+
+// "YYYY-MM-DDTHH:MM:SSZ": the time given by SOURCE_DATE_EPOCH when it is set to a number of
+// seconds (reproducible builds convention), else now.
+std::string report_timestamp();
+
+}  // namespace stowage::report
