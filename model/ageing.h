@@ -2,8 +2,10 @@
 // Ageing of one year of operation, as Palmgren-Miner damage (end of life at damage 1).
 //
 //   cycle damage    = sum over rainflow cycles of the SOC trace (ASTM E1049-85) of
-//                     count x a(T_cycle) / N(depth), N from the cycle-life curve, a(T) the
-//                     temperature acceleration averaged over the hours the cycle spans;
+//                     count x a_cycle / N(depth), N from the cycle-life curve, a_cycle the
+//                     temperature acceleration a(T_h) of the hours in which the cycle moved
+//                     charge, weighted by the SOC travel of each hour (rainflow.h, leg
+//                     attribution: continuous in the trace, plateaus carry no weight);
 //   calendar damage = sum over hours of a(T_h) / (calendar_life_years x 8760);
 //   partial-charge  = excess days without full charge x damage_per_extra_day.
 // Capacity fades linearly with accumulated damage D from 1 to eol_capacity_fraction:
@@ -24,11 +26,10 @@ struct YearDamage {
   double total() const { return cycle + calendar + partial_charge; }
 };
 
-// Per-hour temperature acceleration of a profile at a site, with prefix sums, computed once
-// per (profile, site) and shared by every year and design.
+// Per-hour temperature acceleration of a profile at a site, computed once per (profile, site)
+// and shared by every year and design.
 struct AccelerationSeries {
   std::vector<double> per_hour;         // a(T_h), 8760 values
-  std::vector<double> prefix;           // prefix[i] = sum of per_hour[0..i), 8761 values
   double calendar_damage_per_year = 0;  // sum per_hour / (calendar_life_years x 8760)
 };
 AccelerationSeries acceleration_series(const ChemistryProfile& profile,

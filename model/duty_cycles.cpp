@@ -13,6 +13,7 @@ namespace stowage {
 DutyCycleSummary summarise_cycles(const std::vector<double>& soc_fraction, int bins) {
   if (bins < 1) throw InvalidValue("bins", "must be at least 1");
   DutyCycleSummary s;
+  s.soc_fraction = soc_fraction;
   s.cycles = rainflow(soc_fraction);
   const double width = 1.0 / bins;
   for (int b = 0; b < bins; ++b) s.histogram.push_back({b * width, (b + 1) * width, 0.0});
@@ -30,22 +31,22 @@ DutyDamage duty_damage(const ChemistryProfile& profile, const DutyCycleSummary& 
   if (!(hours_per_sample > 0)) throw InvalidValue("hours_per_sample", "must be positive");
   if (!temp_c.empty() && temp_c.size() != samples)
     throw InvalidValue("temp_c", "needs one temperature per SOC sample");
-  // Acceleration per sample with prefix sums, as in the yearly ageing.
-  std::vector<double> prefix(samples + 1, 0.0);
-  for (std::size_t i = 0; i < samples; ++i) {
-    const double a = temp_c.empty() ? 1.0 : profile.temperature.ageing_acceleration(temp_c[i]);
-    prefix[i + 1] = prefix[i] + a;
+  // Sample i stands for the interval that follows it: step i of the series is aged at
+  // a(temp_c[i]), and each cycle at the acceleration of the steps in which it moved charge.
+  std::vector<double> accel(samples > 0 ? samples - 1 : 0, 1.0);
+  double accel_sum = 0;
+  for (std::size_t i = 0; i < accel.size(); ++i) {
+    if (!temp_c.empty()) accel[i] = profile.temperature.ageing_acceleration(temp_c[i]);
+    accel_sum += accel[i];
   }
+  if (summary.soc_fraction.size() != samples)
+    throw InvalidValue("samples", "must equal the length of the summarised SOC series");
   DutyDamage d;
-  for (const auto& c : summary.cycles) {
-    const std::size_t a = c.first_index, b = c.last_index;
-    const double accel = b > a ? (prefix[b] - prefix[a]) / static_cast<double>(b - a) : 1.0;
-    d.cycle += c.count * accel * profile.cycle_life.damage_per_cycle(c.depth);
-  }
+  for (const auto& c : rainflow(summary.soc_fraction, accel))
+    d.cycle += c.count * c.leg_weight * profile.cycle_life.damage_per_cycle(c.depth);
   d.series_hours = static_cast<double>(samples > 0 ? samples - 1 : 0) * hours_per_sample;
   // Each sample stands for the interval that follows it; the last closes the log.
-  const double mean_accel =
-      samples > 1 ? prefix[samples - 1] / static_cast<double>(samples - 1) : 1.0;
+  const double mean_accel = accel.empty() ? 1.0 : accel_sum / static_cast<double>(accel.size());
   d.calendar = d.series_hours * mean_accel / (profile.calendar_life_years * kHoursPerYear);
   const double total = d.total();
   if (total >= 1.0 || !(total > 0) || !(d.series_hours > 0)) {
