@@ -4,6 +4,7 @@
 #include <algorithm>
 #include <cmath>
 
+#include "model/dod_window.h"
 #include "model/invalid_value.h"
 
 namespace stowage {
@@ -26,8 +27,10 @@ DesignCondition design_condition(const ChemistryProfile& profile, const SiteCond
     c.daily_load_kwh = std::max(c.daily_load_kwh, m.daily_load_kwh[i]);
     c.coldest_temp_c = std::min(c.coldest_temp_c, m.temp_c[i]);
   }
-  // No credit for capacity gained in the heat (IEEE Std 485 sizing practice).
-  c.temperature_factor = std::min(1.0, profile.temperature.capacity_factor(c.coldest_temp_c));
+  // No credit for capacity gained in the heat (IEEE Std 485 sizing practice): the same rule as
+  // the dispatch's window, at the design rate (dod_window.h).
+  c.temperature_factor =
+      reachable_depth(1.0, profile.temperature.capacity_factor(c.coldest_temp_c));
   return c;
 }
 
@@ -35,8 +38,8 @@ DesignCondition design_condition(const ChemistryProfile& profile, const SiteCond
 double usable_kwh_per_ah(const ChemistryProfile& profile, const SiteConditions& site,
                          double dod_setpoint, double temperature_factor) {
   const int cells = cells_in_series(profile, site.bus_voltage_v);
-  return cells * profile.mean_discharge_v / 1000.0 * dod_setpoint * temperature_factor *
-         profile.eol_capacity_fraction;
+  return cells * profile.mean_discharge_v / 1000.0 *
+         reachable_depth(dod_setpoint, temperature_factor) * profile.eol_capacity_fraction;
 }
 
 void check_dod(double dod_setpoint) {
@@ -63,11 +66,10 @@ AutonomySizing size_for_autonomy(const ChemistryProfile& profile, const SiteCond
   // The small tolerance keeps an exact fit (e.g. 2.0000000001 strings) from rounding up.
   const double strings = std::ceil(required_ah / profile.cell_capacity_ah - 1e-9);
   if (!(strings <= kMaxStringsParallel))
-    throw InvalidValue("strings_parallel",
-                       "autonomy would need " + std::to_string(strings) +
-                           " strings in parallel of cells of " +
-                           std::to_string(profile.cell_capacity_ah) +
-                           " Ah; check the cell capacity against the load");
+    throw InvalidValue("strings_parallel", "autonomy would need " + std::to_string(strings) +
+                                               " strings in parallel of cells of " +
+                                               std::to_string(profile.cell_capacity_ah) +
+                                               " Ah; check the cell capacity against the load");
   s.strings_parallel = std::max(1, static_cast<int>(strings));
   return s;
 }
