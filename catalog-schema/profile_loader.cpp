@@ -168,6 +168,7 @@ LoadedProfile build_profile(const YamlDocument& doc) {
   profile.max_discharge_c_rate = number(cell["max_discharge_c_rate"]);
   read_optional(cell, "peukert_exponent", profile.peukert_exponent);
   read_optional(cell, "self_discharge_per_month", profile.self_discharge_per_month);
+  read_optional(cell, "absorption_soc", profile.absorption_soc);
   read_optional(cell, "mass_kg", profile.cell_mass_kg);
   read_optional(cell, "volume_l", profile.cell_volume_l);
 

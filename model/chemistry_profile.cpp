@@ -32,6 +32,13 @@ void ChemistryProfile::validate() const {
           "cell.peukert_exponent", "must be in [1, 2]");
   require(non_negative(self_discharge_per_month) && self_discharge_per_month < 1,
           "cell.self_discharge_per_month", "must be in [0, 1)");
+  require(!absorption_soc ||
+              (std::isfinite(*absorption_soc) && *absorption_soc > 0 && *absorption_soc < 1),
+          "cell.absorption_soc", "must be in (0, 1)");
+  require(!absorption_soc || !partial_charge || partial_charge->full_charge_soc < 1,
+          "ageing.partial_charge.full_charge_soc",
+          "must be below 1 when cell.absorption_soc is set: a tapered charge approaches full "
+          "charge only asymptotically");
   require(positive(calendar_life_years), "ageing.calendar_life_years", "must be positive");
   require(!max_service_years || positive(*max_service_years), "ageing.max_service_years",
           "must be positive");

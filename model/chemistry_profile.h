@@ -7,6 +7,8 @@
 // voltage / mean charge voltage; round-trip efficiency = voltaic x coulombic (common practice).
 // Peukert: at a discharge current I above the rated current C/H the charge drawn from the cell
 // counts (I H / C)^(k-1) times; below it no credit is taken (factor 1).
+// Charge acceptance: optional absorption threshold above which the charge current tapers in
+// proportion to the missing charge (constant-voltage stage, charge_acceptance.h).
 // Ageing: cycle-life curve (DoD -> cycles at the reference temperature), calendar life at the
 // reference temperature, temperature behaviour, end of life at `eol_capacity_fraction` of rated
 // capacity (0.80 by default, IEEE 450 practice), optional partial-state-of-charge stress.
@@ -61,6 +63,9 @@ struct ChemistryProfile {
   double max_discharge_c_rate = 0;      // per hour, > 0
   double peukert_exponent = 1;          // [1, 2]
   double self_discharge_per_month = 0;  // fraction of stored charge lost per 730 h, [0, 1)
+  // SOC above which charging enters the constant-voltage stage and the accepted current tapers
+  // (charge_acceptance.h), (0, 1); unset: the bank accepts the offered current up to full.
+  std::optional<double> absorption_soc;
   CycleLifeCurve cycle_life{{{0.5, 2}, {1.0, 1}}};
   double calendar_life_years = 10;          // at the reference temperature, > 0
   std::optional<double> max_service_years;  // hard replacement age regardless of wear

@@ -4,6 +4,7 @@
 #include <algorithm>
 #include <cmath>
 
+#include "model/charge_acceptance.h"
 #include "model/dod_window.h"
 
 namespace stowage {
@@ -78,10 +79,12 @@ YearDispatch dispatch_year(const DispatchInputs& in, DispatchState& state,
     if (surplus > 0) {
       double to_terminals = 0;  // kWh
       if (hf.can_charge[h] && soc < 1.0) {
-        // Terminal charge that fills the headroom, given the coulombic loss.
-        const double headroom_ah = (1.0 - soc) * q_ah / eta_coulomb;
-        const double amps =
-            std::min({surplus * eta_charger * 1000.0 / v_charge, max_charge_amps, headroom_ah});
+        // Terminal charge the bank accepts this hour: the offer up to the headroom (given the
+        // coulombic loss), tapering above the absorption threshold (charge_acceptance.h).
+        const double offer_amps =
+            std::min(surplus * eta_charger * 1000.0 / v_charge, max_charge_amps);
+        const double amps = accepted_charge_ah(soc, q_ah, eta_coulomb, offer_amps, max_charge_amps,
+                                               p.absorption_soc);
         to_terminals = amps * v_charge / 1000.0;
         soc += amps * eta_coulomb / q_ah;
         if (soc > 1.0) soc = 1.0;

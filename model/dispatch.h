@@ -10,8 +10,10 @@
 //   1. self-discharge: SOC *= (1 - s_month)^(1/730);
 //   2. the source serves the load directly; source_to_load_efficiency of what it gives arrives.
 //      Surplus: the charger passes surplus x charger_efficiency to the bank terminals, limited
-//      by max_charge_c_rate x rated capacity x V_charge and by the headroom; the stored charge
-//      is E_in / V_charge x coulombic_efficiency; source energy not taken is curtailed.
+//      by max_charge_c_rate x rated capacity x V_charge and by the headroom, and above the
+//      profile's absorption SOC by the tapering acceptance of the constant-voltage stage
+//      (charge_acceptance.h); the stored charge is E_in / V_charge x coulombic_efficiency;
+//      source energy not taken is curtailed.
 //      Charging only within the profile's charge temperature limits.
 //   3. Deficit: the bank gives at its terminals up to deficit / inverter_efficiency, limited by
 //      max_discharge_c_rate x rated capacity x V_discharge and by the charge above the window's
