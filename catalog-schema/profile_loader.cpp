@@ -112,6 +112,15 @@ TemperatureSpec read_temperature(const YamlDocument& doc, const YAML::Node& t) {
     spec.law = AgeingLaw::Arrhenius;
     spec.activation_energy_j_per_mol = number(t["activation_energy_j_per_mol"]);
   }
+  if (const YAML::Node cal = t["calendar_law"]) {
+    if (cal["life_halving_interval_k"]) {
+      spec.calendar_law = AgeingLaw::Halving;
+      spec.calendar_halving_interval_k = number(cal["life_halving_interval_k"]);
+    } else {
+      spec.calendar_law = AgeingLaw::Arrhenius;
+      spec.calendar_activation_energy_j_per_mol = number(cal["activation_energy_j_per_mol"]);
+    }
+  }
   for (const char* range : {"operating_c", "charging_c"}) {
     const double lo = number(t[range]["min"]), hi = number(t[range]["max"]);
     if (!(lo < hi)) {
@@ -192,6 +201,10 @@ LoadedProfile build_profile(const YamlDocument& doc) {
     stress.max_days_without_full_charge = number(pc["grace_days"]);
     stress.damage_per_extra_day = number(pc["damage_per_extra_day"]);
     profile.partial_charge = stress;
+  }
+  if (const YAML::Node soc = ageing["calendar_soc_stress"]) {
+    profile.calendar_soc_stress =
+        CalendarSocStress{number(soc["soc_exponent"]), number(soc["reference_soc"])};
   }
 
   TemperatureSpec spec = read_temperature(doc, p["temperature"]);

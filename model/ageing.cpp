@@ -9,10 +9,12 @@ AccelerationSeries acceleration_series(const ChemistryProfile& profile,
                                        const std::vector<double>& temp_c) {
   AccelerationSeries a;
   a.per_hour.resize(temp_c.size());
+  a.calendar_per_hour.resize(temp_c.size());
   double sum = 0;
   for (std::size_t h = 0; h < temp_c.size(); ++h) {
     a.per_hour[h] = profile.temperature.ageing_acceleration(temp_c[h]);
-    sum += a.per_hour[h];
+    a.calendar_per_hour[h] = profile.temperature.calendar_acceleration(temp_c[h]);
+    sum += a.calendar_per_hour[h];
   }
   a.calendar_damage_per_year =
       sum / (profile.calendar_life_years * static_cast<double>(kHoursPerYear));
@@ -33,6 +35,13 @@ YearDamage year_damage(const ChemistryProfile& profile, const AccelerationSeries
       },
       acceleration.per_hour.data());
   d.calendar = acceleration.calendar_damage_per_year;
+  if (profile.calendar_soc_stress) {
+    double sum = 0;
+    for (std::size_t h = 0; h + 1 < soc_trace.size(); ++h)
+      sum += acceleration.calendar_per_hour[h] *
+             profile.calendar_soc_stress->multiplier(0.5 * (soc_trace[h] + soc_trace[h + 1]));
+    d.calendar = sum / (profile.calendar_life_years * static_cast<double>(kHoursPerYear));
+  }
   if (profile.partial_charge)
     d.partial_charge = partial_charge_excess_days * profile.partial_charge->damage_per_extra_day;
   return d;

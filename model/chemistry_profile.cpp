@@ -53,6 +53,13 @@ void ChemistryProfile::validate() const {
     require(non_negative(partial_charge->damage_per_extra_day),
             "ageing.partial_charge.damage_per_extra_day", "must not be negative");
   }
+  if (calendar_soc_stress) {
+    require(std::isfinite(calendar_soc_stress->soc_exponent),
+            "ageing.calendar_soc_stress.soc_exponent", "must be a number");
+    require(std::isfinite(calendar_soc_stress->reference_soc) &&
+                calendar_soc_stress->reference_soc >= 0 && calendar_soc_stress->reference_soc <= 1,
+            "ageing.calendar_soc_stress.reference_soc", "must be in [0, 1]");
+  }
   require(fraction_open_closed(dod.min), "dod.min", "must be in (0, 1]");
   require(fraction_open_closed(dod.max), "dod.max", "must be in (0, 1]");
   require(dod.min <= dod.max, "dod.min", "must not exceed dod.max");

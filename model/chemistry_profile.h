@@ -11,10 +11,12 @@
 // proportion to the missing charge (constant-voltage stage, charge_acceptance.h).
 // Ageing: cycle-life curve (DoD -> cycles at the reference temperature), calendar life at the
 // reference temperature, temperature behaviour, end of life at `eol_capacity_fraction` of rated
-// capacity (0.80 by default, IEEE 450 practice), optional partial-state-of-charge stress.
+// capacity (0.80 by default, IEEE 450 practice), optional partial-state-of-charge stress,
+// optional SOC dependence of calendar ageing.
 // All fractions are 0..1; costs are in the study's currency.
 #pragma once
 
+#include <cmath>
 #include <optional>
 #include <string>
 
@@ -42,6 +44,16 @@ struct PartialChargeStress {
   double full_charge_soc = 0.98;            // SOC that counts as a full charge, (0, 1]
   double max_days_without_full_charge = 7;  // grace period, days > 0
   double damage_per_extra_day = 0;          // Miner damage per day beyond the grace period
+};
+
+// SOC dependence of calendar ageing (lithium ages faster kept full): the calendar ageing rate is
+// multiplied by m(s) = exp(soc_exponent x (s - reference_soc)), the SOC stress of Xu, Oudalov,
+// Ulbig, Andersson & Kirschen (2018), IEEE Trans. Smart Grid 9(2):1131-1140 (k_sigma 1.04,
+// sigma_ref 0.5 for their cell). calendar_life_years is then the life at reference_soc.
+struct CalendarSocStress {
+  double soc_exponent = 0;     // k_sigma, per unit SOC, finite
+  double reference_soc = 0.5;  // SOC of the rated calendar life, [0, 1]
+  double multiplier(double soc) const { return std::exp(soc_exponent * (soc - reference_soc)); }
 };
 
 struct DodRange {
@@ -72,6 +84,7 @@ struct ChemistryProfile {
   TemperatureBehaviour temperature{TemperatureSpec{25, {{25, 1}}}};
   double eol_capacity_fraction = 0.80;  // (0, 1)
   std::optional<PartialChargeStress> partial_charge;
+  std::optional<CalendarSocStress> calendar_soc_stress;  // unset: calendar ageing ignores SOC
   DodRange dod;
   ProfileCosts costs;
   std::optional<double> cell_mass_kg;

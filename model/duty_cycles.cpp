@@ -33,21 +33,31 @@ DutyDamage duty_damage(const ChemistryProfile& profile, const DutyCycleSummary& 
     throw InvalidValue("temp_c", "needs one temperature per SOC sample");
   // Sample i stands for the interval that follows it: step i of the series is aged at
   // a(temp_c[i]), and each cycle at the acceleration of the steps in which it moved charge.
-  std::vector<double> accel(samples > 0 ? samples - 1 : 0, 1.0);
-  double accel_sum = 0;
-  for (std::size_t i = 0; i < accel.size(); ++i) {
-    if (!temp_c.empty()) accel[i] = profile.temperature.ageing_acceleration(temp_c[i]);
-    accel_sum += accel[i];
-  }
+  // Calendar ageing of interval i: the calendar law at temp_c[i] times the SOC stress of the
+  // interval's mean SOC.
   if (summary.soc_fraction.size() != samples)
     throw InvalidValue("samples", "must equal the length of the summarised SOC series");
+  const std::vector<double>& soc = summary.soc_fraction;
+  std::vector<double> accel(samples > 0 ? samples - 1 : 0, 1.0);
+  double calendar_sum = 0;
+  for (std::size_t i = 0; i < accel.size(); ++i) {
+    double calendar = 1.0;
+    if (!temp_c.empty()) {
+      accel[i] = profile.temperature.ageing_acceleration(temp_c[i]);
+      calendar = profile.temperature.calendar_acceleration(temp_c[i]);
+    }
+    if (profile.calendar_soc_stress)
+      calendar *= profile.calendar_soc_stress->multiplier(0.5 * (soc[i] + soc[i + 1]));
+    calendar_sum += calendar;
+  }
   DutyDamage d;
   for (const auto& c : rainflow(summary.soc_fraction, accel))
     d.cycle += c.count * c.leg_weight * profile.cycle_life.damage_per_cycle(c.depth);
   d.series_hours = static_cast<double>(samples > 0 ? samples - 1 : 0) * hours_per_sample;
   // Each sample stands for the interval that follows it; the last closes the log.
-  const double mean_accel = accel.empty() ? 1.0 : accel_sum / static_cast<double>(accel.size());
-  d.calendar = d.series_hours * mean_accel / (profile.calendar_life_years * kHoursPerYear);
+  const double mean_calendar =
+      accel.empty() ? 1.0 : calendar_sum / static_cast<double>(accel.size());
+  d.calendar = d.series_hours * mean_calendar / (profile.calendar_life_years * kHoursPerYear);
   const double total = d.total();
   if (total >= 1.0 || !(total > 0) || !(d.series_hours > 0)) {
     d.remaining_life_years = total >= 1.0 ? 0.0 : INFINITY;

@@ -34,6 +34,34 @@ std::string profile_error(const std::string& text, const std::string& line_needl
       .message();
 }
 
+TEST_CASE("a profile may give calendar ageing its own law and an SOC stress",
+          "[catalog][profile]") {
+  std::string text = replace_once(full_profile(), "    activation_energy_j_per_mol: 50000\n",
+                                  "    activation_energy_j_per_mol: 50000\n"
+                                  "    calendar_law: {life_halving_interval_k: 8}\n");
+  text = replace_once(text, "    calendar_life_years: 15\n",
+                      "    calendar_life_years: 15\n"
+                      "    calendar_soc_stress: {soc_exponent: 1.04, reference_soc: 0.5}\n");
+  text = replace_once(text, "    self_discharge_per_month: 0.03\n",
+                      "    self_discharge_per_month: 0.03\n    absorption_soc: 0.9\n");
+  const ChemistryProfile p = load_text(text).profile;
+  REQUIRE(p.temperature.spec().calendar_law);
+  CHECK(*p.temperature.spec().calendar_law == AgeingLaw::Halving);
+  CHECK(p.temperature.spec().calendar_halving_interval_k == 8);
+  REQUIRE(p.calendar_soc_stress);
+  CHECK(p.calendar_soc_stress->soc_exponent == 1.04);
+  CHECK(p.calendar_soc_stress->reference_soc == 0.5);
+  REQUIRE(p.absorption_soc);
+  CHECK(*p.absorption_soc == 0.9);
+  // Both laws in the calendar block is a mistake the schema names.
+  const std::string both = replace_once(text, "calendar_law: {life_halving_interval_k: 8}",
+                                        "calendar_law: {life_halving_interval_k: 8, "
+                                        "activation_energy_j_per_mol: 40000}");
+  const std::string message = profile_error(
+      both, "calendar_law:", "profile.temperature.calendar_law.life_halving_interval_k");
+  CHECK(message.find("exactly one") != std::string::npos);
+}
+
 TEST_CASE("a complete profile loads every field into the model", "[catalog][profile]") {
   const LoadedProfile loaded = load_profile_details_file(fixture_path("lfp-test.yaml"));
   const ChemistryProfile& p = loaded.profile;
