@@ -24,7 +24,6 @@
 #pragma once
 
 #include <cstddef>
-#include <deque>
 #include <vector>
 
 namespace stowage {
@@ -42,20 +41,30 @@ struct RainflowCycle {
 // Writes into `out` (cleared first) to let hot loops reuse the buffer.
 void find_reversals(const double* series, std::size_t n, std::vector<std::size_t>& out);
 
-// A monotone part of a step of the history: levels `from` -> `to` travelled at weight `w`.
-struct RainflowPiece {
-  double from = 0, to = 0, w = 1;
+// A monotone part of the history between levels `from` and `to`, lying within the monotone run
+// of points [lo, hi] (lo < hi); its weighted travel comes from prefix sums over the steps.
+struct RainflowSegment {
+  std::size_t lo = 0, hi = 0;
+  double from = 0, to = 0;
+};
+
+// A leg of the rainflow stack: its segments in path order, those before `head` already used.
+struct RainflowLeg {
+  std::vector<RainflowSegment> segments;
+  std::size_t head = 0;
 };
 
 // Working memory for count_cycles(), reused across calls so hot loops do not allocate.
 struct RainflowScratch {
   std::vector<std::size_t> reversals;
   std::vector<std::size_t> stack;
-  // Leg attribution: legs[j] holds the pieces between stack[j] and stack[j + 1], as indices
-  // into `pool`; `spare` lists pool entries free for reuse.
+  // Leg attribution: legs[j] is the pool entry holding the leg between stack[j] and
+  // stack[j + 1]; `spare` lists pool entries free for reuse; weighted_prefix[i] is the sum of
+  // w_k |x_{k+1} - x_k| over the steps k < i.
   std::vector<std::size_t> legs;
-  std::vector<std::deque<RainflowPiece>> pool;
+  std::vector<RainflowLeg> pool;
   std::vector<std::size_t> spare;
+  std::vector<double> weighted_prefix;
 };
 
 // Counts the cycles of `series[0..n)` and calls `sink(const RainflowCycle&)` for each, in the

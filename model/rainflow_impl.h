@@ -21,38 +21,63 @@ inline std::size_t new_leg(RainflowScratch& s) {
 }
 
 inline void free_leg(RainflowScratch& s, std::size_t i) {
-  s.pool[i].clear();
+  s.pool[i].segments.clear();
+  s.pool[i].head = 0;
   s.spare.push_back(i);
 }
 
+// Weighted travel from the start of the monotone run [lo, hi] up to `level`: the prefix sum
+// at the step that holds `level`, plus that step's weight times the part of it travelled.
+inline double weighted_to(const double* x, const double* w, const std::vector<double>& prefix,
+                          std::size_t lo, std::size_t hi, double level) {
+  if (level == x[hi]) return prefix[hi];
+  if (level == x[lo]) return prefix[lo];
+  const bool rising = x[hi] > x[lo];
+  // Last point h in [lo, hi) not beyond `level` in the run's direction.
+  std::size_t a = lo, b = hi;  // invariant: x[a] not beyond level, x[b] beyond it
+  while (b - a > 1) {
+    const std::size_t mid = a + (b - a) / 2;
+    const bool beyond = rising ? x[mid] > level : x[mid] < level;
+    (beyond ? b : a) = mid;
+  }
+  return prefix[a] + w[a] * std::fabs(level - x[a]);
+}
+
+inline double segment_weighted(const double* x, const double* w, const std::vector<double>& prefix,
+                               const RainflowSegment& s) {
+  return std::fabs(weighted_to(x, w, prefix, s.lo, s.hi, s.to) -
+                   weighted_to(x, w, prefix, s.lo, s.hi, s.from));
+}
+
 // Weighted travel and travel of a whole leg.
-inline void leg_totals(const std::deque<RainflowPiece>& leg, double& weighted, double& travel) {
-  for (const RainflowPiece& p : leg) {
-    const double dx = std::fabs(p.to - p.from);
-    weighted += p.w * dx;
-    travel += dx;
+inline void leg_totals(const double* x, const double* w, const std::vector<double>& prefix,
+                       const RainflowLeg& leg, double& weighted, double& travel) {
+  for (std::size_t i = leg.head; i < leg.segments.size(); ++i) {
+    const RainflowSegment& s = leg.segments[i];
+    weighted += segment_weighted(x, w, prefix, s);
+    travel += std::fabs(s.to - s.from);
   }
 }
 
 // Removes from the front of `leg` (which starts at the far end of the closed range and moves in
-// direction `dir`) the pieces up to level `until`, adding their weighted travel and travel.
-inline void take_front(std::deque<RainflowPiece>& leg, double until, double dir, double& weighted,
+// direction `dir`) the travel up to level `until`, adding its weighted travel and travel.
+inline void take_front(const double* x, const double* w, const std::vector<double>& prefix,
+                       RainflowLeg& leg, double until, double dir, double& weighted,
                        double& travel) {
-  while (!leg.empty()) {
-    RainflowPiece& p = leg.front();
-    if ((p.to - until) * dir <= 0) {
-      const double dx = std::fabs(p.to - p.from);
-      weighted += p.w * dx;
-      travel += dx;
-      leg.pop_front();
+  while (leg.head < leg.segments.size()) {
+    RainflowSegment& s = leg.segments[leg.head];
+    if ((s.to - until) * dir <= 0) {
+      weighted += segment_weighted(x, w, prefix, s);
+      travel += std::fabs(s.to - s.from);
+      ++leg.head;
       continue;
     }
-    if ((p.from - until) * dir < 0) {
-      // The piece crosses the closing level: the part below it belongs to the cycle.
-      const double dx = std::fabs(until - p.from);
-      weighted += p.w * dx;
-      travel += dx;
-      p.from = until;
+    if ((s.from - until) * dir < 0) {
+      // The segment crosses the closing level: the part before it belongs to the cycle.
+      weighted += std::fabs(weighted_to(x, w, prefix, s.lo, s.hi, until) -
+                            weighted_to(x, w, prefix, s.lo, s.hi, s.from));
+      travel += std::fabs(until - s.from);
+      s.from = until;
     }
     break;
   }
@@ -73,6 +98,14 @@ void count_cycles(const double* series, std::size_t n, RainflowScratch& scratch,
   for (std::size_t leg : legs) rd::free_leg(scratch, leg);
   legs.clear();
   const bool weighted = step_weight != nullptr;
+  const double* x = series;
+  const double* w = step_weight;
+  std::vector<double>& prefix = scratch.weighted_prefix;
+  if (weighted) {
+    prefix.assign(n, 0.0);
+    for (std::size_t i = 0; i + 1 < n; ++i)
+      prefix[i + 1] = prefix[i] + w[i] * std::fabs(x[i + 1] - x[i]);
+  }
   auto emit = [&](std::size_t a, std::size_t b, double count, double w_travel, double travel) {
     const std::size_t lo = a < b ? a : b, hi = a < b ? b : a;
     RainflowCycle c;
@@ -86,25 +119,22 @@ void count_cycles(const double* series, std::size_t n, RainflowScratch& scratch,
   };
   for (std::size_t r : scratch.reversals) {
     if (weighted && !stack.empty()) {
-      // The new leg: the steps of the history from the previous reversal to this one.
+      // The new leg: the monotone run of the history from the previous reversal to this one.
       const std::size_t leg = rd::new_leg(scratch);
-      for (std::size_t i = stack.back(); i < r; ++i) {
-        if (series[i + 1] != series[i])
-          scratch.pool[leg].push_back({series[i], series[i + 1], step_weight[i]});
-      }
+      scratch.pool[leg].segments.push_back({stack.back(), r, x[stack.back()], x[r]});
       legs.push_back(leg);
     }
     stack.push_back(r);
     while (stack.size() >= 3) {
       const std::size_t k = stack.size();
-      const double x = std::fabs(series[stack[k - 1]] - series[stack[k - 2]]);
-      const double y = std::fabs(series[stack[k - 2]] - series[stack[k - 3]]);
-      if (x < y) break;
+      const double dx = std::fabs(series[stack[k - 1]] - series[stack[k - 2]]);
+      const double dy = std::fabs(series[stack[k - 2]] - series[stack[k - 3]]);
+      if (dx < dy) break;
       double w_travel = 0, travel = 0;
       if (k == 3) {
         // Y holds the starting point: half cycle, and the start moves on.
         if (weighted) {
-          rd::leg_totals(scratch.pool[legs[0]], w_travel, travel);
+          rd::leg_totals(x, w, prefix, scratch.pool[legs[0]], w_travel, travel);
           rd::free_leg(scratch, legs[0]);
           legs.erase(legs.begin());
         }
@@ -114,18 +144,15 @@ void count_cycles(const double* series, std::size_t n, RainflowScratch& scratch,
         if (weighted) {
           // Y is leg k-3; X (leg k-2) travels back over Y's levels first, and what it travels
           // beyond them continues the leg before Y, which now ends at X's end.
-          std::deque<RainflowPiece>& leg_y = scratch.pool[legs[k - 3]];
-          std::deque<RainflowPiece>& leg_x = scratch.pool[legs[k - 2]];
+          RainflowLeg& leg_y = scratch.pool[legs[k - 3]];
+          RainflowLeg& leg_x = scratch.pool[legs[k - 2]];
           const double dir = series[stack[k - 1]] > series[stack[k - 2]] ? 1.0 : -1.0;
-          rd::leg_totals(leg_y, w_travel, travel);
-          rd::take_front(leg_x, series[stack[k - 3]], dir, w_travel, travel);
-          std::deque<RainflowPiece>& before = scratch.pool[legs[k - 4]];
-          if (leg_x.size() > before.size()) {
-            leg_x.insert(leg_x.begin(), before.begin(), before.end());
-            before.swap(leg_x);
-          } else {
-            before.insert(before.end(), leg_x.begin(), leg_x.end());
-          }
+          rd::leg_totals(x, w, prefix, leg_y, w_travel, travel);
+          rd::take_front(x, w, prefix, leg_x, series[stack[k - 3]], dir, w_travel, travel);
+          RainflowLeg& before = scratch.pool[legs[k - 4]];
+          before.segments.insert(before.segments.end(),
+                                 leg_x.segments.begin() + static_cast<std::ptrdiff_t>(leg_x.head),
+                                 leg_x.segments.end());
           rd::free_leg(scratch, legs[k - 3]);
           rd::free_leg(scratch, legs[k - 2]);
           legs.resize(k - 3);
@@ -138,7 +165,7 @@ void count_cycles(const double* series, std::size_t n, RainflowScratch& scratch,
   }
   for (std::size_t i = 0; i + 1 < stack.size(); ++i) {
     double w_travel = 0, travel = 0;
-    if (weighted) rd::leg_totals(scratch.pool[legs[i]], w_travel, travel);
+    if (weighted) rd::leg_totals(x, w, prefix, scratch.pool[legs[i]], w_travel, travel);
     emit(stack[i], stack[i + 1], 0.5, w_travel, travel);
   }
 }
