@@ -72,6 +72,20 @@ TEST_CASE("a cycle-life curve whose throughput falls toward shallow DoD loads wi
   set_warning_sink(previous);
 }
 
+TEST_CASE("an absorption stage with a full-charge SOC of 1 is refused at that field",
+          "[catalog][profile][bad]") {
+  // A tapered charge approaches full charge only asymptotically (docs/method.md 4, step 3), so
+  // a full charge at SOC 1 would never count and every day would add partial-charge damage.
+  std::string text = read_text(fixture_path("lead-test.yaml"));
+  text = replace_once(text, "    max_charge_c_rate: 0.2\n",
+                      "    max_charge_c_rate: 0.2\n    absorption_soc: 0.8\n");
+  text = replace_once(text, "      grace_days: 10\n",
+                      "      full_charge_soc: 1.0\n      grace_days: 10\n");
+  const std::string message =
+      profile_error(text, "full_charge_soc: 1.0", "profile.ageing.partial_charge.full_charge_soc");
+  CHECK_THAT(message, Catch::Contains("asymptotically"));
+}
+
 TEST_CASE("confidence labels cover fields and take only the three words", "[catalog][profile]") {
   const std::string text = full_profile() +
                            "  confidence:\n"
