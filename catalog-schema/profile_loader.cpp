@@ -2,6 +2,7 @@
 #include "catalog-schema/profile_loader.h"
 
 #include <algorithm>
+#include <iostream>
 #include <numeric>
 #include <sstream>
 #include <utility>
@@ -17,6 +18,50 @@
 
 namespace stowage {
 namespace {
+
+WarningSink& warning_sink() {
+  static WarningSink sink;
+  return sink;
+}
+
+void emit_warning(const std::string& text) {
+  if (warning_sink())
+    warning_sink()(text);
+  else
+    std::cerr << "warning: " << text << "\n";
+}
+
+// Tabulated cycle lives are rounded; a throughput dip smaller than this is not worth a warning.
+constexpr double kThroughputDipTolerance = 0.01;
+
+// Warns at each point whose lifetime throughput N x D is lower than that of a deeper point.
+void warn_shallow_throughput(const YamlDocument& doc, const YAML::Node& list,
+                             const std::vector<CycleLifePoint>& points,
+                             std::vector<std::string>& warnings) {
+  const std::string path = "profile.ageing.cycle_life";
+  for (std::size_t i = 0; i < points.size(); ++i) {
+    // The deepest point deeper than i with the largest throughput.
+    std::size_t best = i;
+    for (std::size_t j = 0; j < points.size(); ++j) {
+      if (points[j].dod > points[i].dod &&
+          points[j].dod * points[j].cycles > points[best].dod * points[best].cycles)
+        best = j;
+    }
+    const double shallow = points[i].dod * points[i].cycles;
+    const double deep = points[best].dod * points[best].cycles;
+    if (best == i || !(shallow < deep * (1.0 - kThroughputDipTolerance))) continue;
+    const InputError at = doc.error_at(
+        list[i]["cycles"], join_index(path, i) + ".cycles",
+        "lifetime throughput falls toward shallow DoD: " + number_text(points[i].cycles) +
+            " cycles at DoD " + number_text(points[i].dod) + " give " + number_text(shallow) +
+            " full cycles (cycles x DoD), fewer than the " + number_text(deep) + " at DoD " +
+            number_text(points[best].dod) + ". Shallow cycles would wear the bank more per kWh " +
+            "than deep ones, which published cycle-life data do not show; the model would then " +
+            "favour deep DoD setpoints and overstate the wear of lightly cycled banks. Check the " +
+            "curve against its source");
+    warnings.push_back(at.what());
+  }
+}
 
 // Reading after the schema has checked types: a present key is of the declared type.
 double number(const YAML::Node& node) { return *scalar_number(node); }
@@ -113,6 +158,15 @@ TemperatureSpec read_temperature(const YamlDocument& doc, const YAML::Node& t) {
     spec.law = AgeingLaw::Arrhenius;
     spec.activation_energy_j_per_mol = number(t["activation_energy_j_per_mol"]);
   }
+  if (const YAML::Node cal = t["calendar_law"]) {
+    if (cal["life_halving_interval_k"]) {
+      spec.calendar_law = AgeingLaw::Halving;
+      spec.calendar_halving_interval_k = number(cal["life_halving_interval_k"]);
+    } else {
+      spec.calendar_law = AgeingLaw::Arrhenius;
+      spec.calendar_activation_energy_j_per_mol = number(cal["activation_energy_j_per_mol"]);
+    }
+  }
   for (const char* range : {"operating_c", "charging_c"}) {
     const double lo = number(t[range]["min"]), hi = number(t[range]["max"]);
     if (!(lo < hi)) {
@@ -126,6 +180,29 @@ TemperatureSpec read_temperature(const YamlDocument& doc, const YAML::Node& t) {
   spec.charge_min_c = number(t["charging_c"]["min"]);
   spec.charge_max_c = number(t["charging_c"]["max"]);
   return spec;
+}
+
+std::map<std::string, ValueConfidence> read_confidence(const YamlDocument& doc,
+                                                       const YAML::Node& map) {
+  std::map<std::string, ValueConfidence> labels;
+  if (!map) return labels;
+  for (auto it = map.begin(); it != map.end(); ++it) {
+    const std::string key = it->first.Scalar();
+    bool exact = false;
+    doc.locate("profile." + key, &exact);
+    if (!exact || key == "sources" || key.compare(0, 8, "sources.") == 0 || key == "confidence" ||
+        key.compare(0, 11, "confidence.") == 0) {
+      throw doc.error_at(it->first, "profile.confidence." + key,
+                         "names no field of this profile; keys are field paths such as "
+                         "cell.nominal_v or ageing.cycle_life");
+    }
+    // The schema's enum guarantees one of the three words.
+    const std::string word = it->second.Scalar();
+    labels.emplace(key, word == "sourced"       ? ValueConfidence::Sourced
+                        : word == "from-memory" ? ValueConfidence::FromMemory
+                                                : ValueConfidence::Illustrative);
+  }
+  return labels;
 }
 
 std::map<std::string, std::string> read_sources(const YamlDocument& doc, const YAML::Node& map) {
@@ -170,6 +247,7 @@ LoadedProfile build_profile(const YamlDocument& doc) {
   profile.max_discharge_c_rate = number(cell["max_discharge_c_rate"]);
   read_optional(cell, "peukert_exponent", profile.peukert_exponent);
   read_optional(cell, "self_discharge_per_month", profile.self_discharge_per_month);
+  read_optional(cell, "absorption_soc", profile.absorption_soc);
   read_optional(cell, "mass_kg", profile.cell_mass_kg);
   read_optional(cell, "volume_l", profile.cell_volume_l);
 
@@ -179,6 +257,7 @@ LoadedProfile build_profile(const YamlDocument& doc) {
 
   const YAML::Node ageing = p["ageing"];
   std::vector<CycleLifePoint> points = read_cycle_life(doc, ageing["cycle_life"]);
+  warn_shallow_throughput(doc, ageing["cycle_life"], points, loaded.warnings);
   try {
     profile.cycle_life = CycleLifeCurve(std::move(points));
   } catch (const InvalidValue& e) {
@@ -193,6 +272,10 @@ LoadedProfile build_profile(const YamlDocument& doc) {
     stress.max_days_without_full_charge = number(pc["grace_days"]);
     stress.damage_per_extra_day = number(pc["damage_per_extra_day"]);
     profile.partial_charge = stress;
+  }
+  if (const YAML::Node soc = ageing["calendar_soc_stress"]) {
+    profile.calendar_soc_stress =
+        CalendarSocStress{number(soc["soc_exponent"]), number(soc["reference_soc"])};
   }
 
   TemperatureSpec spec = read_temperature(doc, p["temperature"]);
@@ -216,10 +299,12 @@ LoadedProfile build_profile(const YamlDocument& doc) {
                 profile.costs.replacement_end_of_life_per_kwh);
 
   loaded.sources = read_sources(doc, p["sources"]);
+  loaded.confidence = read_confidence(doc, p["confidence"]);
   loaded.id_at = position_of(doc, "profile.id");
   loaded.currency_at = position_of(doc, "profile.costs.currency");
 
   profile.validate();
+  for (const std::string& w : loaded.warnings) emit_warning(w);
   return loaded;
 }
 
@@ -249,6 +334,36 @@ ChemistryProfile load_profile(std::istream& in, const std::string& source_name) 
 
 ChemistryProfile load_profile_file(const std::string& path) {
   return load_profile_details_file(path).profile;
+}
+
+const char* confidence_name(ValueConfidence c) {
+  switch (c) {
+    case ValueConfidence::Sourced:
+      return "sourced";
+    case ValueConfidence::FromMemory:
+      return "from-memory";
+    case ValueConfidence::Illustrative:
+      return "illustrative";
+  }
+  return "illustrative";
+}
+
+std::optional<ValueConfidence> confidence_of(const LoadedProfile& loaded,
+                                             const std::string& field) {
+  // The longest key that equals the field or names an enclosing field.
+  if (auto it = loaded.confidence.find(field); it != loaded.confidence.end()) return it->second;
+  for (std::size_t i = field.size(); i-- > 0;) {
+    if (field[i] != '.' && field[i] != '[') continue;
+    if (auto it = loaded.confidence.find(field.substr(0, i)); it != loaded.confidence.end())
+      return it->second;
+  }
+  return std::nullopt;
+}
+
+WarningSink set_warning_sink(WarningSink sink) {
+  WarningSink previous = std::move(warning_sink());
+  warning_sink() = std::move(sink);
+  return previous;
 }
 
 bool source_covers(const std::map<std::string, std::string>& sources, const std::string& field) {

@@ -9,14 +9,15 @@ AccelerationSeries acceleration_series(const ChemistryProfile& profile,
                                        const std::vector<double>& temp_c) {
   AccelerationSeries a;
   a.per_hour.resize(temp_c.size());
-  a.prefix.resize(temp_c.size() + 1);
-  a.prefix[0] = 0;
+  a.calendar_per_hour.resize(temp_c.size());
+  double sum = 0;
   for (std::size_t h = 0; h < temp_c.size(); ++h) {
     a.per_hour[h] = profile.temperature.ageing_acceleration(temp_c[h]);
-    a.prefix[h + 1] = a.prefix[h] + a.per_hour[h];
+    a.calendar_per_hour[h] = profile.temperature.calendar_acceleration(temp_c[h]);
+    sum += a.calendar_per_hour[h];
   }
   a.calendar_damage_per_year =
-      a.prefix.back() / (profile.calendar_life_years * static_cast<double>(kHoursPerYear));
+      sum / (profile.calendar_life_years * static_cast<double>(kHoursPerYear));
   return a;
 }
 
@@ -24,16 +25,23 @@ YearDamage year_damage(const ChemistryProfile& profile, const AccelerationSeries
                        const std::vector<double>& soc_trace, double partial_charge_excess_days,
                        RainflowScratch& scratch) {
   YearDamage d;
-  const std::vector<double>& prefix = acceleration.prefix;
   const CycleLifeCurve& curve = profile.cycle_life;
-  count_cycles(soc_trace.data(), soc_trace.size(), scratch, [&](const RainflowCycle& c) {
-    // Trace point i is the state after hour i - 1, so a cycle between points a < b spans
-    // hours a .. b-1; its temperature acceleration is the mean over those hours.
-    const std::size_t a = c.first_index, b = c.last_index;
-    const double accel = b > a ? (prefix[b] - prefix[a]) / static_cast<double>(b - a) : 1.0;
-    d.cycle += c.count * accel * curve.damage_per_cycle(c.depth);
-  });
+  // Trace point i is the state after hour i - 1, so step i of the trace is hour i: each cycle
+  // is aged at the acceleration of the hours in which it moved charge.
+  count_cycles(
+      soc_trace.data(), soc_trace.size(), scratch,
+      [&](const RainflowCycle& c) {
+        d.cycle += c.count * c.leg_weight * curve.damage_per_cycle(c.depth);
+      },
+      acceleration.per_hour.data());
   d.calendar = acceleration.calendar_damage_per_year;
+  if (profile.calendar_soc_stress) {
+    double sum = 0;
+    for (std::size_t h = 0; h + 1 < soc_trace.size(); ++h)
+      sum += acceleration.calendar_per_hour[h] *
+             profile.calendar_soc_stress->multiplier(0.5 * (soc_trace[h] + soc_trace[h + 1]));
+    d.calendar = sum / (profile.calendar_life_years * static_cast<double>(kHoursPerYear));
+  }
   if (profile.partial_charge)
     d.partial_charge = partial_charge_excess_days * profile.partial_charge->damage_per_extra_day;
   return d;

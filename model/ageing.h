@@ -2,9 +2,14 @@
 // Ageing of one year of operation, as Palmgren-Miner damage (end of life at damage 1).
 //
 //   cycle damage    = sum over rainflow cycles of the SOC trace (ASTM E1049-85) of
-//                     count x a(T_cycle) / N(depth), N from the cycle-life curve, a(T) the
-//                     temperature acceleration averaged over the hours the cycle spans;
-//   calendar damage = sum over hours of a(T_h) / (calendar_life_years x 8760);
+//                     count x a_cycle / N(depth), N from the cycle-life curve, a_cycle the
+//                     temperature acceleration a(T_h) of the hours in which the cycle moved
+//                     charge, weighted by the SOC travel of each hour (rainflow.h, leg
+//                     attribution: continuous in the trace, plateaus carry no weight);
+//   calendar damage = sum over hours of a_cal(T_h) x m(s_h) / (calendar_life_years x 8760),
+//                     a_cal the calendar law's acceleration (the cycling law unless the profile
+//                     gives calendar ageing its own), m the optional SOC stress of the hour's
+//                     mean SOC (s_h + s_(h+1)) / 2 (1 without one);
 //   partial-charge  = excess days without full charge x damage_per_extra_day.
 // Capacity fades linearly with accumulated damage D from 1 to eol_capacity_fraction:
 //   health = 1 - (1 - eol_capacity_fraction) x D.
@@ -24,12 +29,14 @@ struct YearDamage {
   double total() const { return cycle + calendar + partial_charge; }
 };
 
-// Per-hour temperature acceleration of a profile at a site, with prefix sums, computed once
-// per (profile, site) and shared by every year and design.
+// Per-hour temperature acceleration of a profile at a site, computed once per (profile, site)
+// and shared by every year and design.
 struct AccelerationSeries {
-  std::vector<double> per_hour;         // a(T_h), 8760 values
-  std::vector<double> prefix;           // prefix[i] = sum of per_hour[0..i), 8761 values
-  double calendar_damage_per_year = 0;  // sum per_hour / (calendar_life_years x 8760)
+  std::vector<double> per_hour;           // a(T_h) of cycle ageing, 8760 values
+  std::vector<double> calendar_per_hour;  // a_cal(T_h) of calendar ageing, 8760 values
+  // sum calendar_per_hour / (calendar_life_years x 8760): the year's calendar damage at the
+  // reference SOC (the whole of it when the profile has no SOC stress).
+  double calendar_damage_per_year = 0;
 };
 AccelerationSeries acceleration_series(const ChemistryProfile& profile,
                                        const std::vector<double>& temp_c);

@@ -32,6 +32,13 @@ void ChemistryProfile::validate() const {
           "cell.peukert_exponent", "must be in [1, 2]");
   require(non_negative(self_discharge_per_month) && self_discharge_per_month < 1,
           "cell.self_discharge_per_month", "must be in [0, 1)");
+  require(!absorption_soc ||
+              (std::isfinite(*absorption_soc) && *absorption_soc > 0 && *absorption_soc < 1),
+          "cell.absorption_soc", "must be in (0, 1)");
+  require(!absorption_soc || !partial_charge || partial_charge->full_charge_soc < 1,
+          "ageing.partial_charge.full_charge_soc",
+          "must be below 1 when cell.absorption_soc is set: a tapered charge approaches full "
+          "charge only asymptotically");
   require(positive(calendar_life_years), "ageing.calendar_life_years", "must be positive");
   require(!max_service_years || positive(*max_service_years), "ageing.max_service_years",
           "must be positive");
@@ -45,6 +52,13 @@ void ChemistryProfile::validate() const {
             "ageing.partial_charge.grace_days", "must be positive");
     require(non_negative(partial_charge->damage_per_extra_day),
             "ageing.partial_charge.damage_per_extra_day", "must not be negative");
+  }
+  if (calendar_soc_stress) {
+    require(std::isfinite(calendar_soc_stress->soc_exponent),
+            "ageing.calendar_soc_stress.soc_exponent", "must be a number");
+    require(std::isfinite(calendar_soc_stress->reference_soc) &&
+                calendar_soc_stress->reference_soc >= 0 && calendar_soc_stress->reference_soc <= 1,
+            "ageing.calendar_soc_stress.reference_soc", "must be in [0, 1]");
   }
   require(fraction_open_closed(dod.min), "dod.min", "must be in (0, 1]");
   require(fraction_open_closed(dod.max), "dod.max", "must be in (0, 1]");

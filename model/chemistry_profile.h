@@ -7,12 +7,16 @@
 // voltage / mean charge voltage; round-trip efficiency = voltaic x coulombic (common practice).
 // Peukert: at a discharge current I above the rated current C/H the charge drawn from the cell
 // counts (I H / C)^(k-1) times; below it no credit is taken (factor 1).
+// Charge acceptance: optional absorption threshold above which the charge current tapers in
+// proportion to the missing charge (constant-voltage stage, charge_acceptance.h).
 // Ageing: cycle-life curve (DoD -> cycles at the reference temperature), calendar life at the
 // reference temperature, temperature behaviour, end of life at `eol_capacity_fraction` of rated
-// capacity (0.80 by default, IEEE 450 practice), optional partial-state-of-charge stress.
+// capacity (0.80 by default, IEEE 450 practice), optional partial-state-of-charge stress,
+// optional SOC dependence of calendar ageing.
 // All fractions are 0..1; costs are in the study's currency.
 #pragma once
 
+#include <cmath>
 #include <optional>
 #include <string>
 
@@ -42,6 +46,16 @@ struct PartialChargeStress {
   double damage_per_extra_day = 0;          // Miner damage per day beyond the grace period
 };
 
+// SOC dependence of calendar ageing (lithium ages faster kept full): the calendar ageing rate is
+// multiplied by m(s) = exp(soc_exponent x (s - reference_soc)), the SOC stress of Xu, Oudalov,
+// Ulbig, Andersson & Kirschen (2018), IEEE Trans. Smart Grid 9(2):1131-1140 (k_sigma 1.04,
+// sigma_ref 0.5 for their cell). calendar_life_years is then the life at reference_soc.
+struct CalendarSocStress {
+  double soc_exponent = 0;     // k_sigma, per unit SOC, finite
+  double reference_soc = 0.5;  // SOC of the rated calendar life, [0, 1]
+  double multiplier(double soc) const { return std::exp(soc_exponent * (soc - reference_soc)); }
+};
+
 struct DodRange {
   double min = 0.2, max = 0.8,
          default_setpoint = 0.5;  // fractions in (0, 1], min <= default <= max
@@ -61,12 +75,16 @@ struct ChemistryProfile {
   double max_discharge_c_rate = 0;      // per hour, > 0
   double peukert_exponent = 1;          // [1, 2]
   double self_discharge_per_month = 0;  // fraction of stored charge lost per 730 h, [0, 1)
+  // SOC above which charging enters the constant-voltage stage and the accepted current tapers
+  // (charge_acceptance.h), (0, 1); unset: the bank accepts the offered current up to full.
+  std::optional<double> absorption_soc;
   CycleLifeCurve cycle_life{{{0.5, 2}, {1.0, 1}}};
   double calendar_life_years = 10;          // at the reference temperature, > 0
   std::optional<double> max_service_years;  // hard replacement age regardless of wear
   TemperatureBehaviour temperature{TemperatureSpec{25, {{25, 1}}}};
   double eol_capacity_fraction = 0.80;  // (0, 1)
   std::optional<PartialChargeStress> partial_charge;
+  std::optional<CalendarSocStress> calendar_soc_stress;  // unset: calendar ageing ignores SOC
   DodRange dod;
   ProfileCosts costs;
   std::optional<double> cell_mass_kg;

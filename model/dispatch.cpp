@@ -4,6 +4,9 @@
 #include <algorithm>
 #include <cmath>
 
+#include "model/charge_acceptance.h"
+#include "model/dod_window.h"
+
 namespace stowage {
 
 HourlyFactors hourly_factors(const ChemistryProfile& profile, const SiteConditions& site) {
@@ -62,9 +65,10 @@ YearDispatch dispatch_year(const DispatchInputs& in, DispatchState& state,
   YearDispatch y;
 
   for (std::size_t h = 0; h < static_cast<std::size_t>(kHoursPerYear); ++h) {
-    // The window this hour: from full down to 1 - DoD x f_T. Cold narrows it (the charge below
-    // stays in the cells and comes back when the bank warms up); heat may widen it.
-    const double window = dod * hf.capacity_factor[h];
+    // The window this hour reaches down to 1 - reachable_depth (dod_window.h). Cold narrows it
+    // (the charge below stays in the cells and comes back when the bank warms up); heat never
+    // widens it past the setpoint.
+    const double capacity_factor = hf.capacity_factor[h];
     soc *= keep_per_hour;
     const HourBalance balance = hour_balance(site, h);
     const double surplus = balance.surplus_kwh;
@@ -75,10 +79,12 @@ YearDispatch dispatch_year(const DispatchInputs& in, DispatchState& state,
     if (surplus > 0) {
       double to_terminals = 0;  // kWh
       if (hf.can_charge[h] && soc < 1.0) {
-        // Terminal charge that fills the headroom, given the coulombic loss.
-        const double headroom_ah = (1.0 - soc) * q_ah / eta_coulomb;
-        const double amps =
-            std::min({surplus * eta_charger * 1000.0 / v_charge, max_charge_amps, headroom_ah});
+        // Terminal charge the bank accepts this hour: the offer up to the headroom (given the
+        // coulombic loss), tapering above the absorption threshold (charge_acceptance.h).
+        const double offer_amps =
+            std::min(surplus * eta_charger * 1000.0 / v_charge, max_charge_amps);
+        const double amps = accepted_charge_ah(soc, q_ah, eta_coulomb, offer_amps, max_charge_amps,
+                                               p.absorption_soc);
         to_terminals = amps * v_charge / 1000.0;
         soc += amps * eta_coulomb / q_ah;
         if (soc > 1.0) soc = 1.0;
@@ -97,7 +103,8 @@ YearDispatch dispatch_year(const DispatchInputs& in, DispatchState& state,
         // a lower current later can still draw it.
         auto room_ah = [&](double amps) {
           const double floor_soc =
-              1.0 - window * peukert_capacity_factor(amps, rated_amps, peukert_k);
+              1.0 - reachable_depth(dod, capacity_factor,
+                                    peukert_capacity_factor(amps, rated_amps, peukert_k));
           return (soc - std::max(0.0, floor_soc)) * q_ah;
         };
         double amps = std::min(wanted_amps, max_discharge_amps);

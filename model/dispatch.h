@@ -3,20 +3,25 @@
 //
 // State: SOC as a fraction of the charge the bank holds when full, Q = capacity_ah x health.
 // Stored charge only changes by charging, discharging and self-discharge, never by
-// temperature. The DoD window of the hour is [1 - dod_setpoint x f_T(T_h), 1], with f_T the
-// profile's available-capacity factor: cold makes part of the charge unreachable until the
-// bank warms up. Each hour, in this order:
+// temperature. The DoD window of the hour is [1 - reachable_depth, 1] with reachable_depth =
+// dod_setpoint x min(1, f_T(T_h) x f_P(I)) (dod_window.h), f_T the profile's available-capacity
+// factor: cold makes part of the charge unreachable until the bank warms up, heat never takes
+// the bank past its setpoint. Each hour, in this order:
 //   1. self-discharge: SOC *= (1 - s_month)^(1/730);
 //   2. the source serves the load directly; source_to_load_efficiency of what it gives arrives.
 //      Surplus: the charger passes surplus x charger_efficiency to the bank terminals, limited
-//      by max_charge_c_rate x rated capacity x V_charge and by the headroom; the stored charge
-//      is E_in / V_charge x coulombic_efficiency; source energy not taken is curtailed.
+//      by max_charge_c_rate x rated capacity x V_charge and by the headroom, and above the
+//      profile's absorption SOC by the tapering acceptance of the constant-voltage stage
+//      (charge_acceptance.h); the stored charge is E_in / V_charge x coulombic_efficiency;
+//      source energy not taken is curtailed.
 //      Charging only within the profile's charge temperature limits.
 //   3. Deficit: the bank gives at its terminals up to deficit / inverter_efficiency, limited by
 //      max_discharge_c_rate x rated capacity x V_discharge and by the charge above the window's
 //      floor. Peukert's law shortens the window at currents I above the rated current C/H:
 //      the cells reach cut-off after C (C / (I H))^(k-1) Ah, so the floor at current I is
-//      1 - dod x f_T x (I_r / I)^(k-1); the charge drawn is I x 1 h. Discharge only within the
+//      1 - dod x min(1, f_T x (I_r / I)^(k-1)); the charge drawn is I x 1 h. When the SOC
+//      lies below the hour's floor (charge the cold leaves unreachable), the room is taken as 0
+//      and the bank gives nothing that hour. Discharge only within the
 //      operating temperature limits. The remaining deficit goes to back-up or unserved.
 // V_charge and V_discharge are the profile's mean cell voltages times cells in series.
 // Energy figures are in kWh; "terminal" means at the bank's DC terminals.

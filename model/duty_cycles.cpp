@@ -13,6 +13,7 @@ namespace stowage {
 DutyCycleSummary summarise_cycles(const std::vector<double>& soc_fraction, int bins) {
   if (bins < 1) throw ContractViolation("bins", "must be at least 1");
   DutyCycleSummary s;
+  s.soc_fraction = soc_fraction;
   s.cycles = rainflow(soc_fraction);
   const double width = 1.0 / bins;
   for (int b = 0; b < bins; ++b) s.histogram.push_back({b * width, (b + 1) * width, 0.0});
@@ -30,23 +31,33 @@ DutyDamage duty_damage(const ChemistryProfile& profile, const DutyCycleSummary& 
   if (!(hours_per_sample > 0)) throw ContractViolation("hours_per_sample", "must be positive");
   if (!temp_c.empty() && temp_c.size() != samples)
     throw ContractViolation("temp_c", "needs one temperature per SOC sample");
-  // Acceleration per sample with prefix sums, as in the yearly ageing.
-  std::vector<double> prefix(samples + 1, 0.0);
-  for (std::size_t i = 0; i < samples; ++i) {
-    const double a = temp_c.empty() ? 1.0 : profile.temperature.ageing_acceleration(temp_c[i]);
-    prefix[i + 1] = prefix[i] + a;
+  // Sample i stands for the interval that follows it: step i of the series is aged at
+  // a(temp_c[i]), and each cycle at the acceleration of the steps in which it moved charge.
+  // Calendar ageing of interval i: the calendar law at temp_c[i] times the SOC stress of the
+  // interval's mean SOC.
+  if (summary.soc_fraction.size() != samples)
+    throw ContractViolation("samples", "must equal the length of the summarised SOC series");
+  const std::vector<double>& soc = summary.soc_fraction;
+  std::vector<double> accel(samples > 0 ? samples - 1 : 0, 1.0);
+  double calendar_sum = 0;
+  for (std::size_t i = 0; i < accel.size(); ++i) {
+    double calendar = 1.0;
+    if (!temp_c.empty()) {
+      accel[i] = profile.temperature.ageing_acceleration(temp_c[i]);
+      calendar = profile.temperature.calendar_acceleration(temp_c[i]);
+    }
+    if (profile.calendar_soc_stress)
+      calendar *= profile.calendar_soc_stress->multiplier(0.5 * (soc[i] + soc[i + 1]));
+    calendar_sum += calendar;
   }
   DutyDamage d;
-  for (const auto& c : summary.cycles) {
-    const std::size_t a = c.first_index, b = c.last_index;
-    const double accel = b > a ? (prefix[b] - prefix[a]) / static_cast<double>(b - a) : 1.0;
-    d.cycle += c.count * accel * profile.cycle_life.damage_per_cycle(c.depth);
-  }
+  for (const auto& c : rainflow(summary.soc_fraction, accel))
+    d.cycle += c.count * c.leg_weight * profile.cycle_life.damage_per_cycle(c.depth);
   d.series_hours = static_cast<double>(samples > 0 ? samples - 1 : 0) * hours_per_sample;
   // Each sample stands for the interval that follows it; the last closes the log.
-  const double mean_accel =
-      samples > 1 ? prefix[samples - 1] / static_cast<double>(samples - 1) : 1.0;
-  d.calendar = d.series_hours * mean_accel / (profile.calendar_life_years * kHoursPerYear);
+  const double mean_calendar =
+      accel.empty() ? 1.0 : calendar_sum / static_cast<double>(accel.size());
+  d.calendar = d.series_hours * mean_calendar / (profile.calendar_life_years * kHoursPerYear);
   const double total = d.total();
   if (total >= 1.0 || !(total > 0) || !(d.series_hours > 0)) {
     d.remaining_life_years = total >= 1.0 ? 0.0 : INFINITY;

@@ -3,10 +3,12 @@
 //
 // Cycles: ASTM E1049-85 rainflow of the SOC series (fractions), grouped into depth bins of
 // equal width over (0, 1]; equivalent full cycles = sum of count x depth (half the total SOC
-// travel). Damage, given a profile: cycle damage by Miner's rule at the mean temperature
-// acceleration over each cycle's span (reference temperature when no temperatures are given),
-// plus calendar damage for the series' duration. Assuming the bank was new when the series
-// starts and the same duty goes on, the remaining life is (1 - D) / (D per hour).
+// travel). Damage, given a profile: cycle damage by Miner's rule, each cycle at the temperature
+// acceleration of the samples in which it moved charge (rainflow leg attribution, rainflow.h;
+// reference temperature when no temperatures are given), plus calendar damage for the series'
+// duration at the calendar law and the SOC stress of each interval (as in ageing.h). Assuming the
+// bank was new when the series starts and the same duty goes on, the remaining life is (1 - D) / (D
+// per hour).
 #pragma once
 
 #include <vector>
@@ -22,6 +24,7 @@ struct DepthBin {
 };
 
 struct DutyCycleSummary {
+  std::vector<double> soc_fraction;  // the series summarised
   std::vector<RainflowCycle> cycles;
   std::vector<DepthBin> histogram;
   double equivalent_full_cycles = 0;

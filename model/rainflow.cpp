@@ -1,6 +1,8 @@
 // SPDX-License-Identifier: MIT
 #include "model/rainflow.h"
 
+#include "model/invalid_value.h"
+
 namespace stowage {
 
 void find_reversals(const double* series, std::size_t n, std::vector<std::size_t>& out) {
@@ -25,6 +27,20 @@ std::vector<RainflowCycle> rainflow(const std::vector<double>& series) {
   RainflowScratch scratch;
   count_cycles(series.data(), series.size(), scratch,
                [&](const RainflowCycle& c) { cycles.push_back(c); });
+  return cycles;
+}
+
+std::vector<RainflowCycle> rainflow(const std::vector<double>& series,
+                                    const std::vector<double>& step_weight) {
+  if (!series.empty() && step_weight.size() + 1 != series.size())
+    throw InvalidValue("step_weight",
+                       "needs one weight per step: " + std::to_string(series.size() - 1) +
+                           " values, found " + std::to_string(step_weight.size()));
+  std::vector<RainflowCycle> cycles;
+  RainflowScratch scratch;
+  count_cycles(
+      series.data(), series.size(), scratch, [&](const RainflowCycle& c) { cycles.push_back(c); },
+      series.empty() ? nullptr : step_weight.data());
   return cycles;
 }
 

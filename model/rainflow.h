@@ -5,7 +5,22 @@
 // the one holding the starting point, or as a half cycle when it is; what remains at the end
 // (the residue) is counted as half cycles.
 // Each cycle reports its depth (range), mean, count (1 or 0.5) and the indices in the input of
-// the two reversals that bound it, so callers can look up conditions over the cycle's span.
+// the two reversals that bound it.
+//
+// Leg attribution (optional): given a weight w_i for every step i -> i+1 of the series (for
+// ageing, the temperature acceleration of hour i), each cycle also reports the travel-weighted
+// mean of w over the steps that make up the cycle itself, `leg_weight`:
+//   leg_weight = sum over the cycle's level pieces p of w_p |dx_p| / sum |dx_p|,
+// where the pieces are the parts of the history that rainflow assigns to the cycle: for a half
+// cycle, the leg from one reversal to the other with the inner (already closed) cycles cut
+// out; for a full cycle, that leg plus the part of the next leg that travels back over the same
+// levels. Every piece of travel of the history belongs to exactly one counted cycle, so sum over
+// cycles of (travel x leg_weight) = sum_i w_i |x_{i+1} - x_i|. Steps with no change (plateaus)
+// carry no weight, so a cycle is weighted by the hours in which it moved, not by the hours its
+// reversals happen to span. Unlike the mean over the span between the two reversals, the result
+// does not jump when round-off decides how rainflow pairs equal reversals at the extremes of the
+// history (every full charge at SOC 1, say): the pieces then only trade places between cycles of
+// the same depth. Without weights every cycle reports leg_weight = 1.
 #pragma once
 
 #include <cstddef>
@@ -19,24 +34,50 @@ struct RainflowCycle {
   double count = 0;             // 1.0 full cycle, 0.5 half cycle
   std::size_t first_index = 0;  // index of the earlier bounding reversal in the input
   std::size_t last_index = 0;   // index of the later bounding reversal
+  double leg_weight = 1.0;      // travel-weighted mean step weight over the cycle's own pieces
 };
 
 // Indices of the reversals of `series[0..n)`; plateaus count once, both ends included.
 // Writes into `out` (cleared first) to let hot loops reuse the buffer.
 void find_reversals(const double* series, std::size_t n, std::vector<std::size_t>& out);
 
+// A monotone part of the history between levels `from` and `to`, lying within the monotone run
+// of points [lo, hi] (lo < hi); its weighted travel comes from prefix sums over the steps.
+struct RainflowSegment {
+  std::size_t lo = 0, hi = 0;
+  double from = 0, to = 0;
+};
+
+// A leg of the rainflow stack: its segments in path order, those before `head` already used.
+struct RainflowLeg {
+  std::vector<RainflowSegment> segments;
+  std::size_t head = 0;
+};
+
 // Working memory for count_cycles(), reused across calls so hot loops do not allocate.
 struct RainflowScratch {
   std::vector<std::size_t> reversals;
   std::vector<std::size_t> stack;
+  // Leg attribution: legs[j] is the pool entry holding the leg between stack[j] and
+  // stack[j + 1]; `spare` lists pool entries free for reuse; weighted_prefix[i] is the sum of
+  // w_k |x_{k+1} - x_k| over the steps k < i.
+  std::vector<std::size_t> legs;
+  std::vector<RainflowLeg> pool;
+  std::vector<std::size_t> spare;
+  std::vector<double> weighted_prefix;
 };
 
 // Counts the cycles of `series[0..n)` and calls `sink(const RainflowCycle&)` for each, in the
-// order they are closed.
+// order they are closed. `step_weight` is null (no leg attribution) or has n - 1 values, the
+// weight of each step i -> i+1.
 template <typename Sink>
-void count_cycles(const double* series, std::size_t n, RainflowScratch& scratch, Sink&& sink);
+void count_cycles(const double* series, std::size_t n, RainflowScratch& scratch, Sink&& sink,
+                  const double* step_weight = nullptr);
 
 std::vector<RainflowCycle> rainflow(const std::vector<double>& series);
+// With leg attribution; `step_weight` has series.size() - 1 values (none for an empty series).
+std::vector<RainflowCycle> rainflow(const std::vector<double>& series,
+                                    const std::vector<double>& step_weight);
 
 }  // namespace stowage
 

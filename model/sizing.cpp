@@ -5,6 +5,7 @@
 #include <cmath>
 
 #include "model/contract.h"
+#include "model/dod_window.h"
 #include "model/invalid_value.h"
 
 namespace stowage {
@@ -27,8 +28,10 @@ DesignCondition design_condition(const ChemistryProfile& profile, const SiteCond
     c.daily_load_kwh = std::max(c.daily_load_kwh, m.daily_load_kwh[i]);
     c.coldest_temp_c = std::min(c.coldest_temp_c, m.temp_c[i]);
   }
-  // No credit for capacity gained in the heat (IEEE Std 485 sizing practice).
-  c.temperature_factor = std::min(1.0, profile.temperature.capacity_factor(c.coldest_temp_c));
+  // No credit for capacity gained in the heat (IEEE Std 485 sizing practice): the same rule as
+  // the dispatch's window, at the design rate (dod_window.h).
+  c.temperature_factor =
+      reachable_depth(1.0, profile.temperature.capacity_factor(c.coldest_temp_c));
   return c;
 }
 
@@ -36,8 +39,8 @@ DesignCondition design_condition(const ChemistryProfile& profile, const SiteCond
 double usable_kwh_per_ah(const ChemistryProfile& profile, const SiteConditions& site,
                          double dod_setpoint, double temperature_factor) {
   const int cells = cells_in_series(profile, site.bus_voltage_v);
-  return cells * profile.mean_discharge_v / 1000.0 * dod_setpoint * temperature_factor *
-         profile.eol_capacity_fraction;
+  return cells * profile.mean_discharge_v / 1000.0 *
+         reachable_depth(dod_setpoint, temperature_factor) * profile.eol_capacity_fraction;
 }
 
 }  // namespace

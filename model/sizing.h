@@ -4,9 +4,10 @@
 //                        / (inverter_efficiency x DoD setpoint x f_T(coldest month)
 //                           x eol_capacity_fraction)
 // with the design daily load the largest monthly mean daily load, f_T the profile's available
-// capacity factor at the coldest monthly mean temperature (capped at 1: no credit for heat, as
-// IEEE Std 485 advises), and strings = ceil(required Ah / cell Ah) at the cells in series that
-// reach the bus voltage.
+// capacity factor at the coldest monthly mean temperature, DoD setpoint x f_T read as the
+// reachable depth of dod_window.h at the design rate (f_T capped at 1: no credit for heat, as
+// IEEE Std 485 advises; the dispatch uses the same rule), and strings = ceil(required Ah / cell Ah)
+// at the cells in series that reach the bus voltage.
 #pragma once
 
 #include "model/bank.h"

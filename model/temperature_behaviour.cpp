@@ -27,6 +27,13 @@ TemperatureBehaviour::TemperatureBehaviour(TemperatureSpec spec) : spec_(std::mo
     throw InvalidValue("activation_energy_j_per_mol", "must be positive");
   if (spec_.law == AgeingLaw::Halving && !(spec_.halving_interval_k > 0))
     throw InvalidValue("life_halving_interval_k", "must be positive");
+  if (spec_.calendar_law == AgeingLaw::Arrhenius &&
+      !(spec_.calendar_activation_energy_j_per_mol > 0 &&
+        finite(spec_.calendar_activation_energy_j_per_mol)))
+    throw InvalidValue("calendar_law.activation_energy_j_per_mol", "must be positive");
+  if (spec_.calendar_law == AgeingLaw::Halving &&
+      !(spec_.calendar_halving_interval_k > 0 && finite(spec_.calendar_halving_interval_k)))
+    throw InvalidValue("calendar_law.life_halving_interval_k", "must be positive");
   if (!(spec_.operating_min_c < spec_.operating_max_c))
     throw InvalidValue("operating_c.min", "must be below operating_c.max");
   if (!(spec_.charge_min_c < spec_.charge_max_c))
@@ -44,12 +51,28 @@ double TemperatureBehaviour::capacity_factor(double temp_c) const {
   return a.factor + (b.factor - a.factor) * (temp_c - a.temp_c) / (b.temp_c - a.temp_c);
 }
 
+namespace {
+double law_acceleration(AgeingLaw law, double activation_energy_j_per_mol,
+                        double halving_interval_k, double reference_temp_c, double temp_c) {
+  if (law == AgeingLaw::Halving) return std::exp2((temp_c - reference_temp_c) / halving_interval_k);
+  const double t = temp_c + TemperatureBehaviour::kZeroCelsiusK;
+  const double t_ref = reference_temp_c + TemperatureBehaviour::kZeroCelsiusK;
+  return std::exp(activation_energy_j_per_mol / TemperatureBehaviour::kGasConstant *
+                  (1.0 / t_ref - 1.0 / t));
+}
+}  // namespace
+
 double TemperatureBehaviour::raw_acceleration(double temp_c) const {
-  if (spec_.law == AgeingLaw::Halving)
-    return std::exp2((temp_c - spec_.reference_temp_c) / spec_.halving_interval_k);
-  const double t = temp_c + kZeroCelsiusK;
-  const double t_ref = spec_.reference_temp_c + kZeroCelsiusK;
-  return std::exp(spec_.activation_energy_j_per_mol / kGasConstant * (1.0 / t_ref - 1.0 / t));
+  return law_acceleration(spec_.law, spec_.activation_energy_j_per_mol, spec_.halving_interval_k,
+                          spec_.reference_temp_c, temp_c);
+}
+
+double TemperatureBehaviour::calendar_acceleration(double temp_c) const {
+  if (!spec_.calendar_law) return ageing_acceleration(temp_c);
+  const double a =
+      law_acceleration(*spec_.calendar_law, spec_.calendar_activation_energy_j_per_mol,
+                       spec_.calendar_halving_interval_k, spec_.reference_temp_c, temp_c);
+  return a < 1.0 ? 1.0 : a;
 }
 
 double TemperatureBehaviour::ageing_acceleration(double temp_c) const {

@@ -234,7 +234,14 @@ class Search {
   }
 
   double calendar_damage(std::size_t p) const {
-    return evaluators_[0][p]->acceleration().calendar_damage_per_year;
+    // The bound needs a floor on a year's calendar damage: with an SOC stress the yearly
+    // damage is the SOC-free figure times multipliers no lower than the least over [0, 1].
+    const double per_year = evaluators_[0][p]->acceleration().calendar_damage_per_year;
+    const ChemistryProfile& profile = study_.profiles[p];
+    if (!profile.calendar_soc_stress) return per_year;
+    const double least = std::min(profile.calendar_soc_stress->multiplier(0.0),
+                                  profile.calendar_soc_stress->multiplier(1.0));
+    return per_year * least;
   }
 
   double elapsed() const { return std::chrono::duration<double>(Clock::now() - start_).count(); }

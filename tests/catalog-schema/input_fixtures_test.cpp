@@ -83,7 +83,8 @@ void numeric_fields(const YAML::Node& node, const std::string& path,
   }
 }
 
-TEST_CASE("the shipped profiles load and give a source for every number", "[catalog][profiles]") {
+TEST_CASE("the shipped profiles load and give a source and a confidence for every number",
+          "[catalog][profiles]") {
   const fs::path dir = source_path("catalog-schema/profiles");
   std::size_t count = 0;
   if (fs::is_directory(dir)) {
@@ -102,7 +103,30 @@ TEST_CASE("the shipped profiles load and give a source for every number", "[cata
       for (const std::string& field : fields) {
         INFO("field " << field);
         CHECK(source_covers(loaded.sources, field));
+        // Every number carries a confidence label, and the label claims no more than the
+        // source text admits (the project's sourcing rule): "sourced" only for text that is
+        // neither recalled nor chosen, "from-memory" and "illustrative" only where the text
+        // says so.
+        const std::optional<ValueConfidence> label = confidence_of(loaded, field);
+        REQUIRE(label);
+        std::string source;
+        for (std::size_t i = field.size() + 1; i-- > 0;) {
+          if (i < field.size() && field[i] != '.' && field[i] != '[') continue;
+          const auto it = loaded.sources.find(field.substr(0, i));
+          if (it != loaded.sources.end()) {
+            source = it->second;
+            break;
+          }
+        }
+        INFO("label " << confidence_name(*label) << ", source: " << source);
+        const bool recalled = source.find("from memory") != std::string::npos;
+        const bool chosen = source.find("illustrative") != std::string::npos;
+        if (*label == ValueConfidence::Sourced) CHECK_FALSE((recalled || chosen));
+        if (*label == ValueConfidence::FromMemory) CHECK(recalled);
+        if (*label == ValueConfidence::Illustrative) CHECK(chosen);
       }
+      // The shipped curves keep lifetime throughput from falling toward shallow DoD.
+      CHECK(loaded.warnings.empty());
     }
   }
   // The catalogue promises at least six chemistries.

@@ -34,6 +34,104 @@ std::string profile_error(const std::string& text, const std::string& line_needl
       .message();
 }
 
+TEST_CASE("a cycle-life curve whose throughput falls toward shallow DoD loads with a warning",
+          "[catalog][profile]") {
+  // Lifetime throughput in full cycles, cycles x DoD: 15000 x 0.2 = 3000 against 6000 x 0.8 =
+  // 4800 would have shallow cycles wear more per kWh than deep ones, which no published curve
+  // shows (constant Ah-throughput bound, common practice; docs/method.md 5). The loader warns at
+  // the shallow point and still loads.
+  std::vector<std::string> seen;
+  const WarningSink previous =
+      set_warning_sink([&](const std::string& text) { seen.push_back(text); });
+  const std::string base = full_profile();
+  const std::size_t from = base.find("    cycle_life:");
+  const std::size_t to = base.find("    calendar_life_years:");
+  REQUIRE(from != std::string::npos);
+  REQUIRE(to != std::string::npos);
+  const std::string text = base.substr(0, from) +
+                           "    cycle_life:\n"
+                           "      - {dod: 0.2, cycles: 15000}\n"
+                           "      - {dod: 0.8, cycles: 6000}\n"
+                           "      - {dod: 1.0, cycles: 4000}\n" +
+                           base.substr(to);
+  const LoadedProfile loaded = load_text(text);
+  REQUIRE(loaded.warnings.size() == 1);
+  CHECK(seen == loaded.warnings);
+  const std::string& w = loaded.warnings[0];
+  CHECK_THAT(w, Catch::StartsWith(std::string(kName) + ":" +
+                                  std::to_string(line_of(text, "cycles: 15000")) + ":"));
+  CHECK_THAT(w, Catch::Contains("profile.ageing.cycle_life[0].cycles"));
+  CHECK_THAT(w, Catch::Contains("3000 full cycles"));
+  CHECK_THAT(w, Catch::Contains("4800 at DoD 0.8"));
+  CHECK_THAT(w, Catch::Contains("more per kWh"));
+  // Constant throughput (4800 / DoD) is the bound itself: no warning.
+  seen.clear();
+  const std::string flat = replace_once(text, "cycles: 15000", "cycles: 24000");
+  CHECK(load_text(flat).warnings.empty());
+  CHECK(seen.empty());
+  set_warning_sink(previous);
+}
+
+TEST_CASE("an absorption stage with a full-charge SOC of 1 is refused at that field",
+          "[catalog][profile][bad]") {
+  // A tapered charge approaches full charge only asymptotically (docs/method.md 4, step 3), so
+  // a full charge at SOC 1 would never count and every day would add partial-charge damage.
+  std::string text = read_text(fixture_path("lead-test.yaml"));
+  text = replace_once(text, "    max_charge_c_rate: 0.2\n",
+                      "    max_charge_c_rate: 0.2\n    absorption_soc: 0.8\n");
+  text = replace_once(text, "      grace_days: 10\n",
+                      "      full_charge_soc: 1.0\n      grace_days: 10\n");
+  const std::string message =
+      profile_error(text, "full_charge_soc: 1.0", "profile.ageing.partial_charge.full_charge_soc");
+  CHECK_THAT(message, Catch::Contains("asymptotically"));
+}
+
+TEST_CASE("confidence labels cover fields and take only the three words", "[catalog][profile]") {
+  const std::string text = full_profile() +
+                           "  confidence:\n"
+                           "    cell: from-memory\n"
+                           "    cell.nominal_v: sourced\n"
+                           "    costs: illustrative\n";
+  const LoadedProfile loaded = load_text(text);
+  CHECK(confidence_of(loaded, "cell.nominal_v") == ValueConfidence::Sourced);
+  CHECK(confidence_of(loaded, "cell.capacity_ah") == ValueConfidence::FromMemory);
+  CHECK(confidence_of(loaded, "costs.capital_per_kwh") == ValueConfidence::Illustrative);
+  CHECK_FALSE(confidence_of(loaded, "ageing.calendar_life_years"));
+  CHECK(std::string(confidence_name(ValueConfidence::FromMemory)) == "from-memory");
+  profile_error(replace_once(text, "costs: illustrative", "costs: guessed"), "costs: guessed",
+                "profile.confidence.costs");
+  profile_error(replace_once(text, "cell.nominal_v: sourced", "cell.nominal_volts: sourced"),
+                "cell.nominal_volts: sourced", "profile.confidence.cell.nominal_volts");
+}
+
+TEST_CASE("a profile may give calendar ageing its own law and an SOC stress",
+          "[catalog][profile]") {
+  std::string text = replace_once(full_profile(), "    activation_energy_j_per_mol: 50000\n",
+                                  "    activation_energy_j_per_mol: 50000\n"
+                                  "    calendar_law: {life_halving_interval_k: 8}\n");
+  text = replace_once(text, "    calendar_life_years: 15\n",
+                      "    calendar_life_years: 15\n"
+                      "    calendar_soc_stress: {soc_exponent: 1.04, reference_soc: 0.5}\n");
+  text = replace_once(text, "    self_discharge_per_month: 0.03\n",
+                      "    self_discharge_per_month: 0.03\n    absorption_soc: 0.9\n");
+  const ChemistryProfile p = load_text(text).profile;
+  REQUIRE(p.temperature.spec().calendar_law);
+  CHECK(*p.temperature.spec().calendar_law == AgeingLaw::Halving);
+  CHECK(p.temperature.spec().calendar_halving_interval_k == 8);
+  REQUIRE(p.calendar_soc_stress);
+  CHECK(p.calendar_soc_stress->soc_exponent == 1.04);
+  CHECK(p.calendar_soc_stress->reference_soc == 0.5);
+  REQUIRE(p.absorption_soc);
+  CHECK(*p.absorption_soc == 0.9);
+  // Both laws in the calendar block is a mistake the schema names.
+  const std::string both = replace_once(text, "calendar_law: {life_halving_interval_k: 8}",
+                                        "calendar_law: {life_halving_interval_k: 8, "
+                                        "activation_energy_j_per_mol: 40000}");
+  const std::string message = profile_error(
+      both, "calendar_law:", "profile.temperature.calendar_law.life_halving_interval_k");
+  CHECK(message.find("exactly one") != std::string::npos);
+}
+
 TEST_CASE("a complete profile loads every field into the model", "[catalog][profile]") {
   const LoadedProfile loaded = load_profile_details_file(fixture_path("lfp-test.yaml"));
   const ChemistryProfile& p = loaded.profile;
