@@ -194,6 +194,7 @@ LoadedStudy build_study(const YamlDocument& doc, const std::string& base_dir) {
         open_referenced(doc, s["soc_log"], "study.soc_log", loaded.soc_log_path, "SOC log");
     loaded.soc_log = read_soc_series(in, loaded.soc_log_path);
   }
+  loaded.variations = read_variations(doc, loaded.study);
   return loaded;
 }
 

@@ -28,6 +28,7 @@
 #include "catalog-schema/site_loader.h"
 #include "catalog-schema/soc_series.h"
 #include "catalog-schema/study_case.h"
+#include "catalog-schema/variations_loader.h"
 
 namespace stowage {
 
@@ -40,6 +41,7 @@ struct LoadedStudy {
   std::vector<LoadedProfile> profiles;     // same order; currency and sources of each
   std::string soc_log_path;                // study.soc_log as opened; empty when not given
   std::optional<SocSeries> soc_log;        // the logged SOC series, when study.soc_log is given
+  std::vector<Variation> variations;       // study.variations (variations_loader.h), in order
 };
 
 LoadedStudy load_study_details(std::istream& in, const std::string& source_name,
