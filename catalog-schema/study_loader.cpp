@@ -290,6 +290,7 @@ LoadedStudy build_study(const YamlDocument& doc, const std::string& base_dir) {
     loaded.notes.insert(loaded.notes.end(), loaded.soc_log->notes.begin(),
                         loaded.soc_log->notes.end());
   }
+  loaded.variations = read_variations(doc, loaded.study);
   return loaded;
 }
 

@@ -37,6 +37,7 @@
 #include "catalog-schema/site_loader.h"
 #include "catalog-schema/soc_series.h"
 #include "catalog-schema/study_case.h"
+#include "catalog-schema/variations_loader.h"
 
 namespace stowage {
 
@@ -50,6 +51,7 @@ struct LoadedStudy {
   std::string soc_log_path;                // study.soc_log as opened; empty when not given
   std::optional<SocSeries> soc_log;        // the logged SOC series, when study.soc_log is given
   std::vector<InputNote> notes;            // what the readers accepted but ignored, for display
+  std::vector<Variation> variations;       // study.variations (variations_loader.h), in order
 };
 
 LoadedStudy load_study_details(std::istream& in, const std::string& source_name,

@@ -1,0 +1,235 @@
+// SPDX-License-Identifier: MIT
+// The study.variations block and --vary: each form read as written, defaults taken from the
+// study, every refused value reported at its file, line and field.
+#include "catalog-schema/variations_loader.h"
+
+#include <algorithm>
+#include <catch2/catch.hpp>
+#include <sstream>
+
+#include "catalog-schema/parameter_paths.h"
+#include "catalog-schema/study_loader.h"
+#include "catalog_test_support.h"
+#include "model/invalid_value.h"
+
+namespace stowage {
+namespace {
+
+using testing::expect_input_error;
+using testing::fixture_path;
+using testing::line_of;
+using testing::read_text;
+
+const std::string kFixtures = testing::source_path("tests/catalog-schema/fixtures");
+const std::string kName = "variations.yaml";
+
+LoadedStudy load_with(const std::string& block) {
+  const std::string text = read_text(fixture_path("study.yaml")) + block;
+  std::istringstream in(text);
+  return load_study_details(in, kName, kFixtures);
+}
+
+void expect_refused(const std::string& block, const std::string& needle, const std::string& field,
+                    const std::string& words) {
+  const std::string text = read_text(fixture_path("study.yaml")) + block;
+  const InputError e =
+      expect_input_error([&] { load_with(block); }, kName, line_of(text, needle), field);
+  CHECK_THAT(e.message(), Catch::Matchers::Contains(words));
+}
+
+TEST_CASE("a study without variations has none", "[catalog][variations]") {
+  CHECK(load_study_details_file(fixture_path("study.yaml")).variations.empty());
+}
+
+TEST_CASE("the three forms and the distributions are read as written", "[catalog][variations]") {
+  const LoadedStudy loaded = load_with(
+      "  variations:\n"
+      "    - path: profiles.lfp-test.costs.capital_per_kwh\n"
+      "      label: LFP price\n"
+      "      low: 300\n"
+      "      high: 500\n"
+      "      unit: EUR/kWh\n"
+      "      distribution: {kind: triangular}\n"
+      "      source: an assumed range\n"
+      "    - path: economics.real_discount_rate\n"
+      "      range: {from: 0.02, to: 0.10, steps: 5}\n"
+      "      distribution: {kind: normal, sd: 0.02}\n"
+      "    - path: site.hourly.temp_c_offset\n"
+      "      values: [4, -4, 0]\n"
+      "      distribution: {kind: discrete, weights: [1, 1, 2]}\n"
+      "    - path: search.max_strings_parallel\n"
+      "      values: [8, 12, 16]\n"
+      "    - path: profiles.lead-test.ageing.cycle_life_scale\n"
+      "      low: 0.5\n"
+      "      high: 1.5\n"
+      "      distribution: {kind: lognormal, log_sd: 0.2}\n");
+  REQUIRE(loaded.variations.size() == 5);
+  const Variation& price = loaded.variations[0];
+  CHECK(price.label == "LFP price");
+  CHECK(price.unit == "EUR/kWh");
+  CHECK(price.low == 300);
+  CHECK(price.high == 500);
+  CHECK(price.base == 400);  // lfp-test.yaml's capital_per_kwh
+  CHECK(price.points.empty());
+  CHECK(price.source == "an assumed range");
+  REQUIRE(price.distribution);
+  CHECK(price.distribution->kind == DistributionKind::Triangular);
+  CHECK(price.distribution->mode == 400);
+  // The entry's position: the line after "variations:", which follows the fixture's last line.
+  const std::string fixture = read_text(fixture_path("study.yaml"));
+  CHECK(price.at.file == kName);
+  CHECK(price.at.line == static_cast<int>(std::count(fixture.begin(), fixture.end(), '\n')) + 2);
+
+  const Variation& rate = loaded.variations[1];
+  CHECK(rate.points == std::vector<double>{0.02, 0.04, 0.06, 0.08, 0.10});
+  CHECK(rate.points[2] == Approx(0.06).epsilon(1e-15));
+  CHECK(rate.base == 0.06);
+  CHECK(rate.distribution->mean == 0.06);
+  CHECK(rate.distribution->sd == 0.02);
+  // Truncated to the path's range [0, 1).
+  CHECK(rate.distribution->lower == 0);
+  CHECK(rate.distribution->upper == 1);
+  CHECK(rate.distribution->upper_open);
+  CHECK_FALSE(rate.distribution->lower_open);
+
+  const Variation& offset = loaded.variations[2];
+  CHECK(offset.points == std::vector<double>{-4, 0, 4});
+  CHECK(offset.low == -4);
+  CHECK(offset.high == 4);
+  CHECK(offset.base == 0);  // an offset's base
+  CHECK(offset.distribution->values == std::vector<double>{-4, 0, 4});
+  // weights [1, 1, 2] belong to the values as written: 4, -4, 0.
+  CHECK(offset.distribution->probabilities == std::vector<double>{0.25, 0.5, 0.25});
+
+  CHECK(loaded.variations[3].whole_number);
+  CHECK(loaded.variations[3].base == 12);
+  CHECK_FALSE(loaded.variations[3].distribution);
+
+  const Variation& scale = loaded.variations[4];
+  CHECK(scale.base == 1);
+  CHECK(scale.distribution->median == 1);
+  CHECK(scale.distribution->lower == 0);
+  CHECK(scale.distribution->lower_open);
+}
+
+TEST_CASE("a bad variation is reported at its file, line and field", "[catalog][variations]") {
+  expect_refused(
+      "  variations:\n    - path: profiles.lfp-test.costs.capital_per_kwhh\n"
+      "      low: 1\n      high: 2\n",
+      "capital_per_kwhh", "study.variations[0].path", "did you mean");
+  expect_refused(
+      "  variations:\n    - path: economics.real_discount_rate\n"
+      "      low: 0.08\n      high: 0.04\n",
+      "high: 0.04", "study.variations[0].high", "must exceed low");
+  expect_refused(
+      "  variations:\n    - path: profiles.lfp-test.costs.capital_per_kwh\n"
+      "      low: -10\n      high: 500\n",
+      "low: -10", "study.variations[0].low", "must lie in");
+  expect_refused(
+      "  variations:\n    - path: economics.real_discount_rate\n"
+      "      low: 0.02\n      high: 0.08\n      values: [0.03, 0.05]\n",
+      "- path: economics", "study.variations[0]", "only one of");
+  expect_refused(
+      "  variations:\n    - path: economics.real_discount_rate\n"
+      "      low: 0.07\n      high: 0.09\n",
+      "- path: economics", "study.variations[0].base", "must lie within");
+  expect_refused(
+      "  variations:\n    - path: profiles.lfp-test.costs.capital_per_kwh\n"
+      "      low: 300\n      high: 500\n      unit: USD/kWh\n",
+      "unit: USD", "study.variations[0].unit", "EUR/kWh");
+  expect_refused(
+      "  variations:\n    - path: economics.real_discount_rate\n"
+      "      low: 0.02\n      high: 0.08\n      distribution: {kind: discrete}\n",
+      "distribution:", "study.variations[0].distribution.kind", "draws from values");
+  expect_refused(
+      "  variations:\n    - path: economics.real_discount_rate\n"
+      "      low: 0.02\n      high: 0.08\n      distribution: {kind: normal}\n",
+      "distribution:", "study.variations[0].distribution.sd", "is required");
+  expect_refused(
+      "  variations:\n    - path: economics.real_discount_rate\n"
+      "      low: 0.02\n      high: 0.08\n"
+      "      distribution: {kind: uniform, mode: 0.05}\n",
+      "distribution:", "study.variations[0].distribution.mode", "triangular only");
+  expect_refused(
+      "  variations:\n    - path: economics.project_years\n"
+      "      low: 10\n      high: 30\n      distribution: {kind: uniform}\n",
+      "distribution:", "study.variations[0].distribution.kind", "whole numbers");
+  expect_refused(
+      "  variations:\n    - path: economics.project_years\n"
+      "      range: {from: 10, to: 30, steps: 4}\n",
+      "range:", "study.variations[0].range.steps", "whole numbers");
+  expect_refused(
+      "  variations:\n    - path: site.hourly.temp_c_offset\n"
+      "      values: [-2, 2]\n      distribution: {kind: discrete, weights: [1]}\n",
+      "distribution:", "study.variations[0].distribution.weights", "one weight");
+  expect_refused(
+      "  variations:\n    - path: economics.real_discount_rate\n"
+      "      low: 0.02\n      high: 0.08\n"
+      "    - path: economics.real_discount_rate\n      values: [0.03, 0.05, 0.06]\n",
+      "- path: economics.real_discount_rate\n      values", "study.variations[1].path",
+      "already varied");
+  // The schema: an unknown key inside a distribution.
+  expect_refused(
+      "  variations:\n    - path: economics.real_discount_rate\n"
+      "      low: 0.02\n      high: 0.08\n"
+      "      distribution: {kind: normal, sd: 0.01, spread: 2}\n",
+      "distribution:", "study.variations[0].distribution.spread", "");
+}
+
+TEST_CASE("--vary PATH=LOW:HIGH gives a variation or names the option", "[catalog][variations]") {
+  const StudyCase study = load_study_file(fixture_path("study.yaml"));
+  const Variation v = parse_vary_option("economics.real_discount_rate=0.03:0.09", study);
+  CHECK(v.path == "economics.real_discount_rate");
+  CHECK(v.low == 0.03);
+  CHECK(v.high == 0.09);
+  CHECK(v.base == 0.06);
+  CHECK(v.unit == "fraction per year");
+  CHECK_FALSE(v.distribution);
+  const auto refused = [&](const std::string& text, const std::string& words) {
+    try {
+      parse_vary_option(text, study);
+      FAIL("accepted " << text);
+    } catch (const InvalidValue& e) {
+      CHECK(e.field() == "--vary");
+      CHECK_THAT(e.rule(), Catch::Matchers::Contains(words));
+    }
+  };
+  refused("economics.real_discount_rate", "PATH=LOW:HIGH");
+  refused("economics.real_discount_rate=0.03", "two numbers");
+  refused("economics.real_discount_rate=0.09:0.03", "must be below");
+  refused("economics.real_discount_rate=0.07:0.09", "outside");
+  refused("economics.real_discount_rate=0.03:1.5", "must lie in");
+  refused("economics.real_discount_rat=0.03:0.09", "did you mean");
+  // A command-line entry replaces the file's entry for the same path.
+  const std::vector<Variation> merged =
+      merge_variations({v}, {parse_vary_option("economics.real_discount_rate=0."
+                                               "01:0.1",
+                                               study)});
+  REQUIRE(merged.size() == 1);
+  CHECK(merged[0].low == 0.01);
+}
+
+TEST_CASE("every parameter path is listed in docs/input-format.md", "[catalog][variations][docs]") {
+  const std::string docs = read_text(testing::source_path("docs/input-format.md"));
+  const StudyCase study = load_study_file(fixture_path("study.yaml"));
+  for (const ParameterInfo& info : parameter_paths(study)) {
+    std::string path = info.path;
+    const std::string prefix = "profiles.lfp-test.";
+    const std::string lead = "profiles.lead-test.";
+    if (path.rfind(lead, 0) == 0) continue;  // the same keys as lfp-test
+    if (path.rfind(prefix, 0) == 0) {
+      const std::string key = path.substr(prefix.size());
+      // Listed as profiles.<id>.<group>.<first> then .<more> of the same group.
+      const bool full = docs.find("`profiles.<id>." + key + "`") != std::string::npos;
+      const bool tail = docs.find("`." + key.substr(key.find('.') + 1) + "`") != std::string::npos;
+      INFO(path);
+      CHECK((full || tail));
+    } else {
+      INFO(path);
+      CHECK(docs.find("`" + path + "`") != std::string::npos);
+    }
+  }
+}
+
+}  // namespace
+}  // namespace stowage
