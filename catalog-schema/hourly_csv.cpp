@@ -155,17 +155,12 @@ HourlySeries read_hourly_csv(std::istream& in, const std::string& source_name) {
                                        kMaxPlausibleTempC, kTempRangeHint));
     if (time) {
       const CsvField& cell = row.fields[*time];
-      std::string problem;
-      const std::optional<TimeValue> t = parse_time(cell.text, problem);
-      if (!t) {
-        throw table.error(row.line, cell.column, "time",
-                          "'" + printable_input(cell.text) + "': " + problem);
-      }
+      const TimeValue t = time_cell(table, row, *time);
       if (!previous_time) {
         // Hour 0 of the format is 1 January 00:00; a series that starts elsewhere would be
         // read a season out of place.
         const bool starts_the_year =
-            t->is_date ? t->month == 1 && t->day == 1 && t->clock_hours == 0 : t->hours == 0;
+            t.is_date ? t.month == 1 && t.day == 1 && t.clock_hours == 0 : t.hours == 0;
         if (!starts_the_year) {
           throw table.error(row.line, cell.column, "time",
                             "the first row is '" + printable_input(cell.text) +
@@ -173,23 +168,23 @@ HourlySeries read_hourly_csv(std::istream& in, const std::string& source_name) {
                                 "0): start the file there");
         }
       } else {
-        if (t->is_date != previous_time->is_date) {
+        if (t.is_date != previous_time->is_date) {
           throw table.error(row.line, cell.column, "time",
                             "'" + printable_input(cell.text) +
                                 "' is not in the form of the previous row's time; give every "
                                 "time as hours or every time as a date-time");
         }
-        if (!(t->hours > previous_time->hours)) {
+        if (!(t.hours > previous_time->hours)) {
           throw table.error(row.line, cell.column, "time",
                             "times must increase from row to row: '" + printable_input(cell.text) +
                                 "' is " +
-                                (t->hours == previous_time->hours ? "the same as" : "before") +
+                                (t.hours == previous_time->hours ? "the same as" : "before") +
                                 " the previous row's");
         }
-        if (!hourly_step(*previous_time, *t)) {
+        if (!hourly_step(*previous_time, t)) {
           throw table.error(row.line, cell.column, "time",
                             "the rows must be one hour apart, this one is " +
-                                duration_text(t->hours - previous_time->hours) +
+                                duration_text(t.hours - previous_time->hours) +
                                 " after the previous row (the hourly CSV holds hourly means)");
         }
       }

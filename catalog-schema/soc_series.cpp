@@ -112,22 +112,17 @@ SocSeries read_soc_series(std::istream& in, const std::string& source_name) {
                                          kMaxPlausibleTempC, kTempRangeHint));
     if (time) {
       const CsvField& cell = row.fields[*time];
-      std::string problem;
-      const std::optional<TimeValue> t = parse_time(cell.text, problem);
-      if (!t) {
-        throw table.error(row.line, cell.column, "time",
-                          "'" + printable_input(cell.text) + "': " + problem);
-      }
-      if (!dates) dates = t->is_date;
-      if (*dates != t->is_date) {
+      const TimeValue t = time_cell(table, row, *time);
+      if (!dates) dates = t.is_date;
+      if (*dates != t.is_date) {
         throw table.error(row.line, cell.column, "time",
                           "'" + printable_input(cell.text) + "' is " +
-                              (t->is_date ? "a date-time" : "a number of hours") +
+                              (t.is_date ? "a date-time" : "a number of hours") +
                               " but the first row's time is " +
                               (*dates ? "a date-time" : "a number of hours") +
                               "; give every time in one form");
       }
-      const double hours = t->hours;
+      const double hours = t.hours;
       if (series.time_hours.empty()) {
         first_time = hours;
       } else {

@@ -9,6 +9,7 @@
 #include "catalog-schema/input_error.h"
 #include "catalog-schema/input_file.h"
 #include "catalog-schema/input_limits.h"
+#include "catalog-schema/referenced_input.h"
 #include "catalog-schema/schema_validator.h"
 #include "catalog-schema/yaml_document.h"
 #include "model/bank.h"
@@ -22,30 +23,6 @@ double number(const YAML::Node& node) { return *scalar_number(node); }
 
 std::string where(const SourcePosition& p) {
   return p.file + ":" + std::to_string(p.line) + ":" + std::to_string(p.column);
-}
-
-Economics read_economics(const YamlDocument& doc, const YAML::Node& e) {
-  Economics economics;
-  economics.project_years =
-      plausible_count(doc, e["project_years"], "study.economics.project_years", 100, " years");
-  economics.real_discount_rate = number(e["real_discount_rate"]);
-  economics.currency = e["currency"].Scalar();
-  try {
-    economics.validate();
-  } catch (const InvalidValue& error) {
-    throw doc.error_at_path("study.economics." + error.field(), error.rule());
-  }
-  return economics;
-}
-
-std::ifstream open_referenced(const YamlDocument& doc, const YAML::Node& node,
-                              const std::string& field, const std::string& path,
-                              const std::string& what, std::uintmax_t max_bytes) {
-  std::ifstream in;
-  std::string reason;
-  if (!open_input(path, in, reason, max_bytes))
-    throw doc.error_at(node, field, what + ": " + reason);
-  return in;
 }
 
 void read_profiles(const YamlDocument& doc, const std::string& base_dir, LoadedStudy& loaded) {
@@ -267,7 +244,7 @@ LoadedStudy build_study(const YamlDocument& doc, const std::string& base_dir) {
   LoadedStudy loaded;
   loaded.path = doc.source();
   loaded.study.title = s["title"].Scalar();
-  loaded.study.economics = read_economics(doc, s["economics"]);
+  loaded.study.economics = read_economics(doc, s["economics"], "study.economics");
 
   loaded.site_path = resolve_relative(base_dir, s["site"].Scalar());
   {

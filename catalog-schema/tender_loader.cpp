@@ -8,6 +8,7 @@
 #include "catalog-schema/input_file.h"
 #include "catalog-schema/input_limits.h"
 #include "catalog-schema/profile_loader.h"
+#include "catalog-schema/referenced_input.h"
 #include "catalog-schema/schema_validator.h"
 #include "catalog-schema/site_loader.h"
 #include "catalog-schema/yaml_document.h"
@@ -24,31 +25,7 @@ std::string indexed(const std::string& base, std::size_t i) {
   return base + "[" + std::to_string(i) + "]";
 }
 
-std::ifstream open_referenced(const YamlDocument& doc, const YAML::Node& node,
-                              const std::string& field, const std::string& path,
-                              const std::string& what) {
-  std::ifstream in;
-  std::string reason;
-  if (!open_input(path, in, reason, kMaxYamlFileBytes))
-    throw doc.error_at(node, field, what + ": " + reason);
-  return in;
-}
-
-Economics read_economics(const YamlDocument& doc, const YAML::Node& e) {
-  Economics economics;
-  economics.project_years = static_cast<int>(number(e["project_years"]));  // schema: 1..100
-  economics.real_discount_rate = number(e["real_discount_rate"]);
-  economics.currency = e["currency"].Scalar();
-  try {
-    economics.validate();
-  } catch (const InvalidValue& error) {
-    throw doc.error_at_path("tender.economics." + error.field(), error.rule());
-  }
-  return economics;
-}
-
-Bid read_bid(const std::string& path, const TenderCase& tender) {
-  std::ifstream in = open_input_or_throw(path, "bid", kMaxYamlFileBytes);
+Bid read_bid(std::istream& in, const std::string& path, const TenderCase& tender) {
   const YamlDocument doc = parse_yaml(in, path);
   SchemaValidator::embedded("bid").enforce(doc);
   const YAML::Node b = doc.root()["bid"];
@@ -56,8 +33,8 @@ Bid read_bid(const std::string& path, const TenderCase& tender) {
   bid.path = path;
   bid.label = b["label"].Scalar();
   bid.profile_path = resolve_relative(parent_directory(path), b["profile"].Scalar());
-  std::ifstream profile_in =
-      open_referenced(doc, b["profile"], "bid.profile", bid.profile_path, "profile file");
+  std::ifstream profile_in = open_referenced(doc, b["profile"], "bid.profile", bid.profile_path,
+                                             "profile file", kMaxYamlFileBytes);
   LoadedProfile loaded = load_profile_details(profile_in, bid.profile_path);
   if (loaded.currency != tender.economics.currency) {
     throw doc.error_at(b["profile"], "bid.profile",
@@ -132,10 +109,11 @@ TenderCase load_tender_file(const std::string& path) {
   TenderCase tender;
   tender.path = path;
   tender.title = t["title"].Scalar();
-  tender.economics = read_economics(doc, t["economics"]);
+  tender.economics = read_economics(doc, t["economics"], "tender.economics");
   {
     const std::string site_path = resolve_relative(base, t["site"].Scalar());
-    std::ifstream site_in = open_referenced(doc, t["site"], "tender.site", site_path, "site file");
+    std::ifstream site_in =
+        open_referenced(doc, t["site"], "tender.site", site_path, "site file", kMaxYamlFileBytes);
     tender.site = load_site_details(site_in, site_path, parent_directory(site_path)).site;
   }
   if (const YAML::Node r = t["requirements"]) {
@@ -160,12 +138,9 @@ TenderCase load_tender_file(const std::string& path) {
   const YAML::Node list = t["bids"];
   for (std::size_t i = 0; i < list.size(); ++i) {
     const std::string bid_path = resolve_relative(base, list[i].Scalar());
-    std::ifstream probe;
-    std::string reason;
-    if (!open_input(bid_path, probe, reason, kMaxYamlFileBytes)) {
-      throw doc.error_at(list[i], indexed("tender.bids", i), "bid file: " + reason);
-    }
-    Bid bid = read_bid(bid_path, tender);
+    std::ifstream bid_in = open_referenced(doc, list[i], indexed("tender.bids", i), bid_path,
+                                           "bid file", kMaxYamlFileBytes);
+    Bid bid = read_bid(bid_in, bid_path, tender);
     for (const Bid& earlier : tender.bids) {
       if (earlier.label == bid.label) {
         throw doc.error_at(list[i], indexed("tender.bids", i),

@@ -4,6 +4,7 @@
 #include <cmath>
 
 #include "catalog-schema/decimal_text.h"
+#include "catalog-schema/input_error.h"
 
 namespace stowage {
 namespace {
@@ -141,6 +142,17 @@ std::string duration_text(double hours) {
   if (std::fabs(seconds) < 60) return number_text(seconds) + " s";
   if (std::fabs(seconds) < 3600) return number_text(seconds / 60.0) + " min";
   return number_text(hours) + " h";
+}
+
+TimeValue time_cell(const CsvTable& table, const CsvRow& row, std::size_t column) {
+  const CsvField& cell = row.fields[column];
+  std::string problem;
+  const std::optional<TimeValue> t = parse_time(cell.text, problem);
+  if (!t) {
+    throw table.error(row.line, cell.column, "time",
+                      "'" + printable_input(cell.text) + "': " + problem);
+  }
+  return *t;
 }
 
 }  // namespace stowage

@@ -10,6 +10,8 @@
 #include <optional>
 #include <string>
 
+#include "catalog-schema/csv_table.h"
+
 namespace stowage {
 
 struct TimeValue {
@@ -23,6 +25,10 @@ struct TimeValue {
 // The value of one field; nullopt when it is neither a finite number nor a valid ISO 8601
 // date-time; `problem` then says what is wrong ("no 30 February", "not a time").
 std::optional<TimeValue> parse_time(const std::string& text, std::string& problem);
+
+// The time in column `column` of `row`; throws InputError at its line and column (field "time")
+// naming the problem when the cell holds no valid time.
+TimeValue time_cell(const CsvTable& table, const CsvRow& row, std::size_t column);
 
 // A step between two samples as messages show it: "1 h", "15 min", "2.5 s".
 std::string duration_text(double hours);
