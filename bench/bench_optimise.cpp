@@ -125,7 +125,7 @@ OptimiseResult timed(const StudyCase& study, SearchMethod method, int threads, b
 double whole_process(const std::string& study_path, const char* method) {
   std::vector<double> times;
   const std::string command = std::string("\"") + STOWAGE_BINARY + "\" optimise \"" + study_path +
-                              "\" --method " + method + " --format json >/dev/null";
+                              "\" --method " + method + " --format json >/dev/null 2>&1";
   for (int i = 0; i < kRuns; ++i) {
     const auto start = std::chrono::steady_clock::now();
     if (std::system(command.c_str()) != 0) return -1;
