@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: MIT
 // `cmake --build build --target bench`: speed figures of the model and the optimiser.
-// `stowage_bench model` runs the model part only, `stowage_bench optimise` the optimiser part.
+// `stowage_bench model [FILTER]` runs the model part only (FILTER: designs whose study path and
+// profile id contain it), `stowage_bench optimise` the optimiser part.
 //
 // Model: for every demo study under studies/ and each of its designs, one 20-year exact
 // evaluation (dispatch, rainflow ageing with leg attribution, calendar ageing, replacements,
@@ -87,7 +88,7 @@ stowage::bench::BareLoopInputs bare_inputs(const stowage::ChemistryProfile& p,
   return in;
 }
 
-void run_model_benchmarks() {
+void run_model_benchmarks(const std::string& only) {
   const std::filesystem::path studies = std::filesystem::path(STOWAGE_SOURCE_DIR) / "studies";
   std::vector<std::filesystem::path> files;
   for (const auto& entry : std::filesystem::directory_iterator(studies))
@@ -106,6 +107,7 @@ void run_model_benchmarks() {
     econ.project_years = 20;
     for (const stowage::ResolvedDesign& d : stowage::resolve_designs(study)) {
       const stowage::ChemistryProfile& p = study.profiles[d.profile_index];
+      if (!only.empty() && (file.string() + " " + p.id).find(only) == std::string::npos) continue;
       stowage::LifecycleEvaluator evaluator(p, study.site, econ);
       const double eval_s = median_time_per_call(
           [&] { g_sink = g_sink + evaluator.evaluate(d.dod_setpoint, d.strings_parallel).npc; });
@@ -123,6 +125,7 @@ void run_model_benchmarks() {
                   hour_steps / bare_s / 1e6, 100 * bare_s / eval_s);
     }
   }
+  if (fractions.empty()) return;
   std::sort(fractions.begin(), fractions.end());
   std::printf(
       "simulator / bare loop over %zu designs: median %.0f %%, range %.0f-%.0f %% "
@@ -136,7 +139,7 @@ void run_model_benchmarks() {
 int main(int argc, char** argv) {
   const std::string part = argc > 1 ? argv[1] : "all";
   if (part != "all" && part != "model" && part != "optimise") {
-    std::fprintf(stderr, "usage: stowage_bench [all|model|optimise]\n");
+    std::fprintf(stderr, "usage: stowage_bench [all|model [FILTER]|optimise]\n");
     return 2;
   }
   // Profile warnings (a demo bid's cycle-life curve, say) are the loader's business, not the
@@ -144,7 +147,8 @@ int main(int argc, char** argv) {
   static int warnings = 0;
   stowage::set_warning_sink([](const std::string&) { ++warnings; });
   std::printf("stowage bench\n");
-  if (part != "optimise") run_model_benchmarks();
+  // A third argument keeps only the model designs whose "study-path profile-id" contains it.
+  if (part != "optimise") run_model_benchmarks(argc > 2 ? argv[2] : "");
   if (part != "model") stowage::bench::run_optimise_benchmarks();
   if (warnings > 0) std::printf("(%d profile warnings while loading, not shown)\n", warnings);
   return 0;

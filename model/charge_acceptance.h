@@ -26,28 +26,54 @@
 
 namespace stowage {
 
+// The law above for one bank: the per-bank quotients are worked out once, so the hourly dispatch
+// loop divides only by the offered current. accepted_charge_ah() is the same law for one call.
+class ChargeAcceptance {
+ public:
+  ChargeAcceptance(double q_ah, double eta_coulomb, double max_charge_amps,
+                   std::optional<double> absorption_soc)
+      : q_ah_(q_ah),
+        eta_(eta_coulomb),
+        q_over_eta_(q_ah / eta_coulomb),
+        eta_over_q_(eta_coulomb / q_ah),
+        max_amps_(max_charge_amps),
+        has_absorption_(absorption_soc.has_value()),
+        a_per_soc_(has_absorption_ ? max_charge_amps / (1.0 - *absorption_soc) : 0.0) {}
+
+  // Terminal charge in Ah accepted over one hour from SOC `soc` at an offered current.
+  double accepted_ah(double soc, double offer_amps) const {
+    const double headroom_ah = std::max(0.0, (1.0 - soc) * q_over_eta_);
+    if (!(offer_amps > 0)) return 0.0;
+    if (!has_absorption_) return std::min(offer_amps, headroom_ah);
+    const double offer = std::min(offer_amps, max_amps_);
+    const double s_cross = 1.0 - offer / a_per_soc_;
+    double s = soc, hours_left = 1.0, ah = 0.0;
+    if (s < s_cross) {
+      const double bulk_hours = (s_cross - s) * q_over_eta_ / offer;
+      if (bulk_hours >= 1.0) return std::min(offer, headroom_ah);
+      ah += offer * bulk_hours;
+      hours_left -= bulk_hours;
+      s = s_cross;
+    }
+    // Constant voltage: 1 - s(t) = (1 - s) exp(-eta_C A t / Q).
+    const double missing_end = (1.0 - s) * std::exp(-eta_over_q_ * a_per_soc_ * hours_left);
+    ah += ((1.0 - missing_end) - s) * q_over_eta_;
+    return std::min(ah, headroom_ah);
+  }
+
+  double q_ah() const { return q_ah_; }
+  double eta_coulomb() const { return eta_; }
+
+ private:
+  double q_ah_, eta_, q_over_eta_, eta_over_q_, max_amps_;
+  bool has_absorption_;
+  double a_per_soc_;
+};
+
 inline double accepted_charge_ah(double soc, double q_ah, double eta_coulomb, double offer_amps,
                                  double max_charge_amps, std::optional<double> absorption_soc) {
-  const double headroom_ah = std::max(0.0, (1.0 - soc) * q_ah / eta_coulomb);
-  if (!(offer_amps > 0)) return 0.0;
-  if (!absorption_soc) return std::min(offer_amps, headroom_ah);
-
-  // Acceptance per unit of missing SOC, A = I_max / (1 - s_abs); the offer meets it at s_x.
-  const double a_per_soc = max_charge_amps / (1.0 - *absorption_soc);
-  const double offer = std::min(offer_amps, max_charge_amps);
-  const double s_cross = 1.0 - offer / a_per_soc;
-  double s = soc, hours_left = 1.0, ah = 0.0;
-  if (s < s_cross) {
-    const double bulk_hours = (s_cross - s) * q_ah / (eta_coulomb * offer);
-    if (bulk_hours >= 1.0) return std::min(offer, headroom_ah);
-    ah += offer * bulk_hours;
-    hours_left -= bulk_hours;
-    s = s_cross;
-  }
-  // Constant voltage: 1 - s(t) = (1 - s) exp(-eta_C A t / Q).
-  const double missing_end = (1.0 - s) * std::exp(-eta_coulomb * a_per_soc * hours_left / q_ah);
-  ah += ((1.0 - missing_end) - s) * q_ah / eta_coulomb;
-  return std::min(ah, headroom_ah);
+  return ChargeAcceptance(q_ah, eta_coulomb, max_charge_amps, absorption_soc)
+      .accepted_ah(soc, offer_amps);
 }
 
 }  // namespace stowage

@@ -15,11 +15,15 @@ HourlyFactors hourly_factors(const ChemistryProfile& profile, const SiteConditio
   f.capacity_factor.resize(n);
   f.can_charge.resize(n);
   f.can_discharge.resize(n);
+  f.balance.resize(n);
   for (std::size_t h = 0; h < n; ++h) {
     const double t = site.temp_c[h];
     f.capacity_factor[h] = profile.temperature.capacity_factor(t);
     f.can_charge[h] = profile.temperature.can_charge(t) ? 1 : 0;
     f.can_discharge[h] = profile.temperature.can_discharge(t) ? 1 : 0;
+    f.balance[h] = hour_balance(site, h);
+    f.demand_kwh += site.load_kw[h];
+    f.source_to_load_kwh += f.balance[h].direct_kwh;
   }
   return f;
 }
@@ -29,6 +33,38 @@ double peukert_capacity_factor(double amps, double rated_amps, double exponent) 
   return std::pow(rated_amps / amps, exponent - 1.0);
 }
 
+namespace {
+
+// The largest current a in [lo, hi] with room(a) >= a, where g(a) = room(a) - a is continuous
+// and decreasing, g(lo) > 0 > g(hi): regula falsi with the Illinois modification (Dowell &
+// Jarratt 1971), which keeps the bracket and converges superlinearly, stopped when the bracket
+// is within a few ulps. Returns the bracket's feasible end, so the bank never gives more than
+// the room it has.
+template <typename Room>
+double largest_feasible_current(Room&& room, double lo, double hi) {
+  double g_lo = room(lo) - lo, g_hi = room(hi) - hi;
+  int kept = 0;  // which end stayed put last time: -1 lo, +1 hi
+  for (int i = 0; i < 200 && hi - lo > 4e-16 * hi; ++i) {
+    double x = hi - g_hi * (hi - lo) / (g_hi - g_lo);
+    if (!(x > lo && x < hi)) x = 0.5 * (lo + hi);
+    const double g = room(x) - x;
+    if (g >= 0) {
+      lo = x;
+      g_lo = g;
+      if (kept == 1) g_hi *= 0.5;
+      kept = 1;
+    } else {
+      hi = x;
+      g_hi = g;
+      if (kept == -1) g_lo *= 0.5;
+      kept = -1;
+    }
+  }
+  return lo;
+}
+
+}  // namespace
+
 YearDispatch dispatch_year(const DispatchInputs& in, DispatchState& state,
                            std::vector<double>& soc_trace) {
   const ChemistryProfile& p = *in.profile;
@@ -37,8 +73,11 @@ YearDispatch dispatch_year(const DispatchInputs& in, DispatchState& state,
   if (in.factors == nullptr) local = hourly_factors(p, site);
   const HourlyFactors& hf = in.factors != nullptr ? *in.factors : local;
 
+  // Loop invariants, with the reciprocals of every divisor of the hourly steps (a product by a
+  // reciprocal rounds within an ulp of the quotient; docs/method.md, dispatch step 4).
   const double rated_ah = in.bank.capacity_ah;
   const double q_ah = rated_ah * in.health;  // charge held between SOC 0 and 1
+  const double inv_q_ah = 1.0 / q_ah;
   const double v_charge = in.bank.cells_series * p.mean_charge_v;
   const double v_discharge = in.bank.cells_series * p.mean_discharge_v;
   const double dod = in.dod_setpoint;
@@ -47,98 +86,94 @@ YearDispatch dispatch_year(const DispatchInputs& in, DispatchState& state,
   const double peukert_k = p.peukert_exponent;
   const double eta_coulomb = p.coulombic_efficiency;
   const double eta_charger = site.charger_efficiency;
+  const double inv_eta_charger = 1.0 / eta_charger;
   const double eta_inverter = site.inverter_efficiency;
+  const double charge_amps_per_kwh = eta_charger * 1000.0 / v_charge;  // surplus -> offer
+  const double kwh_per_charge_amp = v_charge / 1000.0;
+  const double discharge_amps_per_kwh = 1000.0 / (eta_inverter * v_discharge);  // deficit
+  const double kwh_per_discharge_amp = v_discharge / 1000.0;
   // C-rate limits are set on the rated capacity, as chargers and fuses are sized on it.
   const double max_charge_amps = p.max_charge_c_rate * rated_ah;
   const double max_discharge_amps = p.max_discharge_c_rate * rated_ah;
+  const ChargeAcceptance acceptance(q_ah, eta_coulomb, max_charge_amps, p.absorption_soc);
+  const double soc_per_charge_amp = eta_coulomb * inv_q_ah;
   const bool has_backup = site.backup_price_per_kwh.has_value();
   const bool track_partial = p.partial_charge.has_value();
   const double full_soc = track_partial ? p.partial_charge->full_charge_soc : 1.0;
   const double grace_hours =
       track_partial ? p.partial_charge->max_days_without_full_charge * 24.0 : 0.0;
+  const HourBalance* balance = hf.balance.data();
+  const double* capacity_factor = hf.capacity_factor.data();
+  const unsigned char* can_charge = hf.can_charge.data();
+  const unsigned char* can_discharge = hf.can_discharge.data();
+  const double* charge_price = site.charge_price_per_kwh.data();
 
   soc_trace.resize(static_cast<std::size_t>(kHoursPerYear) + 1);
+  double* trace = soc_trace.data();
   double soc = state.soc;
   double hours_since_full = state.hours_since_full_charge;
   double excess_hours = 0;
-  soc_trace[0] = soc;
-  YearDispatch y;
+  trace[0] = soc;
+  // Running sums kept in registers, stored once at the end.
+  double charge_source = 0, charge_cost = 0, charged_terminal = 0, discharged_terminal = 0;
+  double delivered_sum = 0, backup = 0, unserved = 0, curtailed = 0, full_cycles = 0;
 
   for (std::size_t h = 0; h < static_cast<std::size_t>(kHoursPerYear); ++h) {
-    // The window this hour reaches down to 1 - reachable_depth (dod_window.h). Cold narrows it
-    // (the charge below stays in the cells and comes back when the bank warms up); heat never
-    // widens it past the setpoint.
-    const double capacity_factor = hf.capacity_factor[h];
     soc *= keep_per_hour;
-    const HourBalance balance = hour_balance(site, h);
-    const double surplus = balance.surplus_kwh;
-    const double deficit = balance.deficit_kwh;
-    y.demand_kwh += site.load_kw[h];
-    y.source_to_load_kwh += balance.direct_kwh;
+    const double surplus = balance[h].surplus_kwh;
+    const double deficit = balance[h].deficit_kwh;
 
     if (surplus > 0) {
       double to_terminals = 0;  // kWh
-      if (hf.can_charge[h] && soc < 1.0) {
+      if (can_charge[h] && soc < 1.0) {
         // Terminal charge the bank accepts this hour: the offer up to the headroom (given the
         // coulombic loss), tapering above the absorption threshold (charge_acceptance.h).
-        const double offer_amps =
-            std::min(surplus * eta_charger * 1000.0 / v_charge, max_charge_amps);
-        const double amps = accepted_charge_ah(soc, q_ah, eta_coulomb, offer_amps, max_charge_amps,
-                                               p.absorption_soc);
-        to_terminals = amps * v_charge / 1000.0;
-        soc += amps * eta_coulomb / q_ah;
+        const double offer_amps = std::min(surplus * charge_amps_per_kwh, max_charge_amps);
+        const double amps = acceptance.accepted_ah(soc, offer_amps);
+        to_terminals = amps * kwh_per_charge_amp;
+        soc += amps * soc_per_charge_amp;
         if (soc > 1.0) soc = 1.0;
       }
-      const double drawn = to_terminals / eta_charger;
-      y.charged_terminal_kwh += to_terminals;
-      y.charge_source_kwh += drawn;
-      y.charge_cost += drawn * site.charge_price_per_kwh[h];
-      y.curtailed_kwh += surplus - drawn;
+      const double drawn = to_terminals * inv_eta_charger;
+      charged_terminal += to_terminals;
+      charge_source += drawn;
+      charge_cost += drawn * charge_price[h];
+      curtailed += surplus - drawn;
     } else if (deficit > 0) {
       double delivered = 0;
-      if (hf.can_discharge[h]) {
-        const double wanted_amps = deficit / eta_inverter * 1000.0 / v_discharge;
-        // Peukert: at a current I above the rated current the cells reach cut-off after
-        // C (I_r / I)^(k-1) Ah, so the window shrinks by that factor. The charge is not lost:
-        // a lower current later can still draw it.
+      if (can_discharge[h]) {
+        // The window this hour reaches down to 1 - reachable_depth (dod_window.h). Cold
+        // narrows it (the charge below stays in the cells and comes back when the bank warms
+        // up); heat never widens it past the setpoint. Peukert: at a current I above the rated
+        // current the cells reach cut-off after C (I_r / I)^(k-1) Ah, so the window shrinks by
+        // that factor. The charge is not lost: a lower current later can still draw it.
+        const double cf = capacity_factor[h];
         auto room_ah = [&](double amps) {
           const double floor_soc =
-              1.0 - reachable_depth(dod, capacity_factor,
-                                    peukert_capacity_factor(amps, rated_amps, peukert_k));
+              1.0 - reachable_depth(dod, cf, peukert_capacity_factor(amps, rated_amps, peukert_k));
           return (soc - std::max(0.0, floor_soc)) * q_ah;
         };
-        double amps = std::min(wanted_amps, max_discharge_amps);
+        double amps = std::min(deficit * discharge_amps_per_kwh, max_discharge_amps);
         if (room_ah(amps) < amps) {
           // room_ah(a) - a falls as a grows; find where it crosses zero.
           const double slow = room_ah(0.0);
-          if (slow <= rated_amps || peukert_k == 1.0) {
+          if (slow <= rated_amps || peukert_k == 1.0)
             amps = std::max(0.0, std::min(amps, slow));
-          } else {
-            double lo = rated_amps, hi = amps;
-            for (int i = 0; i < 50; ++i) {
-              const double mid = 0.5 * (lo + hi);
-              (room_ah(mid) >= mid ? lo : hi) = mid;
-            }
-            amps = lo;
-          }
+          else
+            amps = largest_feasible_current(room_ah, rated_amps, amps);
         }
         if (amps > 0) {
-          const double out_kwh = amps * v_discharge / 1000.0;
-          const double depth = amps / q_ah;
+          const double out_kwh = amps * kwh_per_discharge_amp;
+          const double depth = amps * inv_q_ah;
           soc -= depth;
           delivered = out_kwh * eta_inverter;
-          y.discharged_terminal_kwh += out_kwh;
-          y.delivered_kwh += delivered;
-          y.equivalent_full_cycles += depth;
+          discharged_terminal += out_kwh;
+          delivered_sum += delivered;
+          full_cycles += depth;
         }
       }
       const double shortfall = deficit - delivered;
-      if (shortfall > 1e-12) {
-        if (has_backup)
-          y.backup_kwh += shortfall;
-        else
-          y.unserved_kwh += shortfall;
-      }
+      if (shortfall > 1e-12) (has_backup ? backup : unserved) += shortfall;
     }
 
     if (track_partial) {
@@ -149,9 +184,21 @@ YearDispatch dispatch_year(const DispatchInputs& in, DispatchState& state,
         if (hours_since_full > grace_hours) excess_hours += 1.0;
       }
     }
-    soc_trace[h + 1] = soc;
+    trace[h + 1] = soc;
   }
 
+  YearDispatch y;
+  y.demand_kwh = hf.demand_kwh;
+  y.source_to_load_kwh = hf.source_to_load_kwh;
+  y.charge_source_kwh = charge_source;
+  y.charge_cost = charge_cost;
+  y.charged_terminal_kwh = charged_terminal;
+  y.discharged_terminal_kwh = discharged_terminal;
+  y.delivered_kwh = delivered_sum;
+  y.backup_kwh = backup;
+  y.unserved_kwh = unserved;
+  y.curtailed_kwh = curtailed;
+  y.equivalent_full_cycles = full_cycles;
   state.soc = soc;
   state.hours_since_full_charge = hours_since_full;
   y.partial_charge_excess_days = excess_hours / 24.0;

@@ -66,6 +66,9 @@ struct HourlyFactors {
   std::vector<double> capacity_factor;       // f_T(T_h), 8760 values
   std::vector<unsigned char> can_charge;     // 1 where the hour is within the charging limits
   std::vector<unsigned char> can_discharge;  // 1 where the hour is within the operating limits
+  std::vector<HourBalance> balance;          // hour_balance(site, h), 8760 values
+  double demand_kwh = 0;                     // sum of load over the year, in hour order
+  double source_to_load_kwh = 0;             // sum of balance[h].direct_kwh, in hour order
 };
 HourlyFactors hourly_factors(const ChemistryProfile& profile, const SiteConditions& site);
 
