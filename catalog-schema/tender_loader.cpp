@@ -25,6 +25,51 @@ std::string indexed(const std::string& base, std::size_t i) {
   return base + "[" + std::to_string(i) + "]";
 }
 
+// The retention curve: years rising, capacities not rising, none below the floor.
+void read_retention(const YamlDocument& doc, const YAML::Node& w, WarrantyTerms& terms) {
+  const YAML::Node list = w["retention"];
+  if (!list) return;
+  for (std::size_t i = 0; i < list.size(); ++i) {
+    const RetentionPoint point{number(list[i]["year"]), number(list[i]["capacity"])};
+    const std::string field = indexed("bid.warranty.retention", i);
+    if (!terms.retention.empty() && !(point.year > terms.retention.back().year)) {
+      throw doc.error_at(list[i]["year"], field + ".year",
+                         "the years of the retention curve must rise, found " +
+                             number_text(point.year) + " after " +
+                             number_text(terms.retention.back().year));
+    }
+    if (!terms.retention.empty() && point.capacity > terms.retention.back().capacity) {
+      throw doc.error_at(list[i]["capacity"], field + ".capacity",
+                         "a warranted capacity cannot rise with age, found " +
+                             number_text(point.capacity) + " after " +
+                             number_text(terms.retention.back().capacity));
+    }
+    if (point.capacity < terms.capacity_floor) {
+      throw doc.error_at(list[i]["capacity"], field + ".capacity",
+                         "lies below the warranty's capacity_floor " +
+                             number_text(terms.capacity_floor) + ", found " +
+                             number_text(point.capacity));
+    }
+    terms.retention.push_back(point);
+  }
+}
+
+void read_capacity_remedy(const YamlDocument& doc, const YAML::Node& w, WarrantyTerms& terms) {
+  if (const YAML::Node remedy = w["capacity_remedy"]) {
+    terms.capacity_remedy =
+        remedy.Scalar() == "top_up" ? CapacityRemedy::TopUp : CapacityRemedy::LiquidatedDamages;
+  }
+  const bool damages = terms.capacity_remedy == CapacityRemedy::LiquidatedDamages;
+  if (damages != static_cast<bool>(w["liquidated_damages_per_kwh"])) {
+    throw doc.error_at(w, "bid.warranty",
+                       damages ? "capacity_remedy liquidated_damages needs "
+                                 "liquidated_damages_per_kwh"
+                               : "liquidated_damages_per_kwh is given but capacity_remedy is "
+                                 "not liquidated_damages");
+  }
+  if (damages) terms.liquidated_damages_per_kwh = number(w["liquidated_damages_per_kwh"]);
+}
+
 Bid read_bid(std::istream& in, const std::string& path, const TenderCase& tender) {
   const YamlDocument doc = parse_yaml(in, path);
   SchemaValidator::embedded("bid").enforce(doc);
@@ -76,6 +121,17 @@ Bid read_bid(std::istream& in, const std::string& path, const TenderCase& tender
     bid.warranty.equivalent_full_cycles = number(w["equivalent_full_cycles"]);
   }
   bid.warranty.capacity_floor = number(w["capacity_floor"]);
+  read_retention(doc, w, bid.warranty);
+  read_capacity_remedy(doc, w, bid.warranty);
+  if (w["availability"]) {
+    bid.warranty.availability = number(w["availability"]);
+    if (!tender.site.backup_price_per_kwh) {
+      throw doc.error_at(w["availability"], "bid.warranty.availability",
+                         "an availability guarantee is evaluated by buying the duty of the hours "
+                         "out of service as back-up energy, but the tender's site gives no "
+                         "back-up price");
+    }
+  }
   if (b["technical_scores"]) {
     for (const auto& item : b["technical_scores"]) {
       bid.technical_scores[item.first.Scalar()] = number(item.second);
@@ -122,6 +178,10 @@ TenderCase load_tender_file(const std::string& path) {
   }
   if (const YAML::Node s = t["scoring"]) {
     tender.scoring.price_weight = number(s["price_weight"]);
+    if (s["near_tie_points"]) tender.scoring.near_tie_points = number(s["near_tie_points"]);
+    if (s["near_tie_npc_share"]) {
+      tender.scoring.near_tie_npc_share = number(s["near_tie_npc_share"]);
+    }
     double sum = tender.scoring.price_weight;
     if (s["criteria"]) {
       for (const auto& item : s["criteria"]) {

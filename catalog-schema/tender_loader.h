@@ -13,7 +13,12 @@
 // equals the tender's (error at bid.profile); the offered DoD setpoint lies within the
 // profile's dod range (error at bid.offer.dod_setpoint); every technical criterion of the
 // scoring has a score in every bid and no bid scores a criterion the tender does not weigh
-// (error at bid.technical_scores); the weights sum to 1 (error at tender.scoring).
+// (error at bid.technical_scores); the weights sum to 1 (error at tender.scoring); the
+// retention curve's years rise and its capacities do not, none below the floor (error at
+// bid.warranty.retention[i]); liquidated_damages_per_kwh is given exactly when the capacity
+// remedy is liquidated_damages (error at bid.warranty); an availability guarantee needs the
+// site's back-up price, which prices the duty of the hours out of service (error at
+// bid.warranty.availability).
 #pragma once
 
 #include <map>
@@ -28,12 +33,28 @@
 
 namespace stowage {
 
+// A point of the warranted capacity-retention curve: at the end of `year` the bank keeps at
+// least `capacity` of its nameplate.
+struct RetentionPoint {
+  double year = 0;      // > 0, strictly increasing along the curve
+  double capacity = 1;  // fraction of nameplate, non-increasing, >= the capacity floor
+};
+
+// What the supplier does when the bank's capacity falls below the retention curve within the
+// warranty (docs/tender.md): nothing beyond the replacement at the floor, add modules up to the
+// curve at its own cost, or pay liquidated damages per kWh short.
+enum class CapacityRemedy { None, TopUp, LiquidatedDamages };
+
 // Warranty terms: `years` or the warranted throughput or cycles, whichever comes first.
 struct WarrantyTerms {
   double years = 0;                              // > 0
   std::optional<double> throughput_mwh;          // discharged at the terminals
   std::optional<double> equivalent_full_cycles;  // discharged Ah / rated Ah
   double capacity_floor = 0.7;                   // warranted capacity, fraction of nameplate
+  std::vector<RetentionPoint> retention;         // empty: the floor throughout
+  CapacityRemedy capacity_remedy = CapacityRemedy::None;
+  double liquidated_damages_per_kwh = 0;  // > 0 with LiquidatedDamages, per kWh short a year-end
+  std::optional<double> availability;     // guaranteed share of the time in service, (0, 1]
 };
 
 struct Bid {
@@ -56,6 +77,10 @@ struct TenderRequirements {
 struct TenderScoring {
   double price_weight = 1;
   std::map<std::string, double> criteria;  // name -> weight; price_weight + sum = 1
+  // The two best bids are called a near tie when their totals lie within near_tie_points or
+  // their NPCs within near_tie_npc_share of the best's (our convention, the user's margins).
+  double near_tie_points = 1.0;
+  double near_tie_npc_share = 0.01;
 };
 
 struct TenderCase {

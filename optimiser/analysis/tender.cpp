@@ -34,40 +34,74 @@ double modelled_life(const DesignResult& r) {
   return last.damage_end > 0 ? last.year / last.damage_end : kInf;
 }
 
-void apply_warranty(BidResult& b, const Bid& bid) {
+bool within(int year_end, double warranty_end_years) {
+  return year_end <= warranty_end_years + 1e-9;
+}
+
+// The supplier pays a replacement for wear within the warranty; the buyer pays the rest.
+void apply_replacement_warranty(BidResult& b) {
   DesignResult& r = b.design;
   CostBreakdown& pv = r.present_value;
-  const bool retires_at_floor =
-      bid.profile.eol_capacity_fraction <= bid.warranty.capacity_floor + 1e-12;
   for (YearRecord& rec : r.years) {
     if (!rec.replaced_at_end) continue;
-    const bool covered = retires_at_floor && rec.year <= b.warranty.years + 1e-9;
+    const bool worn = rec.damage_end >= 1.0 - 1e-9;
+    const bool covered = worn && within(rec.year, b.warranty.years);
     (covered ? b.supplier_paid_years : b.buyer_paid_years).push_back(rec.year);
     if (!covered) continue;
+    b.supplier_replacements_pv += (rec.replacement + rec.end_of_life) * rec.discount_factor;
     pv.replacements -= rec.replacement * rec.discount_factor;
     pv.end_of_life -= rec.end_of_life * rec.discount_factor;
     rec.replacement = 0;
     rec.end_of_life = 0;
   }
-  r.npc = pv.total();
-  r.lcos_per_kwh = r.discounted_delivered_kwh > 0 ? pv.storage_total() / r.discounted_delivered_kwh
-                                                  : std::numeric_limits<double>::infinity();
 }
 
-void check_requirements(BidResult& b, const Bid& bid, const TenderCase& tender) {
+// The share 1 - A out of service: its delivered energy bought as back-up, its charging and
+// variable O&M saved.
+void apply_availability(BidResult& b, double availability, double backup_price_per_kwh) {
+  DesignResult& r = b.design;
+  CostBreakdown& pv = r.present_value;
+  const double out = 1.0 - availability;
+  const double before = pv.total();
+  for (YearRecord& rec : r.years) {
+    const double backup = out * rec.dispatch.delivered_kwh * backup_price_per_kwh;
+    const double charging = out * rec.charging, variable_om = out * rec.variable_om;
+    rec.backup += backup;
+    rec.charging -= charging;
+    rec.variable_om -= variable_om;
+    pv.backup += backup * rec.discount_factor;
+    pv.charging -= charging * rec.discount_factor;
+    pv.variable_om -= variable_om * rec.discount_factor;
+  }
+  r.discounted_delivered_kwh *= availability;
+  b.availability_pv = pv.total() - before;
+}
+
+std::vector<double> health_at_year_ends(const DesignResult& r, const ChemistryProfile& profile) {
+  std::vector<double> health;
+  for (const YearRecord& rec : r.years)
+    health.push_back(health_from_damage(profile, rec.damage_end));
+  return health;
+}
+
+void check_requirements(BidResult& b, const Bid& bid, const ChemistryProfile& profile,
+                        const TenderCase& tender) {
   const DesignResult& r = b.design;
+  const bool top_up = bid.warranty.capacity_remedy == CapacityRemedy::TopUp;
   b.least_usable_kwh = kInf;
   int worst_year = 0;
   for (const YearRecord& rec : r.years) {
-    const double health = health_from_damage(bid.profile, std::min(rec.damage_end, 1.0));
+    double health = health_from_damage(profile, rec.damage_end);
+    if (top_up && within(rec.year, b.warranty.years)) {
+      health = std::max(health, warranted_capacity(bid.warranty, rec.year));
+    }
     const double usable = r.bank.nameplate_kwh * bid.dod_setpoint * health;
     if (usable < b.least_usable_kwh) {
       b.least_usable_kwh = usable;
       worst_year = rec.year;
     }
   }
-  b.power_kw =
-      string_discharge_power_kw(bid.profile, tender.site.bus_voltage_v) * bid.strings_parallel;
+  b.power_kw = string_discharge_power_kw(profile, tender.site.bus_voltage_v) * bid.strings_parallel;
   const TenderRequirements& req = tender.requirements;
   if (req.min_usable_kwh && b.least_usable_kwh < *req.min_usable_kwh) {
     b.shortfalls.push_back(
@@ -78,7 +112,96 @@ void check_requirements(BidResult& b, const Bid& bid, const TenderCase& tender) 
   }
 }
 
+BidResult evaluate_bid(const Bid& bid, const TenderCase& tender) {
+  BidResult b;
+  b.label = bid.label;
+  b.family = bid.profile.family;
+  const ChemistryProfile profile = profile_retiring_at(bid.profile, bid.warranty.capacity_floor);
+  LifecycleEvaluator evaluator(profile, tender.site, tender.economics);
+  b.design = evaluator.evaluate(bid.dod_setpoint, bid.strings_parallel);
+  std::vector<double> discharged;
+  for (const YearRecord& rec : b.design.years) {
+    discharged.push_back(rec.dispatch.discharged_terminal_kwh);
+  }
+  const double nameplate = b.design.bank.nameplate_kwh;
+  b.warranty = warranty_end(bid.warranty, discharged, nameplate);
+  b.modelled_life_years = modelled_life(b.design);
+  b.warranty_exceeds_model = b.warranty.years > b.modelled_life_years + 1e-9;
+  apply_replacement_warranty(b);
+  if (bid.warranty.availability) {
+    apply_availability(b, *bid.warranty.availability, *tender.site.backup_price_per_kwh);
+  }
+  b.capacity_claims = capacity_claims(bid.warranty, b.warranty.years, nameplate,
+                                      health_at_year_ends(b.design, profile));
+  for (const CapacityClaim& c : b.capacity_claims) {
+    b.top_up_kwh += c.top_up_kwh;
+    b.liquidated_damages_pv -= c.liquidated_damages * b.design.years[c.year - 1].discount_factor;
+  }
+  DesignResult& r = b.design;
+  r.npc = r.present_value.total();
+  r.lcos_per_kwh = r.discounted_delivered_kwh > 0
+                       ? r.present_value.storage_total() / r.discounted_delivered_kwh
+                       : kInf;
+  b.npc = r.npc + b.liquidated_damages_pv;
+  b.npc_without_warranty = b.npc + b.supplier_replacements_pv - b.liquidated_damages_pv;
+  b.lcos_per_kwh =
+      r.discounted_delivered_kwh > 0
+          ? (r.present_value.storage_total() + b.liquidated_damages_pv) / r.discounted_delivered_kwh
+          : kInf;
+  check_requirements(b, bid, profile, tender);
+  return b;
+}
+
 }  // namespace
+
+ChemistryProfile profile_retiring_at(const ChemistryProfile& profile, double capacity) {
+  const double scale = (1.0 - capacity) / (1.0 - profile.eol_capacity_fraction);
+  ChemistryProfile out = profile;
+  std::vector<CycleLifePoint> points = profile.cycle_life.points();
+  for (CycleLifePoint& p : points) p.cycles *= scale;
+  out.cycle_life = CycleLifeCurve(points);
+  out.calendar_life_years *= scale;
+  if (out.partial_charge) out.partial_charge->damage_per_extra_day /= scale;
+  out.eol_capacity_fraction = capacity;
+  out.validate();
+  return out;
+}
+
+double warranted_capacity(const WarrantyTerms& terms, double year) {
+  if (terms.retention.empty()) return terms.capacity_floor;
+  double y0 = 0, c0 = 1;
+  for (const RetentionPoint& p : terms.retention) {
+    if (year <= p.year) return c0 + (p.capacity - c0) * (year - y0) / (p.year - y0);
+    y0 = p.year;
+    c0 = p.capacity;
+  }
+  return c0;
+}
+
+std::vector<CapacityClaim> capacity_claims(const WarrantyTerms& terms, double warranty_end_years,
+                                           double nameplate_kwh,
+                                           const std::vector<double>& health_end) {
+  std::vector<CapacityClaim> claims;
+  double added_kwh = 0;
+  for (std::size_t i = 0; i < health_end.size(); ++i) {
+    const int year = static_cast<int>(i) + 1;
+    if (!within(year, warranty_end_years)) break;
+    CapacityClaim c;
+    c.year = year;
+    c.warranted_kwh = nameplate_kwh * warranted_capacity(terms, year);
+    c.modelled_kwh = nameplate_kwh * health_end[i];
+    c.shortfall_kwh = c.warranted_kwh - c.modelled_kwh;
+    if (!(c.shortfall_kwh > 1e-9 * nameplate_kwh)) continue;
+    if (terms.capacity_remedy == CapacityRemedy::TopUp) {
+      c.top_up_kwh = std::max(0.0, c.shortfall_kwh - added_kwh);
+      added_kwh += c.top_up_kwh;
+    } else if (terms.capacity_remedy == CapacityRemedy::LiquidatedDamages) {
+      c.liquidated_damages = terms.liquidated_damages_per_kwh * c.shortfall_kwh;
+    }
+    claims.push_back(c);
+  }
+  return claims;
+}
 
 WarrantyEnd warranty_end(const WarrantyTerms& terms,
                          const std::vector<double>& discharged_kwh_per_year, double nameplate_kwh) {
@@ -97,37 +220,20 @@ WarrantyEnd warranty_end(const WarrantyTerms& terms,
 
 TenderResult evaluate_tender(const TenderCase& tender) {
   TenderResult result;
-  for (const Bid& bid : tender.bids) {
-    BidResult b;
-    b.label = bid.label;
-    b.family = bid.profile.family;
-    LifecycleEvaluator evaluator(bid.profile, tender.site, tender.economics);
-    b.design = evaluator.evaluate(bid.dod_setpoint, bid.strings_parallel);
-    b.npc_without_warranty = b.design.npc;
-    std::vector<double> discharged;
-    for (const YearRecord& rec : b.design.years) {
-      discharged.push_back(rec.dispatch.discharged_terminal_kwh);
-    }
-    b.warranty = warranty_end(bid.warranty, discharged, b.design.bank.nameplate_kwh);
-    b.modelled_life_years = modelled_life(b.design);
-    b.warranty_exceeds_model = b.warranty.years > b.modelled_life_years + 1e-9;
-    apply_warranty(b, bid);
-    check_requirements(b, bid, tender);
-    result.bids.push_back(std::move(b));
-  }
+  for (const Bid& bid : tender.bids) result.bids.push_back(evaluate_bid(bid, tender));
   double least_npc = kInf;
   for (const BidResult& b : result.bids) {
-    if (b.compliant()) least_npc = std::min(least_npc, b.design.npc);
+    if (b.compliant()) least_npc = std::min(least_npc, b.npc);
   }
   for (std::size_t i = 0; i < result.bids.size(); ++i) {
     BidResult& b = result.bids[i];
     if (!b.compliant()) continue;
-    if (!(b.design.npc > 0)) {
+    if (!(b.npc > 0)) {
       throw InvalidValue("tender.scoring",
                          "the price score (lowest NPC / bid NPC) needs positive NPCs; bid " +
-                             b.label + " has an NPC of " + std::to_string(b.design.npc));
+                             b.label + " has an NPC of " + std::to_string(b.npc));
     }
-    b.price_score = 100.0 * least_npc / b.design.npc;
+    b.price_score = 100.0 * least_npc / b.npc;
     b.technical_score = 0;
     for (const auto& [criterion, weight] : tender.scoring.criteria) {
       b.technical_score += weight * tender.bids[i].technical_scores.at(criterion);
@@ -144,8 +250,8 @@ TenderResult evaluate_tender(const TenderCase& tender) {
   if (result.order.size() >= 2) {
     const BidResult& a = result.bids[result.order[0]];
     const BidResult& b = result.bids[result.order[1]];
-    result.near_tie = a.total_score - b.total_score < 1.0 ||
-                      std::fabs(a.design.npc - b.design.npc) < 0.01 * a.design.npc;
+    result.near_tie = a.total_score - b.total_score <= tender.scoring.near_tie_points ||
+                      std::fabs(a.npc - b.npc) <= tender.scoring.near_tie_npc_share * a.npc;
   }
   return result;
 }

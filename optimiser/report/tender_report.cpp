@@ -4,6 +4,7 @@
 #include <fmt/format.h>
 #include <fmt/ostream.h>
 
+#include <algorithm>
 #include <cmath>
 #include <string>
 
@@ -51,6 +52,51 @@ std::string shortfall_text(const Shortfall& s) {
          format_amount(s.required) + " kW";
 }
 
+const char* remedy_text(CapacityRemedy remedy) {
+  switch (remedy) {
+    case CapacityRemedy::None:
+      return "none";
+    case CapacityRemedy::TopUp:
+      return "top_up";
+    case CapacityRemedy::LiquidatedDamages:
+      return "liquidated_damages";
+  }
+  return "?";
+}
+
+// The year-ends within the warranty at which the retention curve promises more than the
+// chemistry model gives, and what the supplier owes for them.
+void write_capacity_claims_text(std::ostream& out, const TenderCase& tender,
+                                const TenderResult& result) {
+  bool any = false;
+  for (std::size_t i = 0; i < result.bids.size(); ++i) {
+    const BidResult& b = result.bids[i];
+    if (b.capacity_claims.empty()) continue;
+    if (!any) out << "\nRetention curve above the modelled capacity within the warranty\n";
+    any = true;
+    const CapacityClaim& worst =
+        *std::max_element(b.capacity_claims.begin(), b.capacity_claims.end(),
+                          [](const CapacityClaim& x, const CapacityClaim& y) {
+                            return x.shortfall_kwh < y.shortfall_kwh;
+                          });
+    fmt::print(out, "  {}: {} year-ends, worst year {} ({} kWh warranted, {} kWh modelled); ",
+               b.label, b.capacity_claims.size(), worst.year, format_amount(worst.warranted_kwh),
+               format_amount(worst.modelled_kwh));
+    switch (tender.bids[i].warranty.capacity_remedy) {
+      case CapacityRemedy::TopUp:
+        fmt::print(out, "the supplier tops up {} kWh in all\n", format_amount(b.top_up_kwh));
+        break;
+      case CapacityRemedy::LiquidatedDamages:
+        fmt::print(out, "the supplier pays liquidated damages worth {} {} today\n",
+                   format_amount(-b.liquidated_damages_pv), tender.economics.currency);
+        break;
+      case CapacityRemedy::None:
+        out << "the warranty names no remedy above its floor\n";
+        break;
+    }
+  }
+}
+
 }  // namespace
 
 void write_tender_text(std::ostream& out, const TenderCase& tender, const TenderResult& result) {
@@ -67,17 +113,21 @@ void write_tender_text(std::ostream& out, const TenderCase& tender, const Tender
   } else {
     const BidResult& best = result.bids[result.order.front()];
     fmt::print(out, "Recommended: {} ({}), total score {:.1f}, NPC {} {}, LCOS {:.4f} {}/kWh\n",
-               best.label, best.family, best.total_score, format_amount(best.design.npc), cur,
-               best.design.lcos_per_kwh, cur);
+               best.label, best.family, best.total_score, format_amount(best.npc), cur,
+               best.lcos_per_kwh, cur);
     if (result.order.size() > 1) {
       const BidResult& second = result.bids[result.order[1]];
       fmt::print(out, "Runner-up:   {}, {:.1f} points behind, NPC {} {}\n", second.label,
-                 best.total_score - second.total_score,
-                 format_signed_amount(second.design.npc - best.design.npc), cur);
+                 best.total_score - second.total_score, format_signed_amount(second.npc - best.npc),
+                 cur);
     }
     if (result.near_tie) {
-      out << "NEAR TIE: the two best bids are within 1 point or 1 % of NPC; the ranking may "
-             "turn on inputs the evaluation cannot settle.\n";
+      fmt::print(out,
+                 "NEAR TIE: the two best bids are within {} points of total score or {} % of "
+                 "NPC (the tender's margins); the ranking may turn on inputs the evaluation "
+                 "cannot settle.\n",
+                 format_general(tender.scoring.near_tie_points),
+                 format_general(100 * tender.scoring.near_tie_npc_share));
     }
     out << "\n";
   }
@@ -88,7 +138,7 @@ void write_tender_text(std::ostream& out, const TenderCase& tender, const Tender
   for (std::size_t i : result.order) {
     const BidResult& b = result.bids[i];
     fmt::print(out, "{:>4}  {:<10}{:>14}{:>12.4f}{:>8.1f}{:>11.1f}{:>8.1f}\n", b.rank, b.label,
-               format_amount(b.design.npc), b.design.lcos_per_kwh, b.price_score, b.technical_score,
+               format_amount(b.npc), b.lcos_per_kwh, b.price_score, b.technical_score,
                b.total_score);
   }
   out << "\nWarranty against the chemistry's own ageing model\n";
@@ -109,6 +159,7 @@ void write_tender_text(std::ostream& out, const TenderCase& tender, const Tender
                  b.label, life_text(b.warranty.years), life_text(b.modelled_life_years));
     }
   }
+  write_capacity_claims_text(out, tender, result);
   bool any_failed = false;
   for (const BidResult& b : result.bids) any_failed |= !b.compliant();
   if (any_failed) {
@@ -129,8 +180,17 @@ void write_tender_text(std::ostream& out, const TenderCase& tender, const Tender
     }
     out << "\n";
   }
+  fmt::print(out, "  {:<34}", "liquidated damages (credit)");
+  for (const BidResult& b : result.bids) {
+    fmt::print(out, "{:>14}", format_amount(b.liquidated_damages_pv));
+  }
+  out << "\n";
   fmt::print(out, "  {:<34}", "net present cost");
-  for (const BidResult& b : result.bids) fmt::print(out, "{:>14}", format_amount(b.design.npc));
+  for (const BidResult& b : result.bids) fmt::print(out, "{:>14}", format_amount(b.npc));
+  out << "\n";
+  fmt::print(out, "  {:<34}", "  of which hours out of service");
+  for (const BidResult& b : result.bids)
+    fmt::print(out, "{:>14}", format_amount(b.availability_pv));
   out << "\n\n";
   print_safety_notice(out);
 }
@@ -151,8 +211,11 @@ void write_tender_json(std::ostream& out, const TenderCase& tender, const Tender
     json.value(result.bids[result.order.front()].label);
   }
   json.field("near_tie", result.near_tie);
+  json.field("near_tie_points", tender.scoring.near_tie_points);
+  json.field("near_tie_npc_share", tender.scoring.near_tie_npc_share);
   json.key("bids").begin_array();
-  for (const BidResult& b : result.bids) {
+  for (std::size_t i = 0; i < result.bids.size(); ++i) {
+    const BidResult& b = result.bids[i];
     json.begin_object();
     json.field("label", b.label);
     json.field("family", b.family);
@@ -166,7 +229,12 @@ void write_tender_json(std::ostream& out, const TenderCase& tender, const Tender
     json.field("price_score", b.compliant() ? b.price_score : std::nan(""));
     json.field("technical_score", b.compliant() ? b.technical_score : std::nan(""));
     json.field("total_score", b.compliant() ? b.total_score : std::nan(""));
+    json.field("npc", b.npc);
+    json.field("lcos_per_kwh", b.lcos_per_kwh);
     json.field("npc_without_warranty", b.npc_without_warranty);
+    json.field("liquidated_damages", b.liquidated_damages_pv);
+    json.field("availability_cost", b.availability_pv);
+    json.field("top_up_kwh", b.top_up_kwh);
     json.field("warranty_end_years", b.warranty.years);
     json.field("warranty_end_by", cause_text(b.warranty.cause));
     json.field("modelled_life_years", b.modelled_life_years);
@@ -176,6 +244,19 @@ void write_tender_json(std::ostream& out, const TenderCase& tender, const Tender
     json.end_array();
     json.key("buyer_paid_replacement_years").begin_array();
     for (int y : b.buyer_paid_years) json.value(y);
+    json.end_array();
+    json.field("capacity_remedy", remedy_text(tender.bids[i].warranty.capacity_remedy));
+    json.key("capacity_claims").begin_array();
+    for (const CapacityClaim& c : b.capacity_claims) {
+      json.begin_object();
+      json.field("year", c.year);
+      json.field("warranted_kwh", c.warranted_kwh);
+      json.field("modelled_kwh", c.modelled_kwh);
+      json.field("shortfall_kwh", c.shortfall_kwh);
+      json.field("top_up_kwh", c.top_up_kwh);
+      json.field("liquidated_damages", c.liquidated_damages);
+      json.end_object();
+    }
     json.end_array();
     json.field("least_usable_kwh", b.least_usable_kwh);
     json.field("power_kw", b.power_kw);
@@ -205,18 +286,21 @@ void write_tender_json(std::ostream& out, const TenderCase& tender, const Tender
 void write_tender_csv(std::ostream& out, const TenderCase&, const TenderResult& result) {
   out << "bid,family,compliant,rank,npc,lcos_per_kwh,price_score,technical_score,total_score,"
          "warranty_end_years,warranty_end_by,modelled_life_years,supplier_paid_replacements,"
-         "buyer_paid_replacements,least_usable_kwh,power_kw\n";
+         "buyer_paid_replacements,least_usable_kwh,power_kw,top_up_kwh,liquidated_damages,"
+         "availability_cost\n";
   for (const BidResult& b : result.bids) {
     out << b.label << ',' << b.family << ',' << (b.compliant() ? "true" : "false") << ','
-        << (b.rank > 0 ? std::to_string(b.rank) : std::string()) << ','
-        << format_machine(b.design.npc) << ',' << format_machine(b.design.lcos_per_kwh) << ','
+        << (b.rank > 0 ? std::to_string(b.rank) : std::string()) << ',' << format_machine(b.npc)
+        << ',' << format_machine(b.lcos_per_kwh) << ','
         << (b.compliant() ? format_machine(b.price_score) : "") << ','
         << (b.compliant() ? format_machine(b.technical_score) : "") << ','
         << (b.compliant() ? format_machine(b.total_score) : "") << ','
         << format_machine(b.warranty.years) << ',' << cause_text(b.warranty.cause) << ','
         << format_machine(b.modelled_life_years) << ',' << b.supplier_paid_years.size() << ','
         << b.buyer_paid_years.size() << ',' << format_machine(b.least_usable_kwh) << ','
-        << format_machine(b.power_kw) << "\n";
+        << format_machine(b.power_kw) << ',' << format_machine(b.top_up_kwh) << ','
+        << format_machine(b.liquidated_damages_pv) << ',' << format_machine(b.availability_pv)
+        << "\n";
   }
 }
 

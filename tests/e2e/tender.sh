@@ -13,10 +13,16 @@ doc = json.load(open(sys.argv[1]))
 bids = {b["label"]: b for b in doc["bids"]}
 assert doc["recommended"] == "Bid A", doc["recommended"]
 assert not bids["Bid D"]["compliant"] and bids["Bid D"]["rank"] is None
-assert bids["Bid A"]["supplier_paid_replacement_years"] == [10]
+assert bids["Bid A"]["supplier_paid_replacement_years"] == [11], bids["Bid A"]
+for b in bids.values():
+    # The supplier pays only within the warranty; the buyer's NPC adds the damages credit.
+    assert all(y <= b["warranty_end_years"] + 1e-9 for y in b["supplier_paid_replacement_years"])
+    assert abs(b["npc"] - b["design"]["npc"] - b["liquidated_damages"]) <= 1e-6 * b["npc"]
+assert bids["Bid C"]["capacity_remedy"] == "liquidated_damages" and bids["Bid C"]["liquidated_damages"] < 0
+assert bids["Bid A"]["top_up_kwh"] > 0
 # The buyer's NPC is the simulator's less what the supplier pays: never more.
 for b in bids.values():
-    assert b["design"]["npc"] <= b["npc_without_warranty"] + 1e-6
+    assert b["npc"] <= b["npc_without_warranty"] + 1e-6
     lines = b["design"]["breakdown"]
     assert abs(sum(lines.values()) - b["design"]["npc"]) <= 1e-6 * abs(b["design"]["npc"])
 PY
