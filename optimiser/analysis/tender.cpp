@@ -49,9 +49,7 @@ void apply_warranty(BidResult& b, const Bid& bid) {
     rec.replacement = 0;
     rec.end_of_life = 0;
   }
-  r.npc = pv.total();
-  r.lcos_per_kwh = r.discounted_delivered_kwh > 0 ? pv.storage_total() / r.discounted_delivered_kwh
-                                                  : std::numeric_limits<double>::infinity();
+  r.settle_totals();
 }
 
 void check_requirements(BidResult& b, const Bid& bid, const TenderCase& tender) {
