@@ -13,8 +13,9 @@
 //   end of life of the last bank  = end_of_life_per_kwh x E   (at N + 1 or later)
 //   fixed O&M per year        = fixed_om_per_kwh_year x E
 //   variable O&M per year     = variable_om_per_mwh x discharged terminal kWh / 1000
-//   residual value at N       = -(price paid for the bank in service) x remaining life fraction
-//                               (<= 0, a credit)
+//   residual value at N       = -P(N) x remaining life fraction of the bank in service
+//                               (<= 0, a credit): the life left is worth what a bank would
+//                               cost in the project's last year, not what was paid for it
 // Units: currency of the profile; energy in kWh; years counted from the start of operation.
 // The functions do no validation: the loader has checked the inputs (prices >= 0, shares and
 // declines in [0, 1)).
@@ -67,9 +68,12 @@ class DesignCosts {
   double variable_om(double discharged_terminal_kwh) const {
     return c_.variable_om_per_mwh * discharged_terminal_kwh / 1000.0;
   }
-  // -bank_price x remaining_fraction: the credit for the life left in the bank at N.
-  static double residual_value(double bank_price, double remaining_fraction) {
-    return -bank_price * remaining_fraction;
+  // -P(N) x remaining_fraction: the credit at the end of year `project_years` = N for the life
+  // left in the bank then in service, valued at the replacement price of that year for a design
+  // whose year-0 investment was `investment` (whichever bank is in service and whatever it
+  // cost). remaining_fraction in [0, 1].
+  double residual_value(double investment, int project_years, double remaining_fraction) const {
+    return -replacement_price(investment, project_years) * remaining_fraction;
   }
 
   double string_nameplate_kwh() const { return string_kwh_; }

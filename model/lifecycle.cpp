@@ -25,6 +25,21 @@ double DesignResult::mean_discharged_kwh_per_year() const {
   return sum / static_cast<double>(years.size());
 }
 
+double DesignResult::storage_cost_schmidt() const {
+  const CostBreakdown& pv = present_value;
+  return pv.storage_total() - pv.residual_value - final_end_of_life * final_discount_factor +
+         final_end_of_life * project_end_discount_factor;
+}
+
+void DesignResult::settle_totals() {
+  constexpr double kNone = std::numeric_limits<double>::infinity();
+  npc = present_value.total();
+  lcos_per_kwh =
+      delivers_energy() ? present_value.storage_total() / discounted_delivered_kwh : kNone;
+  lcos_schmidt_per_kwh =
+      delivers_energy() ? storage_cost_schmidt() / discounted_delivered_kwh : kNone;
+}
+
 LifecycleEvaluator::LifecycleEvaluator(const ChemistryProfile& profile, const SiteConditions& site,
                                        const Economics& economics)
     : profile_(&profile),
@@ -61,7 +76,6 @@ DesignResult LifecycleEvaluator::evaluate(double dod_setpoint, int strings_paral
   DispatchState state;
   double damage = 0;                             // of the bank in service
   int age_years = 0;                             // of the bank in service
-  double bank_price = r.investment;              // what the bank in service cost when installed
   double final_year = econ.project_years + 1.0;  // when the last bank's end-of-life flow falls
   CostBreakdown& pv = r.present_value;
   pv.investment = r.investment;
@@ -103,7 +117,6 @@ DesignResult LifecycleEvaluator::evaluate(double dod_setpoint, int strings_paral
       rec.replacement = banks * price;
       rec.end_of_life = banks * replacement_end_of_life_cost;
       for (int i = 0; i < banks; ++i) r.replacement_years.push_back(year);
-      bank_price = price;
       damage = worn_out ? std::max(0.0, damage - banks) : 0.0;
       age_years = 0;
       state = DispatchState{};
@@ -114,7 +127,7 @@ DesignResult LifecycleEvaluator::evaluate(double dod_setpoint, int strings_paral
       if (p.max_service_years) used = std::max(used, age_years / *p.max_service_years);
       const double remaining = 1.0 - used;
       if (remaining > 0) {
-        rec.residual_value = DesignCosts::residual_value(bank_price, remaining);
+        rec.residual_value = costs.residual_value(r.investment, econ.project_years, remaining);
         // The bank goes on serving: it reaches its end of life when its remaining life, at the
         // wear rate it has shown, runs out.
         if (used > 0) final_year = econ.project_years + std::max(1.0, remaining * age_years / used);
@@ -144,10 +157,10 @@ DesignResult LifecycleEvaluator::evaluate(double dod_setpoint, int strings_paral
   r.final_end_of_life_year = final_year;
   r.final_discount_factor = present_worth_factor(econ.real_discount_rate, final_year);
   pv.end_of_life += end_of_life_cost * r.final_discount_factor;
+  r.project_end_discount_factor =
+      present_worth_factor(econ.real_discount_rate, econ.project_years + 1.0);
 
-  r.npc = pv.total();
-  r.lcos_per_kwh = r.discounted_delivered_kwh > 0 ? pv.storage_total() / r.discounted_delivered_kwh
-                                                  : std::numeric_limits<double>::infinity();
+  r.settle_totals();
   r.meets_unserved_limit = !site.unserved_limit_fraction ||
                            r.unserved_fraction_max <= *site.unserved_limit_fraction + 1e-12;
   return r;

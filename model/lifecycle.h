@@ -12,7 +12,8 @@
 //   cost of what is removed; the new bank starts full. A bank whose damage passed 1 by more than
 //   a whole life within the year counts as floor(D) replacements, and the wear beyond them is
 //   carried into the new bank.
-// - Residual value of the bank in service at project end: its price x remaining life fraction
+// - Residual value of the bank in service at project end: the replacement price of year N,
+//   I0 x replacement_share x (1 - price_decline)^N, x its remaining life fraction
 //   (1 - max(D, age / max_service_years)), credited at N. Its end-of-life flow falls at N + 1
 //   (Schmidt et al. 2019) when it is worn out with the project, otherwise when its remaining
 //   life runs out at the wear rate it has shown (never before N + 1).
@@ -20,6 +21,8 @@
 //   storage costs (investment, replacements, O&M, charging energy, end of life, minus residual)
 //   / present value of the energy the storage delivers after the inverter. Charging energy is
 //   priced where it is drawn, before the charger, so both sides sit at the same boundary.
+// - LCOS under Schmidt et al.'s own conventions (lcos_schmidt_per_kwh): the same flows and
+//   denominator, but no residual value and the last bank's end of life always at N + 1.
 // - NPC = storage costs + back-up energy + unserved-energy penalty (present values): the
 //   lifecycle cost of serving the site, which the optimiser minimises.
 #pragma once
@@ -82,13 +85,16 @@ struct DesignResult {
   std::string currency;
   std::vector<int> replacement_years;
   std::vector<YearRecord> years;
-  double investment = 0;              // year 0
-  double final_end_of_life = 0;       // end-of-life flow of the last bank, undiscounted
-  double final_end_of_life_year = 0;  // N + 1, or later when that bank has life left
-  double final_discount_factor = 1;   // P/F at final_end_of_life_year
+  double investment = 0;                   // year 0
+  double final_end_of_life = 0;            // end-of-life flow of the last bank, undiscounted
+  double final_end_of_life_year = 0;       // N + 1, or later when that bank has life left
+  double final_discount_factor = 1;        // P/F at final_end_of_life_year
+  double project_end_discount_factor = 1;  // P/F at N + 1
   CostBreakdown present_value;
   double npc = 0;
-  double lcos_per_kwh = 0;
+  // Per kWh delivered; +infinity when the design delivers no energy (see delivers_energy()).
+  double lcos_per_kwh = 0;              // storage costs with residual value, docs/method.md 7
+  double lcos_schmidt_per_kwh = 0;      // Schmidt et al. (2019) conventions, docs/method.md 7
   double discounted_delivered_kwh = 0;  // LCOS denominator: energy after the inverter
   double unserved_fraction_max = 0;     // worst year unserved / demand
   bool meets_unserved_limit = true;
@@ -103,6 +109,16 @@ struct DesignResult {
     return years.front().dispatch.equivalent_full_cycles;
   }
   double mean_discharged_kwh_per_year() const;
+
+  // False when no energy reaches the load from the bank over the project: LCOS is undefined.
+  bool delivers_energy() const { return discounted_delivered_kwh > 0; }
+  // Present value of the storage costs under Schmidt et al.'s conventions: storage_total()
+  // without the residual value, the last bank's end of life moved to N + 1.
+  double storage_cost_schmidt() const;
+  // Sets npc, lcos_per_kwh and lcos_schmidt_per_kwh from present_value, the end-of-life
+  // fields and discounted_delivered_kwh: the one place these totals are formed (call it again
+  // after changing present_value, as a warranty does).
+  void settle_totals();
 };
 
 // Holds what is shared by every design of one profile at one site (temperature acceleration),

@@ -52,10 +52,9 @@ double npc_lower_bound(const ChemistryProfile& profile, const Study& study, int 
 
   double bound = i0;
   bound += costs.fixed_om_per_year(nameplate) * series_present_worth_factor(i, n_years);
-  // Residual credit: at most the price of the bank in service (the year-0 bank or a
-  // replacement; replacement prices never rise), credited at N.
-  bound += DesignCosts::residual_value(i0 * std::max(1.0, costs.replacement_price_factor(0)), 1.0) *
-           present_worth_factor(i, n_years);
+  // Residual credit: at most the whole replacement price of year N (a bank with all its life
+  // left), credited at N; the simulator values the remaining life at that same price.
+  bound += costs.residual_value(i0, n_years, 1.0) * present_worth_factor(i, n_years);
 
   // The longest a bank can serve, in whole years. The simulator retires a bank when its damage
   // reaches 1 - 1e-9; asking for 1 - 1e-9 + 1e-7 here can only make Y later (a weaker bound)

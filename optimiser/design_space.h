@@ -123,8 +123,8 @@ double bank_investment(const ChemistryProfile& profile, double bus_voltage_v, in
 // whatever the setpoint and dispatch, priced by model/costs.h (the simulator's own formulas):
 //   the year-0 investment I0;
 //   + fixed O&M (exact: proportional to nameplate every year);
-//   - the largest residual credit the conventions of model/lifecycle.h allow (at most the
-//     price paid for the bank in service, I0 x max(1, replacement_share), credited at N);
+//   - the largest residual credit the conventions of model/lifecycle.h allow (a bank with all
+//     its life left, valued at the replacement price of year N, P(N), credited at N);
 //   + the last bank's end of life: a cost at its latest possible date, N + max(1, the longest
 //     life left: 1 / calendar damage per year or max_service_years), 0 when neither is known;
 //     a salvage credit (< 0) at its earliest, N + 1;

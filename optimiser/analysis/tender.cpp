@@ -138,10 +138,7 @@ BidResult evaluate_bid(const Bid& bid, const TenderCase& tender) {
     b.liquidated_damages_pv -= c.liquidated_damages * b.design.years[c.year - 1].discount_factor;
   }
   DesignResult& r = b.design;
-  r.npc = r.present_value.total();
-  r.lcos_per_kwh = r.discounted_delivered_kwh > 0
-                       ? r.present_value.storage_total() / r.discounted_delivered_kwh
-                       : kInf;
+  r.settle_totals();
   b.npc = r.npc + b.liquidated_damages_pv;
   b.npc_without_warranty = b.npc + b.supplier_replacements_pv - b.liquidated_damages_pv;
   b.lcos_per_kwh =

@@ -35,6 +35,7 @@ void write_design_json(JsonWriter& json, const DesignResult& d) {
   json.field("strings_parallel", d.bank.strings_parallel);
   json.field("nameplate_kwh", d.bank.nameplate_kwh);
   json.field("lcos_per_kwh", d.lcos_per_kwh);
+  json.field("lcos_schmidt_per_kwh", d.lcos_schmidt_per_kwh);
   json.field("npc", d.npc);
   json.field("currency", d.currency);
   json.key("replacement_years").begin_array();
@@ -87,14 +88,19 @@ void print_design_table(std::ostream& out, const DesignResult& d) {
   }
   fmt::print(out, "    {:<32}{:>14}\n", "net present cost", format_amount(d.npc));
   fmt::print(out,
-             "  LCOS          {:.4f} {}/kWh delivered (storage costs / discounted energy delivered "
-             "after the inverter)\n",
+             "  LCOS          {:.4f} {}/kWh delivered (storage costs net of the residual value / "
+             "discounted energy delivered after the inverter)\n",
              d.lcos_per_kwh, d.currency);
+  fmt::print(out,
+             "  LCOS Schmidt  {:.4f} {}/kWh delivered (Schmidt et al. 2019 conventions: no "
+             "residual value, last end of life at year N + 1)\n",
+             d.lcos_schmidt_per_kwh, d.currency);
 }
 
 void write_designs_csv(std::ostream& out, const std::vector<DesignResult>& designs) {
-  out << "profile,dod_setpoint,cells_series,strings_parallel,nameplate_kwh,lcos_per_kwh,npc,"
-         "currency,replacement_years,discharged_kwh_per_year,discharged_kwh_first_year,"
+  out << "profile,dod_setpoint,cells_series,strings_parallel,nameplate_kwh,lcos_per_kwh,"
+         "lcos_schmidt_per_kwh,npc,currency,replacement_years,discharged_kwh_per_year,discharged_"
+         "kwh_first_year,"
          "unserved_kwh_first_year,backup_kwh_first_year,equivalent_full_cycles_first_year,"
          "meets_unserved_limit";
   for (const CostLine& item : cost_lines()) out << ",pv_" << item.key;
@@ -102,9 +108,9 @@ void write_designs_csv(std::ostream& out, const std::vector<DesignResult>& desig
   for (const auto& d : designs) {
     out << d.profile_id << ',' << csv_number(d.dod_setpoint) << ',' << d.bank.cells_series << ','
         << d.bank.strings_parallel << ',' << csv_number(d.bank.nameplate_kwh) << ','
-        << csv_number(d.lcos_per_kwh) << ',' << csv_number(d.npc) << ',' << d.currency << ','
-        << years_text(d.replacement_years, ";") << ','
-        << csv_number(d.mean_discharged_kwh_per_year()) << ','
+        << csv_number(d.lcos_per_kwh) << ',' << csv_number(d.lcos_schmidt_per_kwh) << ','
+        << csv_number(d.npc) << ',' << d.currency << ',' << years_text(d.replacement_years, ";")
+        << ',' << csv_number(d.mean_discharged_kwh_per_year()) << ','
         << csv_number(d.discharged_kwh_first_year()) << ','
         << csv_number(d.unserved_kwh_first_year()) << ',' << csv_number(d.backup_kwh_first_year())
         << ',' << csv_number(d.equivalent_full_cycles_first_year()) << ','

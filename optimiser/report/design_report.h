@@ -15,11 +15,11 @@
 namespace stowage::report {
 
 // Writes one design object: profile, dod_setpoint, cells_series, strings_parallel,
-// nameplate_kwh, lcos_per_kwh, npc, currency, replacement_years, discharged_kwh_per_year,
-// unserved_kwh_first_year, backup_kwh_first_year, equivalent_full_cycles_first_year,
-// round_trip_efficiency, meets_unserved_limit, unserved_fraction_max, and `breakdown`
-// (present values: investment, replacements, fixed_om, variable_om, charging, backup,
-// unserved_penalty, end_of_life, residual_value).
+// nameplate_kwh, lcos_per_kwh, lcos_schmidt_per_kwh, npc, currency, replacement_years,
+// discharged_kwh_per_year, unserved_kwh_first_year, backup_kwh_first_year,
+// equivalent_full_cycles_first_year, round_trip_efficiency, meets_unserved_limit,
+// unserved_fraction_max, and `breakdown` (present values: investment, replacements, fixed_om,
+// variable_om, charging, backup, unserved_penalty, end_of_life, residual_value).
 void write_design_json(JsonWriter& json, const DesignResult& design);
 
 // A readable block for one design: bank, energy, ageing, replacements, cost breakdown, LCOS.

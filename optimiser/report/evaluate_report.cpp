@@ -27,15 +27,16 @@ void write_evaluate_text(std::ostream& out, const Study& study,
                    [&](std::size_t a, std::size_t b) { return results[a].npc < results[b].npc; });
   const std::string& cur = study.economics.currency;
   fmt::print(out, "Designs by net present cost of serving the site\n");
-  fmt::print(out, "{:>4}  {:<28}{:>5}{:>9}{:>11}{:>14}{:>13}{:>14}\n", "rank", "profile", "DoD",
-             "strings", "kWh", "replacements", "LCOS " + cur, "NPC " + cur);
+  fmt::print(out, "{:>4}  {:<28}{:>5}{:>9}{:>11}{:>14}{:>13}{:>13}{:>14}\n", "rank", "profile",
+             "DoD", "strings", "kWh", "replacements", "LCOS " + cur, "Schmidt " + cur,
+             "NPC " + cur);
   int rank = 1;
   for (std::size_t i : order) {
     const auto& d = results[i];
-    fmt::print(out, "{:>4}  {:<28}{:>5.2f}{:>9}{:>11}{:>14}{:>13.4f}{:>14}{}\n", rank++,
+    fmt::print(out, "{:>4}  {:<28}{:>5.2f}{:>9}{:>11}{:>14}{:>13.4f}{:>13.4f}{:>14}{}\n", rank++,
                d.profile_id, d.dod_setpoint, d.bank.strings_parallel,
                format_amount(d.bank.nameplate_kwh, 1), d.replacement_years.size(), d.lcos_per_kwh,
-               format_amount(d.npc),
+               d.lcos_schmidt_per_kwh, format_amount(d.npc),
                d.meets_unserved_limit ? "" : "  (misses the unserved-energy limit)");
   }
   out << "\n";

@@ -149,6 +149,11 @@ ReportSection decision_section(const StudyCase& study, const OptimiseResult& r) 
       return tagged(format_fixed(R[i].lcos_per_kwh, 4), design_key(i) + ".lcos_per_kwh",
                     R[i].lcos_per_kwh);
     });
+    add("LCOS, Schmidt et al. 2019 conventions (" + cur + " per kWh delivered)",
+        [&](std::size_t i) {
+          return tagged(format_fixed(R[i].lcos_schmidt_per_kwh, 4),
+                        design_key(i) + ".lcos_schmidt_per_kwh", R[i].lcos_schmidt_per_kwh);
+        });
     add("net present cost (" + cur + ")", [&](std::size_t i) {
       return tagged(format_amount(R[i].npc), design_key(i) + ".npc", R[i].npc);
     });
@@ -531,9 +536,12 @@ ReportSection method_section() {
       "temperature (Arrhenius or life-halving law); capacity fades linearly to the end-of-life "
       "capacity at damage 1.",
       "Costs: investment, replacements, fixed and variable O&M, charging energy, end of life "
-      "and residual value, discounted at the real rate; LCOS per kWh delivered after the "
-      "inverter as in Schmidt et al. (2019), Joule 3:81-100; net present cost adds back-up "
-      "energy and the unserved-energy penalty and is what the search minimises.",
+      "and residual value (the life left at the end, at the replacement price of the last "
+      "year), discounted at the real rate; LCOS per kWh delivered after the inverter, with "
+      "that residual value and, separately, under the conventions of Schmidt et al. (2019), "
+      "Joule 3:81-100 (no residual value, the last end of life one year after the project); "
+      "net present cost adds back-up energy and the unserved-energy penalty and is what the search "
+      "minimises.",
       "Search: a mixed-integer model (GLPK) points to the designs to simulate; the answer is "
       "always a design simulated exactly, and the proof status above says whether every other "
       "design was ruled out.",

@@ -16,7 +16,8 @@ for study in "${studies[@]}"; do
 import json, math, sys
 doc = json.load(open(sys.argv[1]))
 fields = ["profile", "dod_setpoint", "cells_series", "strings_parallel", "nameplate_kwh",
-          "lcos_per_kwh", "npc", "currency", "replacement_years", "discharged_kwh_per_year",
+          "lcos_per_kwh", "lcos_schmidt_per_kwh", "npc", "currency", "replacement_years",
+          "discharged_kwh_per_year",
           "unserved_kwh_first_year", "backup_kwh_first_year",
           "equivalent_full_cycles_first_year"]
 assert doc["designs"], "no designs"

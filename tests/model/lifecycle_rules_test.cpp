@@ -46,6 +46,28 @@ TEST_CASE("a bank with life left at the end of the project is credited its resid
   CHECK(r.present_value.end_of_life == Approx(10 * r.bank.nameplate_kwh * std::pow(1.08, -30)));
 }
 
+TEST_CASE("the residual value is the replacement price of the last year, not the price paid",
+          "[model][lifecycle]") {
+  // Service limit 10 years in a 15-year project, replacement share 0.5, prices falling 4 % a
+  // year: the bank bought at the end of year 10 cost I0 x 0.5 x 0.96^10 and has half its life
+  // left at 15; that half is credited at what a bank costs in year 15, I0 x 0.5 x 0.96^15
+  // (docs/method.md 6), discounted from 15.
+  DailyCycle c;
+  c.profile.max_service_years = 10;
+  c.profile.costs.replacement_share = 0.5;
+  c.profile.costs.price_decline_per_year = 0.04;
+  LifecycleEvaluator ev(c.profile, c.site, c.economics);
+  const DesignResult r = ev.evaluate(0.5, 10);
+  const double i0 = 200 * r.bank.nameplate_kwh;
+  REQUIRE(r.replacement_years == std::vector<int>{10});
+  CHECK(r.years[9].replacement == Approx(i0 * 0.5 * std::pow(0.96, 10)));
+  CHECK(r.present_value.residual_value ==
+        Approx(-0.5 * i0 * 0.5 * std::pow(0.96, 15) * std::pow(1.08, -15)));
+  // Schmidt et al.'s figure carries no residual value: it exceeds the LCOS by that credit.
+  CHECK((r.lcos_schmidt_per_kwh - r.lcos_per_kwh) * r.discounted_delivered_kwh ==
+        Approx(-r.present_value.residual_value));
+}
+
 TEST_CASE("the service-age limit replaces a bank that is not worn out", "[model][lifecycle]") {
   // max_service_years 5 in a 15-year project: replacements at the end of years 5 and 10, and
   // the last bank is exactly at its limit at year 15 (no residual, end of life at N + 1).

@@ -119,6 +119,53 @@ TEST_CASE("LCOS equals the closed form for a bank that does not degrade", "[mode
   CHECK(r.lcos_per_kwh * 1000.0 == Approx(closed_form).epsilon(1e-6));
 }
 
+TEST_CASE("the Schmidt LCOS leaves out the residual value and books the last end of life at N + 1",
+          "[model][lifecycle][lcos]") {
+  // Hand derivation on check-values.md 3.4 case A (capex 400,000, O&M 10,000 per year, 300 MWh
+  // a year, 40 per MWh charging at round trip 0.85, 8 %, 15 years: 236.1649 per MWh), with a
+  // bank that could serve 30 years (half its life left at N = 15), replacement share 0.8, a
+  // price decline of 3 % a year and an end-of-life cost of 10 per kWh nameplate.
+  // Schmidt et al. (2019) conventions: no residual value, end of life at N + 1 = 16:
+  //   LCOS_S = 236.1649 + 10 E 1.08^-16 / (300 P/A(8 %, 15))                    [per MWh]
+  // stowage's LCOS: the residual value at the replacement price of year 15,
+  //   -400,000 x 0.8 x 0.97^15 x 0.5 at 15 (not the 400,000 paid), and the end of life when the
+  //   remaining 15 years run out, at 30 (docs/method.md 6-7).
+  const double daily_kwh = 300000.0 / 365.0;
+  ChemistryProfile p = ideal_cell(daily_kwh * 1000.0 / 48.0 / 10.0);
+  p.mean_charge_v = 2.0 / 0.85;
+  p.max_service_years = 30;
+  const double nameplate = daily_kwh;
+  p.costs.capital_per_kwh = 400000.0 / nameplate;
+  p.costs.fixed_om_per_kwh_year = 10000.0 / nameplate;
+  p.costs.replacement_share = 0.8;
+  p.costs.price_decline_per_year = 0.03;
+  p.costs.end_of_life_per_kwh = 10;
+  p.validate();
+  SiteConditions s = quiet_site(48.0, 25.0);
+  every_day(s.load_kw, 2, 5, 10000.0);
+  every_day(s.source_kw, 8, 15, 10000.0);
+  s.charge_price_per_kwh.assign(kHoursPerYear, 0.040);
+  s.validate();
+  Economics e;
+  e.project_years = 15;
+  e.real_discount_rate = 0.08;
+
+  LifecycleEvaluator evaluator(p, s, e);
+  const DesignResult r = evaluator.evaluate(1.0, 10);
+  REQUIRE(r.replacement_years.empty());
+  const double energy_pv_mwh = 300.0 * series_present_worth_factor(0.08, 15);
+  const double eol = 10 * nameplate;
+  const double schmidt = 236.1649 + eol * std::pow(1.08, -16) / energy_pv_mwh;
+  CHECK(r.lcos_schmidt_per_kwh * 1000.0 == Approx(schmidt).epsilon(1e-5));
+
+  const double residual = -400000.0 * 0.8 * std::pow(0.97, 15) * 0.5 * std::pow(1.08, -15);
+  CHECK(r.present_value.residual_value == Approx(residual).epsilon(1e-9));
+  const double ours =
+      schmidt + (residual + eol * (std::pow(1.08, -30) - std::pow(1.08, -16))) / energy_pv_mwh;
+  CHECK(r.lcos_per_kwh * 1000.0 == Approx(ours).epsilon(1e-5));
+  // The two conventions differ here by about 5 % (237.1 against 224.6 per MWh).
+}
+
 TEST_CASE("a bank that cannot reach its floor in the cold gives less", "[model][lifecycle]") {
   // Available capacity scales with the temperature factor (model convention): at a factor of
   // 0.5 the same DoD window holds half the charge.
