@@ -38,7 +38,8 @@ class ChargeAcceptance {
         eta_over_q_(eta_coulomb / q_ah),
         max_amps_(max_charge_amps),
         has_absorption_(absorption_soc.has_value()),
-        a_per_soc_(has_absorption_ ? max_charge_amps / (1.0 - *absorption_soc) : 0.0) {}
+        a_per_soc_(has_absorption_ ? max_charge_amps / (1.0 - *absorption_soc) : 0.0),
+        full_hour_decay_(std::exp(-eta_over_q_ * a_per_soc_ * 1.0)) {}
 
   // Terminal charge in Ah accepted over one hour from SOC `soc` at an offered current.
   double accepted_ah(double soc, double offer_amps) const {
@@ -56,7 +57,10 @@ class ChargeAcceptance {
       s = s_cross;
     }
     // Constant voltage: 1 - s(t) = (1 - s) exp(-eta_C A t / Q).
-    const double missing_end = (1.0 - s) * std::exp(-eta_over_q_ * a_per_soc_ * hours_left);
+    // A whole hour at constant voltage (the usual case near full) needs no new exponential.
+    const double decay =
+        hours_left == 1.0 ? full_hour_decay_ : std::exp(-eta_over_q_ * a_per_soc_ * hours_left);
+    const double missing_end = (1.0 - s) * decay;
     ah += ((1.0 - missing_end) - s) * q_over_eta_;
     return std::min(ah, headroom_ah);
   }
@@ -68,6 +72,7 @@ class ChargeAcceptance {
   double q_ah_, eta_, q_over_eta_, eta_over_q_, max_amps_;
   bool has_absorption_;
   double a_per_soc_;
+  double full_hour_decay_;  // exp(-eta_C A / Q): one hour at constant voltage
 };
 
 inline double accepted_charge_ah(double soc, double q_ah, double eta_coulomb, double offer_amps,

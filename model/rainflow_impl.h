@@ -102,7 +102,8 @@ void count_cycles(const double* series, std::size_t n, RainflowScratch& scratch,
   const double* w = step_weight;
   std::vector<double>& prefix = scratch.weighted_prefix;
   if (weighted) {
-    prefix.assign(n, 0.0);
+    prefix.resize(n);
+    if (n > 0) prefix[0] = 0.0;
     for (std::size_t i = 0; i + 1 < n; ++i)
       prefix[i + 1] = prefix[i] + w[i] * std::fabs(x[i + 1] - x[i]);
   }
