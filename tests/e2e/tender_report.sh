@@ -26,6 +26,19 @@ grep -q "| Bid D | min\\\\_usable\\\\_kwh | 1,200 | 960 | 240 kWh | 4 |" "$WORK/
 expect_exit 0 -- "$STOWAGE" tender --format json "$tender" &&
   { cmp -s "$WORK/out" "$WORK/r1/tender.json" || fail "tender.json differs from --format json"; }
 
+# The margins quoted in prose are the differences of the JSON's numbers, to the digits shown.
+"$PY" - "$WORK/r1" <<'PY' || fail "runner-up margins differ from tender.json"
+import json, re, sys
+doc = json.load(open(sys.argv[1] + "/tender.json"))
+md = open(sys.argv[1] + "/report.md").read()
+ranked = sorted((b for b in doc["bids"] if b["rank"] is not None), key=lambda b: b["rank"])
+best, second = ranked[0], ranked[1]
+m = re.search(r"Runner-up: (.+?), ([\d.]+) points behind in total score, \+([\d,]+) EUR", md)
+assert m and m.group(1) == second["label"], m
+assert abs(float(m.group(2)) - (best["total_score"] - second["total_score"])) <= 0.05
+assert abs(float(m.group(3).replace(",", "")) - (second["npc"] - best["npc"])) <= 0.5
+PY
+
 # The checker must catch a changed number (so it can fail).
 cp -r "$WORK/r1" "$WORK/tampered"
 sed -i 's/data-key="bids\[0\].npc" data-value="\([0-9]\)/data-key="bids[0].npc" data-value="9\1/' \
