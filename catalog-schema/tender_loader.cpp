@@ -170,7 +170,10 @@ TenderCase load_tender_file(const std::string& path) {
     const std::string site_path = resolve_relative(base, t["site"].Scalar());
     std::ifstream site_in =
         open_referenced(doc, t["site"], "tender.site", site_path, "site file", kMaxYamlFileBytes);
-    tender.site = load_site_details(site_in, site_path, parent_directory(site_path)).site;
+    LoadedSite site = load_site_details(site_in, site_path, parent_directory(site_path));
+    tender.site = std::move(site.site);
+    tender.site_path = site_path;
+    tender.hourly_path = site.hourly_path;
   }
   if (const YAML::Node r = t["requirements"]) {
     if (r["min_usable_kwh"]) tender.requirements.min_usable_kwh = number(r["min_usable_kwh"]);

@@ -86,6 +86,8 @@ struct TenderScoring {
 struct TenderCase {
   std::string title;
   std::string path;
+  std::string site_path;    // the site file as opened
+  std::string hourly_path;  // the site's hourly CSV as opened
   SiteConditions site;
   Economics economics;
   TenderRequirements requirements;

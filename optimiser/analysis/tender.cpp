@@ -141,10 +141,13 @@ BidResult evaluate_bid(const Bid& bid, const TenderCase& tender) {
   r.settle_totals();
   b.npc = r.npc + b.liquidated_damages_pv;
   b.npc_without_warranty = b.npc + b.supplier_replacements_pv - b.liquidated_damages_pv;
-  b.lcos_per_kwh =
-      r.discounted_delivered_kwh > 0
-          ? (r.present_value.storage_total() + b.liquidated_damages_pv) / r.discounted_delivered_kwh
-          : kInf;
+  const auto per_delivered_kwh = [&](double storage_cost) {
+    return r.discounted_delivered_kwh > 0
+               ? (storage_cost + b.liquidated_damages_pv) / r.discounted_delivered_kwh
+               : kInf;
+  };
+  b.lcos_per_kwh = per_delivered_kwh(r.present_value.storage_total());
+  b.lcos_schmidt_per_kwh = per_delivered_kwh(r.storage_cost_schmidt());
   check_requirements(b, bid, profile, tender);
   return b;
 }

@@ -107,7 +107,10 @@ struct BidResult {
   double liquidated_damages_pv = 0;            // <= 0: a credit to the buyer
   double availability_pv = 0;                  // the buyer's cost of the hours out of service
   double npc = 0;                              // the buyer's: design.npc + liquidated_damages_pv
-  double lcos_per_kwh = 0;      // (storage costs + liquidated damages) / delivered energy
+  double lcos_per_kwh = 0;  // (storage costs + liquidated damages) / delivered energy
+  // The same under Schmidt et al.'s conventions (model/lifecycle.h): (storage_cost_schmidt()
+  // + liquidated damages) / delivered energy, no residual value.
+  double lcos_schmidt_per_kwh = 0;
   double least_usable_kwh = 0;  // over the year-ends
   double power_kw = 0;
   std::vector<Shortfall> shortfalls;  // empty: compliant

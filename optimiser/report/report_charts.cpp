@@ -78,93 +78,110 @@ Axis value_axis(std::string label, double lo, double hi) {
 
 }  // namespace
 
-ReportFigure breakdown_chart(const std::vector<DesignResult>& designs,
-                             const std::string& currency) {
-  const std::vector<CostLine>& lines = cost_lines();
-  // Lines that are zero for every design stay out of the chart and its legend.
+ReportFigure stacked_bars_chart(const StackedBars& in) {
+  const std::size_t series = in.series.size();
+  const auto value = [&in](std::size_t bar, std::size_t k) { return in.values[bar][k]; };
+  // Series that are zero for every bar stay out of the chart and its legend.
   std::vector<std::size_t> used;
-  for (std::size_t j = 0; j < lines.size(); ++j) {
-    for (const DesignResult& d : designs) {
-      if (d.present_value.*lines[j].member != 0) {
-        used.push_back(j);
+  for (std::size_t k = 0; k < series; ++k) {
+    for (std::size_t i = 0; i < in.bars.size(); ++i) {
+      if (value(i, k) != 0) {
+        used.push_back(k);
         break;
       }
     }
   }
   double top = 0, bottom = 0;
-  for (const DesignResult& d : designs) {
+  for (std::size_t i = 0; i < in.bars.size(); ++i) {
     double up = 0, down = 0;
-    for (std::size_t j : used) {
-      const double v = d.present_value.*lines[j].member;
-      (v > 0 ? up : down) += v;
-    }
+    for (std::size_t k : used) (value(i, k) > 0 ? up : down) += value(i, k);
     top = std::max(top, up);
     bottom = std::min(bottom, down);
   }
-  const double n = static_cast<double>(std::max<std::size_t>(1, designs.size()));
+  const double n = static_cast<double>(std::max<std::size_t>(1, in.bars.size()));
   const double plot_w = std::max(260.0, std::min(480.0, 80.0 * n));
   std::size_t longest = 0;
-  for (const DesignResult& d : designs) longest = std::max(longest, d.profile_id.size());
+  for (const StackedBars::Bar& b : in.bars) longest = std::max(longest, b.tick.size());
   // Category names are turned by 35 degrees; room below for the longest.
-  const double name_drop = 20 + 0.6 * 7.0 * static_cast<double>(longest + 3);
+  const double name_drop = 20 + 0.6 * 7.0 * static_cast<double>(longest);
   const double plot_h = 300;
   const double legend_h = 60 + 20.0 * static_cast<double>(used.size());
   const double height = std::max(30 + plot_h + name_drop + 30, legend_h);
-  Canvas canvas("fig-breakdown", 100 + plot_w + 250, height,
-                "Present-value cost breakdown of the best design of each profile",
-                "Stacked bars: one per profile, each cost line a hatched segment, credits below "
-                "zero; the net present cost is printed above each bar.");
-  Axis y = value_axis("present value (" + currency + ")", bottom, top * 1.1);
-  y.tick_text = amount_tick;
+  Canvas canvas(in.id, 100 + plot_w + 250, height, in.title, in.description);
+  // Tick text of seven digits and more would run into the axis label: thousands then.
+  const bool thousands = std::max(top, -bottom) >= 1e6;
+  Axis y =
+      value_axis("present value (" + std::string(thousands ? "thousand " : "") + in.currency + ")",
+                 bottom, top * 1.1);
+  y.tick_text = thousands ? [](double v) { return format_amount(v / 1000); } : amount_tick;
   Axis x;
-  x.label = "best design of each profile, ranked by net present cost";
+  x.label = in.x_label;
   x.lo = 0;
   x.hi = n;
   x.tick_rotate = -35;
   x.label_offset = name_drop + 12;
-  for (std::size_t i = 0; i < designs.size(); ++i) x.ticks.push_back(static_cast<double>(i) + 0.5);
-  x.tick_text = [&designs](double v) {
+  for (std::size_t i = 0; i < in.bars.size(); ++i) x.ticks.push_back(static_cast<double>(i) + 0.5);
+  x.tick_text = [&in](double v) {
     const auto i = static_cast<std::size_t>(std::floor(v));
-    return i < designs.size() ? std::to_string(i + 1) + ". " + designs[i].profile_id
-                              : std::string();
+    return i < in.bars.size() ? in.bars[i].tick : std::string();
   };
   Plot plot(canvas, 90, 30, plot_w, plot_h, x, y);
   plot.draw_axes();
   for (std::size_t k = 0; k < used.size(); ++k) {
-    const CostLine& line = lines[used[k]];
+    const StackedBars::Series& line = in.series[used[k]];
     plot.begin_data(line.key);
-    for (std::size_t i = 0; i < designs.size(); ++i) {
-      // Stack in cost-line order: positives from zero up, credits from zero down.
+    for (std::size_t i = 0; i < in.bars.size(); ++i) {
+      // Stack in series order: positives from zero up, credits from zero down.
       double up = 0, down = 0;
-      for (std::size_t m = 0; m < k; ++m) {
-        const double v = designs[i].present_value.*lines[used[m]].member;
-        (v > 0 ? up : down) += v;
-      }
-      const double v = designs[i].present_value.*line.member;
+      for (std::size_t m = 0; m < k; ++m) (value(i, used[m]) > 0 ? up : down) += value(i, used[m]);
+      const double v = value(i, used[k]);
       if (v == 0) continue;
       const double base = v > 0 ? up : down;
       const double x0 = static_cast<double>(i) + 0.18, x1 = static_cast<double>(i) + 0.82;
-      plot.bar(x0, x1, base, base + v, static_cast<int>(used[k]),
-               designs[i].profile_id + ": " + line.label + " " + format_amount(v) + " " + currency);
+      plot.bar(x0, x1, base, base + v, line.style,
+               in.bars[i].name + ": " + line.label + " " + format_amount(v) + " " + in.currency);
     }
     plot.end_data();
   }
-  for (std::size_t i = 0; i < designs.size(); ++i) {
+  for (std::size_t i = 0; i < in.bars.size(); ++i) {
     double up = 0;
-    for (std::size_t j : used) up += std::max(0.0, designs[i].present_value.*lines[j].member);
-    plot.label(static_cast<double>(i) + 0.5, up, format_amount(designs[i].npc));
+    for (std::size_t k : used) up += std::max(0.0, value(i, k));
+    plot.label(static_cast<double>(i) + 0.5, up, format_amount(in.bars[i].total));
   }
   std::vector<LegendEntry> legend;
-  for (std::size_t j : used) legend.push_back({static_cast<int>(j), lines[j].label, true});
+  for (std::size_t k : used) legend.push_back({in.series[k].style, in.series[k].label, true});
   canvas.text(100 + plot_w + 20, 34, "cost line (present value)", "legend-title");
   canvas.legend(100 + plot_w + 20, 56, legend, 20);
   ReportFigure f;
-  f.id = "fig-breakdown";
-  f.caption = "Present value of each cost line of the best design of each profile (" + currency +
-              "); the number above each bar is its net present cost, the sum of all segments "
-              "with credits counted negative.";
+  f.id = in.id;
+  f.caption = in.caption;
   f.svg = canvas.str();
   return f;
+}
+
+ReportFigure breakdown_chart(const std::vector<DesignResult>& designs,
+                             const std::string& currency) {
+  StackedBars in;
+  in.id = "fig-breakdown";
+  in.title = "Present-value cost breakdown of the best design of each profile";
+  in.description =
+      "Stacked bars: one per profile, each cost line a hatched segment, credits below "
+      "zero; the net present cost is printed above each bar.";
+  in.x_label = "best design of each profile, ranked by net present cost";
+  in.currency = currency;
+  in.caption = "Present value of each cost line of the best design of each profile (" + currency +
+               "); the number above each bar is its net present cost, the sum of all segments "
+               "with credits counted negative.";
+  for (const CostLine& line : cost_lines())
+    in.series.push_back({line.key, line.label, static_cast<int>(in.series.size())});
+  for (std::size_t i = 0; i < designs.size(); ++i) {
+    const DesignResult& d = designs[i];
+    in.bars.push_back({std::to_string(i + 1) + ". " + d.profile_id, d.profile_id, d.npc});
+    std::vector<double> values;
+    for (const CostLine& line : cost_lines()) values.push_back(d.present_value.*line.member);
+    in.values.push_back(values);
+  }
+  return stacked_bars_chart(in);
 }
 
 ReportFigure soc_heat_map(const DesignResult& design, const DesignTrace& trace) {

@@ -6,6 +6,7 @@
 // of its .svg file.
 #pragma once
 
+#include <string>
 #include <vector>
 
 #include "model/chemistry_profile.h"
@@ -15,7 +16,29 @@
 
 namespace stowage::report {
 
-// Stacked present-value bars, one per design, positive items up from zero, credits down.
+// Stacked present-value bars, one per bar entry, each series a hatched segment in series
+// order, positive values up from zero, credits down; series zero in every bar are left out;
+// each bar's `total` is printed above it. Values of a million and more are shown on the axis in
+// thousands.
+struct StackedBars {
+  struct Series {
+    std::string key;    // names the <g class="data"> group
+    std::string label;  // legend
+    int style = 0;      // svg::series_style: colour, hatch; distinct among the series drawn
+  };
+  struct Bar {
+    std::string tick;  // x-axis text
+    std::string name;  // in each segment's tooltip
+    double total = 0;
+  };
+  std::string id, title, description, x_label, caption, currency;
+  std::vector<Series> series;
+  std::vector<Bar> bars;
+  std::vector<std::vector<double>> values;  // [bar][series]
+};
+ReportFigure stacked_bars_chart(const StackedBars& bars);
+
+// The study's ranking: one bar per design, its CostBreakdown lines (cost_lines.h).
 ReportFigure breakdown_chart(const std::vector<DesignResult>& designs, const std::string& currency);
 // SOC at the end of each hour of year 1, by hour of day (rows) and day of year (columns).
 ReportFigure soc_heat_map(const DesignResult& design, const DesignTrace& trace);

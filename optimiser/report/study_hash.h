@@ -13,11 +13,12 @@
 #include <vector>
 
 #include "catalog-schema/study_loader.h"
+#include "catalog-schema/tender_loader.h"
 
 namespace stowage::report {
 
 struct InputFileHash {
-  std::string role;  // "study", "site", "hourly series", "profile <id>", "SOC log"
+  std::string role;  // "study", "site", "hourly series", "profile <id>", "SOC log", ...
   std::string path;  // as the loader opened it, lexically normalised
   std::uintmax_t bytes = 0;
   std::string sha256;  // 64 lower-case hex digits
@@ -30,5 +31,10 @@ struct StudyHash {
 
 // Reads the files again; a file that can no longer be read is an InputError naming it.
 StudyHash hash_study_inputs(const LoadedStudy& loaded);
+
+// The same for a tender (the tender report): the tender file, the site file, its hourly CSV,
+// then for each bid in tender order its bid file ("bid file <label>") and the chemistry profile it
+// names ("profile of <label>").
+StudyHash hash_tender_inputs(const TenderCase& tender);
 
 }  // namespace stowage::report

@@ -495,13 +495,15 @@ ReportSection inputs_section(const LoadedStudy& loaded) {
   return s;
 }
 
-ReportSection reproduce_section(const LoadedStudy& loaded) {
-  const StudyHash hash = hash_study_inputs(loaded);
+}  // namespace
+
+ReportSection reproduce_section(const StudyHash& hash, const std::string& digest_name) {
   ReportSection s;
   s.id = "reproduce";
   s.title = "Reproducing this report";
-  s.paragraph(std::string("Made by stowage ") + STOWAGE_VERSION_STRING +
-              " from the files below. Study digest (SHA-256 over the lines \"digest  role\" of "
+  s.paragraph(std::string("Made by stowage ") + STOWAGE_VERSION_STRING + " from the files below. " +
+              digest_name +
+              " digest (SHA-256 over the lines \"digest  role\" of "
               "the files in this order, docs/report.md): " +
               hash.digest +
               ". Running the same version on files with these digests gives the same report, "
@@ -517,6 +519,8 @@ ReportSection reproduce_section(const LoadedStudy& loaded) {
   s.table(t);
   return s;
 }
+
+namespace {
 
 ReportSection method_section() {
   ReportSection s;
@@ -584,6 +588,8 @@ std::string safety_text() {
   return out;
 }
 
+}  // namespace
+
 ReportSection safety_section() {
   ReportSection s;
   s.id = "safety";
@@ -591,6 +597,8 @@ ReportSection safety_section() {
   s.notice(safety_text());
   return s;
 }
+
+namespace {
 
 // ---- data files ---------------------------------------------------------------------------
 
@@ -624,7 +632,7 @@ ReportDocument build_study_report(const ReportInputs& in) {
   for (const ReportSection& extra : in.analysis_sections) doc.sections.push_back(extra);
   if (r.feasible()) doc.sections.push_back(recommended_section(study, r, *in.trace));
   doc.sections.push_back(inputs_section(*in.loaded));
-  doc.sections.push_back(reproduce_section(*in.loaded));
+  doc.sections.push_back(reproduce_section(hash_study_inputs(*in.loaded), "Study"));
   doc.sections.push_back(method_section());
   doc.sections.push_back(limits_section());
   doc.sections.push_back(safety_section());

@@ -21,6 +21,7 @@
 #include "optimiser/optimise.h"
 #include "optimiser/report/output_set.h"
 #include "optimiser/report/report_document.h"
+#include "optimiser/report/study_hash.h"
 
 namespace stowage::report {
 
@@ -43,6 +44,12 @@ ReportDocument build_study_report(const ReportInputs& inputs);
 // Adds report.html, report.md, one .svg per figure and the data files to `set` (not yet
 // committed). The inputs must outlive set.commit().
 void add_report_files(OutputSet& set, const ReportInputs& inputs);
+
+// Sections every report ends with, shared with the tender report (tender_document.h):
+// the tool version and the SHA-256 of every input file with the digest over them (named
+// "<digest_name> digest"), and the safety cautions (print_safety_notice's wording).
+ReportSection reproduce_section(const StudyHash& hash, const std::string& digest_name);
+ReportSection safety_section();
 
 // "YYYY-MM-DDTHH:MM:SSZ": the time given by SOURCE_DATE_EPOCH when it is set to a number of
 // seconds (reproducible builds convention), else now.

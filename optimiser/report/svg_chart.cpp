@@ -25,6 +25,10 @@ constexpr SeriesStyle kStyles[] = {
     {"#CC79A7", "1 3", "circle", 5},       // reddish purple
     {"#F0E442", "10 2", "square", 6},      // yellow
     {"#000000", "3 6", "triangle", 7},     // black
+    // Beyond the eight colours: a colour again with a hatch and dash it has nowhere else, so
+    // that the nine cost lines of a breakdown and a tender's damages credit stay apart.
+    {"#0072B2", "2 4", "diamond", 5},    // blue, cross-hatched
+    {"#D55E00", "5 2 1 2", "cross", 6},  // vermillion, dotted
 };
 constexpr int kStyleCount = static_cast<int>(sizeof(kStyles) / sizeof(kStyles[0]));
 
@@ -86,6 +90,8 @@ std::string marker_shape(const char* kind, double x, double y, const char* colou
 }
 
 }  // namespace
+
+int series_style_count() { return kStyleCount; }
 
 const SeriesStyle& series_style(int i) {
   return kStyles[((i % kStyleCount) + kStyleCount) % kStyleCount];

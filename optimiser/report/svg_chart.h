@@ -29,8 +29,11 @@ struct SeriesStyle {
   const char* marker;  // "circle", "square", "triangle", "diamond", "cross", "none"
   int hatch;           // index of the hatch pattern for areas, 0..7
 };
-// Style i (taken modulo the palette's size, 8).
+// Style i (taken modulo series_style_count(), 10): the eight Okabe-Ito colours, then two of
+// them again with a hatch and dash of their own, so every style differs in its colour and
+// hatch pair and in its dash.
 const SeriesStyle& series_style(int i);
+int series_style_count();
 // Sequential colour of step `step` of `steps` (0 = darkest) of the YlOrBr scheme.
 std::string sequential_colour(int step, int steps);
 

@@ -112,9 +112,11 @@ void write_tender_text(std::ostream& out, const TenderCase& tender, const Tender
     out << "No bid meets the tender's requirements.\n\n";
   } else {
     const BidResult& best = result.bids[result.order.front()];
-    fmt::print(out, "Recommended: {} ({}), total score {:.1f}, NPC {} {}, LCOS {:.4f} {}/kWh\n",
+    fmt::print(out,
+               "Recommended: {} ({}), total score {:.1f}, NPC {} {}, LCOS {:.4f} {}/kWh "
+               "({:.4f} under Schmidt et al. 2019 conventions)\n",
                best.label, best.family, best.total_score, format_amount(best.npc), cur,
-               best.lcos_per_kwh, cur);
+               best.lcos_per_kwh, cur, best.lcos_schmidt_per_kwh);
     if (result.order.size() > 1) {
       const BidResult& second = result.bids[result.order[1]];
       fmt::print(out, "Runner-up:   {}, {:.1f} points behind, NPC {} {}\n", second.label,
@@ -132,14 +134,15 @@ void write_tender_text(std::ostream& out, const TenderCase& tender, const Tender
     out << "\n";
   }
 
-  out << "Scoring (price score = 100 x lowest NPC / bid NPC)\n";
-  fmt::print(out, "{:>4}  {:<10}{:>14}{:>12}{:>8}{:>11}{:>8}\n", "rank", "bid", "NPC " + cur,
-             "LCOS/kWh", "price", "technical", "total");
+  out << "Scoring (price score = 100 x lowest NPC / bid NPC; LCOS per kWh delivered, ours with\n"
+         "the residual value and Schmidt et al. 2019 conventions without it)\n";
+  fmt::print(out, "{:>4}  {:<10}{:>14}{:>12}{:>12}{:>8}{:>11}{:>8}\n", "rank", "bid", "NPC " + cur,
+             "LCOS", "LCOS Schm.", "price", "technical", "total");
   for (std::size_t i : result.order) {
     const BidResult& b = result.bids[i];
-    fmt::print(out, "{:>4}  {:<10}{:>14}{:>12.4f}{:>8.1f}{:>11.1f}{:>8.1f}\n", b.rank, b.label,
-               format_amount(b.npc), b.lcos_per_kwh, b.price_score, b.technical_score,
-               b.total_score);
+    fmt::print(out, "{:>4}  {:<10}{:>14}{:>12.4f}{:>12.4f}{:>8.1f}{:>11.1f}{:>8.1f}\n", b.rank,
+               b.label, format_amount(b.npc), b.lcos_per_kwh, b.lcos_schmidt_per_kwh, b.price_score,
+               b.technical_score, b.total_score);
   }
   out << "\nWarranty against the chemistry's own ageing model\n";
   out << "  (replacements at the end of the years shown)\n";
@@ -231,6 +234,7 @@ void write_tender_json(std::ostream& out, const TenderCase& tender, const Tender
     json.field("total_score", b.compliant() ? b.total_score : std::nan(""));
     json.field("npc", b.npc);
     json.field("lcos_per_kwh", b.lcos_per_kwh);
+    json.field("lcos_schmidt_per_kwh", b.lcos_schmidt_per_kwh);
     json.field("npc_without_warranty", b.npc_without_warranty);
     json.field("liquidated_damages", b.liquidated_damages_pv);
     json.field("availability_cost", b.availability_pv);
@@ -284,15 +288,16 @@ void write_tender_json(std::ostream& out, const TenderCase& tender, const Tender
 }
 
 void write_tender_csv(std::ostream& out, const TenderCase&, const TenderResult& result) {
-  out << "bid,family,compliant,rank,npc,lcos_per_kwh,price_score,technical_score,total_score,"
+  out << "bid,family,compliant,rank,npc,lcos_per_kwh,lcos_schmidt_per_kwh,price_score,technical_"
+         "score,total_score,"
          "warranty_end_years,warranty_end_by,modelled_life_years,supplier_paid_replacements,"
          "buyer_paid_replacements,least_usable_kwh,power_kw,top_up_kwh,liquidated_damages,"
          "availability_cost\n";
   for (const BidResult& b : result.bids) {
     out << b.label << ',' << b.family << ',' << (b.compliant() ? "true" : "false") << ','
         << (b.rank > 0 ? std::to_string(b.rank) : std::string()) << ',' << format_machine(b.npc)
-        << ',' << format_machine(b.lcos_per_kwh) << ','
-        << (b.compliant() ? format_machine(b.price_score) : "") << ','
+        << ',' << format_machine(b.lcos_per_kwh) << ',' << format_machine(b.lcos_schmidt_per_kwh)
+        << ',' << (b.compliant() ? format_machine(b.price_score) : "") << ','
         << (b.compliant() ? format_machine(b.technical_score) : "") << ','
         << (b.compliant() ? format_machine(b.total_score) : "") << ','
         << format_machine(b.warranty.years) << ',' << cause_text(b.warranty.cause) << ','

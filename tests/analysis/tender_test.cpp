@@ -173,6 +173,31 @@ TEST_CASE("liquidated damages are a credit in the buyer's NPC at the year-end th
   CHECK(b.design.years.back().damage_end == bid(without, "Bid C").design.years.back().damage_end);
 }
 
+TEST_CASE("a bid's LCOS under both conventions carries the damages credit in its numerator",
+          "[analysis][tender][warranty]") {
+  TenderCase tender = load_tender_file(kTender);
+  Bid& c = tender.bids[2];
+  REQUIRE(c.label == "Bid C");
+  c.warranty.retention = {{25, 0.90}};
+  c.warranty.capacity_remedy = CapacityRemedy::LiquidatedDamages;
+  c.warranty.liquidated_damages_per_kwh = 60;
+  const BidResult& b = bid(evaluate_tender(tender), "Bid C");
+  REQUIRE(b.liquidated_damages_pv < 0);
+  const DesignResult& d = b.design;
+  const double delivered = d.discounted_delivered_kwh;
+  // docs/tender.md rule 4: the credit adds to the storage costs, the denominator is unchanged.
+  CHECK((b.lcos_per_kwh - d.lcos_per_kwh) * delivered ==
+        Approx(b.liquidated_damages_pv).epsilon(1e-9));
+  CHECK((b.lcos_schmidt_per_kwh - d.lcos_schmidt_per_kwh) * delivered ==
+        Approx(b.liquidated_damages_pv).epsilon(1e-9));
+  // docs/method.md 7, derived there: the two conventions differ by the residual value and by
+  // moving the last end of life from t_final to N + 1 = 16, discounted at 7 % by hand here.
+  const double moved =
+      d.final_end_of_life * (std::pow(1.07, -16.0) - std::pow(1.07, -d.final_end_of_life_year));
+  CHECK((b.lcos_schmidt_per_kwh - b.lcos_per_kwh) * delivered ==
+        Approx(-d.present_value.residual_value + moved).epsilon(1e-9));
+}
+
 TEST_CASE("an availability guarantee buys the duty of the hours out of service as back-up",
           "[analysis][tender][warranty]") {
   TenderCase tender = load_tender_file(kTender);

@@ -1,6 +1,7 @@
 #!/usr/bin/python3
 # SPDX-License-Identifier: MIT
-# Checks one report output set (stowage report / optimise --report):
+# Checks one report output set (stowage report / optimise --report; with --tender, the tender
+# report of `stowage tender --report`, whose numbers are checked against tender.json):
 #   - report.html is well-formed (xml.etree, and html.parser for balanced tags), self-contained
 #     (no script, no external reference) and has print CSS;
 #   - every figure is inline in the HTML with the same bytes as its .svg file, has data marks,
@@ -11,7 +12,7 @@
 #     FIPS 180-4), and the study digest follows docs/report.md;
 #   - report.md renders with python3-markdown and has the same headings, table cells and figures;
 #   - the safety cautions are there.
-# Usage: report_check.py DIR [--infeasible]
+# Usage: report_check.py DIR [--infeasible] [--tender]
 import hashlib
 import html.parser
 import json
@@ -25,6 +26,7 @@ import markdown
 
 out_dir = sys.argv[1]
 infeasible = "--infeasible" in sys.argv
+tender = "--tender" in sys.argv
 errors = []
 
 
@@ -39,7 +41,8 @@ def read(name):
 
 
 html_text = read("report.html")
-doc = json.load(open(os.path.join(out_dir, "result.json")))
+json_name = "tender.json" if tender else "result.json"
+doc = json.load(open(os.path.join(out_dir, json_name)))
 
 # ---- well-formed, self-contained HTML -----------------------------------------------------
 root = ET.fromstring(html_text.split("\n", 1)[1])  # after <!DOCTYPE html>
@@ -89,7 +92,9 @@ SVG = "{http://www.w3.org/2000/svg}"
 svg_files = sorted(f for f in os.listdir(out_dir) if f.endswith(".svg"))
 inline = re.findall(r"<figure id=\"([^\"]+)\">\n(<svg .*?</svg>\n)", html_text, re.S)
 check(len(inline) == len(svg_files), f"{len(inline)} inline figures, {len(svg_files)} .svg files")
-if not infeasible:
+if tender:
+    check({i for i, _ in inline} == {"fig-bids"}, f"figures {sorted(i for i, _ in inline)}")
+elif not infeasible:
     want = {"fig-breakdown", "fig-soc", "fig-rainflow", "fig-life", "fig-cycle-life",
             "fig-temperature"}
     check({i for i, _ in inline} == want, f"figures {sorted(i for i, _ in inline)}")
@@ -127,7 +132,18 @@ def resolve(path):
 
 tagged = [e for e in all_elements if e.get("data-key") is not None]
 keys = {e.get("data-key") for e in tagged}
-if not infeasible:
+if tender:
+    for i, bid in enumerate(doc["bids"]):
+        for field in ("npc", "lcos_per_kwh", "lcos_schmidt_per_kwh", "liquidated_damages",
+                      "warranty_end_years", "design.breakdown.investment", "label"):
+            check(f"bids[{i}].{field}" in keys, f"no tagged number for bids[{i}].{field}")
+        if bid["rank"] is not None:
+            for field in ("rank", "price_score", "technical_score", "total_score"):
+                check(f"bids[{i}].{field}" in keys, f"no tagged number for bids[{i}].{field}")
+        for j in range(len(bid["shortfalls"])):
+            check(f"bids[{i}].shortfalls[{j}].offered" in keys, f"shortfall {i}.{j} not shown")
+    check(len(tagged) >= 40, f"only {len(tagged)} tagged numbers")
+elif not infeasible:
     for must in ("best.npc", "best.lcos_per_kwh", "best.profile", "best.dod_setpoint",
                  "ranking[1].npc_difference_to_best", "ranking[0].design.breakdown.investment",
                  "optimality"):
@@ -201,4 +217,4 @@ if errors:
     for e in errors[:40]:
         print("FAIL:", e, file=sys.stderr)
     sys.exit(1)
-print(f"report ok: {len(inline)} figures, {len(tagged)} numbers checked against result.json")
+print(f"report ok: {len(inline)} figures, {len(tagged)} numbers checked against {json_name}")

@@ -6,6 +6,7 @@
 #include <catch2/catch.hpp>
 #include <set>
 #include <string>
+#include <utility>
 
 #include "model/contract.h"
 
@@ -89,6 +90,21 @@ TEST_CASE("the eight series styles differ in colour, dash and hatch", "[svg]") {
   // The eight Okabe-Ito colours (Okabe & Ito 2008, Color Universal Design).
   CHECK(colours == std::set<std::string>{"#000000", "#E69F00", "#56B4E9", "#009E73", "#F0E442",
                                          "#0072B2", "#D55E00", "#CC79A7"});
+}
+
+TEST_CASE("every series style differs from the others in colour and hatch together and in dash",
+          "[svg]") {
+  // Nine cost lines (cost_lines.h) and a tender's damages credit must not share a look.
+  REQUIRE(series_style_count() >= 10);
+  std::set<std::pair<std::string, int>> looks;
+  std::set<std::string> dashes;
+  for (int i = 0; i < series_style_count(); ++i) {
+    looks.insert({series_style(i).colour, series_style(i).hatch});
+    dashes.insert(series_style(i).dash);
+  }
+  CHECK(looks.size() == static_cast<std::size_t>(series_style_count()));
+  CHECK(dashes.size() == static_cast<std::size_t>(series_style_count()));
+  CHECK(series_style(series_style_count()).colour == series_style(0).colour);
 }
 
 TEST_CASE("sequential colours darken step by step", "[svg]") {
