@@ -4,6 +4,7 @@
 #include <algorithm>
 #include <cmath>
 #include <limits>
+#include <utility>
 
 #include "model/contract.h"
 #include "model/costs.h"
@@ -49,6 +50,13 @@ LifecycleEvaluator::LifecycleEvaluator(const ChemistryProfile& profile, const Si
       factors_(hourly_factors(profile, site)) {}
 
 DesignResult LifecycleEvaluator::evaluate(double dod_setpoint, int strings_parallel) {
+  constexpr double kNoLimit = std::numeric_limits<double>::infinity();
+  return std::move(*evaluate_unless_above(dod_setpoint, strings_parallel, kNoLimit).result);
+}
+
+LifecycleEvaluator::Bounded LifecycleEvaluator::evaluate_unless_above(double dod_setpoint,
+                                                                      int strings_parallel,
+                                                                      double npc_limit) {
   require_dod_setpoint(dod_setpoint);
   const ChemistryProfile& p = *profile_;
   const SiteConditions& site = *site_;
@@ -80,6 +88,20 @@ DesignResult LifecycleEvaluator::evaluate(double dod_setpoint, int strings_paral
   CostBreakdown& pv = r.present_value;
   pv.investment = r.investment;
   r.years.reserve(static_cast<std::size_t>(econ.project_years));
+
+  // Early stop (lifecycle.h): the credits still to come, and whether a replacement can be one.
+  // The price path is monotone, so its least over the replacement years 1 .. N-1 is at an end.
+  const double least_replacement_price =
+      std::min(costs.replacement_price(r.investment, 1.0),
+               costs.replacement_price(r.investment, econ.project_years - 1.0));
+  const bool may_stop = npc_limit < std::numeric_limits<double>::infinity() &&
+                        least_replacement_price + replacement_end_of_life_cost >= 0;
+  const double credits_to_come =
+      costs.replacement_price(r.investment, econ.project_years) *
+          present_worth_factor(econ.real_discount_rate, econ.project_years) +
+      std::max(0.0, -end_of_life_cost) *
+          present_worth_factor(econ.real_discount_rate, econ.project_years + 1.0);
+  const double stop_margin = 1e-9 * std::max(1.0, std::fabs(npc_limit));
 
   for (int year = 1; year <= econ.project_years; ++year) {
     YearRecord rec;
@@ -149,6 +171,11 @@ DesignResult LifecycleEvaluator::evaluate(double dod_setpoint, int strings_paral
       r.unserved_fraction_max =
           std::max(r.unserved_fraction_max, rec.dispatch.unserved_kwh / demand);
     r.years.push_back(rec);
+    if (may_stop && year < econ.project_years) {
+      const double npc_lower_bound = pv.total() - credits_to_come;
+      if (npc_lower_bound - npc_limit > stop_margin)
+        return Bounded{std::nullopt, npc_lower_bound, year};
+    }
   }
 
   // End of life of the last bank: one year after the last operating year when it is worn out
@@ -163,7 +190,8 @@ DesignResult LifecycleEvaluator::evaluate(double dod_setpoint, int strings_paral
   r.settle_totals();
   r.meets_unserved_limit = !site.unserved_limit_fraction ||
                            r.unserved_fraction_max <= *site.unserved_limit_fraction + 1e-12;
-  return r;
+  const double npc = r.npc;
+  return Bounded{std::move(r), npc, econ.project_years};
 }
 
 }  // namespace stowage

@@ -27,6 +27,7 @@
 //   lifecycle cost of serving the site, which the optimiser minimises.
 #pragma once
 
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -131,6 +132,21 @@ class LifecycleEvaluator {
 
   // Throws ContractViolation for a DoD setpoint outside (0, 1] or strings < 1.
   DesignResult evaluate(double dod_setpoint, int strings_parallel);
+
+  // The design's exact result, unless its NPC must exceed `npc_limit`: then the simulation
+  // stops at the first year-end where
+  //   PV of the costs so far - largest credits still to come > npc_limit (1e-9 relative margin),
+  // the credits being the residual value (at most P(N) x PW(N): remaining fraction <= 1) and a
+  // salvage value of the last bank (at most |end of life| x PW(N + 1)). Every other line still
+  // to come costs >= 0 (prices, O&M, back-up and penalties are non-negative; the discount rate is
+  // >= 0), so this lower bound is rigorous. Where a replacement can net a credit (a trade-in
+  // worth more than the replacement bank) nothing is cut short. Same contract as evaluate().
+  struct Bounded {
+    std::optional<DesignResult> result;  // unset: stopped early, NPC > npc_limit
+    double npc_lower_bound = 0;          // the exact NPC when `result` is set
+    int years_simulated = 0;
+  };
+  Bounded evaluate_unless_above(double dod_setpoint, int strings_parallel, double npc_limit);
 
   const ChemistryProfile& profile() const { return *profile_; }
   const AccelerationSeries& acceleration() const { return acceleration_; }

@@ -144,6 +144,8 @@ class Search {
                      [](const DesignResult& a, const DesignResult& b) { return a.npc < b.npc; });
     result.designs_evaluated_exactly = evaluated_;
     result.designs_evaluated_for_proof = proved_;
+    result.designs_stopped_early = stopped_early_;
+    result.years_simulated = years_simulated_;
     result.submodels_solved = submodels_solved_;
     result.pairs_pruned_by_bound = pruned_bound_;
     result.pairs_pruned_by_estimate = pruned_estimate_;
@@ -165,9 +167,10 @@ class Search {
 
  private:
   struct Exact {
-    double npc = kInf;
+    double npc = kInf;  // a lower bound when stopped_early
     bool feasible = false;
     double unserved_fraction = kInf;
+    bool stopped_early = false;  // NPC above its profile's best: settled, never an incumbent
   };
 
   // Admissible designs that are neither evaluated exactly nor excluded by the rigorous bound
@@ -272,7 +275,13 @@ class Search {
     auto it = cache_.find(key);
     if (it != cache_.end()) return it->second;
     const DesignChoice& ch = space_.choices[c];
-    return record(key, evaluator(0, ch.profile_index).evaluate(ch.dod_setpoint, n));
+    return record(key,
+                  evaluator(0, ch.profile_index).evaluate_unless_above(ch.dod_setpoint, n, kInf));
+  }
+
+  // The NPC above which a design of `profile` cannot change the ranking: its best so far.
+  double stop_above(std::size_t profile) const {
+    return profile_best_[profile] ? profile_best_[profile]->npc : kInf;
   }
 
   // The evaluator of `profile` for worker `thread` (0: the calling thread). Each worker only
@@ -286,9 +295,19 @@ class Search {
     return *slot;
   }
 
-  const Exact& record(const std::pair<std::size_t, int>& key, const DesignResult& r) {
-    const DesignChoice& ch = space_.choices[key.first];
+  const Exact& record(const std::pair<std::size_t, int>& key,
+                      const LifecycleEvaluator::Bounded& b) {
     ++evaluated_;
+    years_simulated_ += static_cast<std::size_t>(b.years_simulated);
+    if (!b.result) {
+      ++stopped_early_;
+      Exact e;
+      e.npc = b.npc_lower_bound;
+      e.stopped_early = true;
+      return cache_.emplace(key, e).first->second;
+    }
+    const DesignResult& r = *b.result;
+    const DesignChoice& ch = space_.choices[key.first];
     Exact e;
     e.npc = r.npc;
     e.feasible = r.meets_unserved_limit;
@@ -315,12 +334,19 @@ class Search {
         todo.push_back(d);
       }
     }
-    std::vector<DesignResult> results(todo.size());
+    // Each design may stop early above its profile's best at the batch's start (a value fixed
+    // before the threads run, so the outcome still does not depend on the thread count).
+    std::vector<double> limits(todo.size());
+    for (std::size_t i = 0; i < todo.size(); ++i) {
+      limits[i] = stop_above(space_.choices[todo[i].first].profile_index);
+    }
+    std::vector<LifecycleEvaluator::Bounded> results(todo.size());
     std::atomic<std::size_t> next{0};
     auto work = [&](std::size_t thread) {
       for (std::size_t i; (i = next.fetch_add(1)) < todo.size();) {
         const DesignChoice& ch = space_.choices[todo[i].first];
-        results[i] = evaluator(thread, ch.profile_index).evaluate(ch.dod_setpoint, todo[i].second);
+        results[i] = evaluator(thread, ch.profile_index)
+                         .evaluate_unless_above(ch.dod_setpoint, todo[i].second, limits[i]);
       }
     };
     const std::size_t workers = std::min(threads_, todo.size());
@@ -658,6 +684,7 @@ class Search {
   std::vector<std::optional<DesignResult>> profile_best_;
   std::vector<std::vector<double>> ratios_;
   std::optional<DesignResult> best_;
+  std::size_t stopped_early_ = 0, years_simulated_ = 0;
   std::size_t evaluated_ = 0, submodels_solved_ = 0, pruned_bound_ = 0, pruned_estimate_ = 0;
   std::size_t proved_ = 0;
   double model_seconds_ = 0;

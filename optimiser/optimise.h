@@ -98,7 +98,13 @@ struct OptimiseResult {
   double model_seconds = 0;  // of solve_seconds, spent building and solving sub-models
   std::size_t designs_evaluated_exactly = 0;
   std::size_t designs_evaluated_for_proof = 0;  // of those, by the proof step (prove)
-  std::size_t admissible_designs = 0;           // size of the design space within the constraints
+  // Of designs_evaluated_exactly, those whose simulation stopped early because their NPC had to
+  // exceed the best of their profile so far (LifecycleEvaluator::evaluate_unless_above): settled,
+  // but not in the ranking. years_simulated counts the project years simulated over all
+  // evaluations (designs_evaluated_exactly x project years without early stops).
+  std::size_t designs_stopped_early = 0;
+  std::size_t years_simulated = 0;
+  std::size_t admissible_designs = 0;  // size of the design space within the constraints
   std::size_t submodels_solved = 0;
   std::size_t pairs_pruned_by_bound = 0;
   std::size_t pairs_pruned_by_estimate = 0;

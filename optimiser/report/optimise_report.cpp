@@ -229,14 +229,21 @@ void write_optimise_text(std::ostream& out, const StudyCase& study, const Optimi
     fmt::print(out,
                "Search: {} sub-models solved, {} (profile, DoD) pairs pruned by the cost bound "
                "and {} by the calibrated model estimate; {} of {} designs evaluated exactly "
-               "({} of them to prove the answer) in {:.2f} s\n\n",
+               "({} of them to prove the answer) in {:.2f} s\n",
                r.submodels_solved, r.pairs_pruned_by_bound, r.pairs_pruned_by_estimate,
                r.designs_evaluated_exactly, r.admissible_designs, r.designs_evaluated_for_proof,
                r.solve_seconds);
   } else {
-    fmt::print(out, "Search: {} of {} designs evaluated exactly in {:.2f} s\n\n",
+    fmt::print(out, "Search: {} of {} designs evaluated exactly in {:.2f} s\n",
                r.designs_evaluated_exactly, r.admissible_designs, r.solve_seconds);
   }
+  if (r.designs_stopped_early > 0) {
+    fmt::print(out,
+               "        {} of them stopped early, once their cost so far, less the most they "
+               "could still earn back, passed their profile's best\n",
+               r.designs_stopped_early);
+  }
+  out << "\n";
 
   out << "Best design of each profile, by net present cost of serving the site\n";
   fmt::print(out, "{:>4}  {:<28}{:>5}{:>9}{:>11}{:>13}{:>13}{:>14}{:>14}\n", "rank", "profile",
@@ -314,6 +321,8 @@ void write_optimise_json(std::ostream& out, const StudyCase& study, const Optimi
   json.field("solve_seconds", r.solve_seconds);
   json.field("designs_evaluated_exactly", static_cast<long>(r.designs_evaluated_exactly));
   json.field("designs_evaluated_for_proof", static_cast<long>(r.designs_evaluated_for_proof));
+  json.field("designs_stopped_early", static_cast<long>(r.designs_stopped_early));
+  json.field("years_simulated", static_cast<long>(r.years_simulated));
   json.field("admissible_designs", static_cast<long>(r.admissible_designs));
   json.field("submodels_solved", static_cast<long>(r.submodels_solved));
   json.field("pairs_pruned_by_bound", static_cast<long>(r.pairs_pruned_by_bound));
