@@ -116,6 +116,7 @@ YearDispatch dispatch_year(const DispatchInputs& in, DispatchState& state,
   trace[0] = soc;
   // Running sums kept in registers, stored once at the end.
   double charge_source = 0, charge_cost = 0, charged_terminal = 0, discharged_terminal = 0;
+  double charge_blocked_hours = 0, discharge_blocked_hours = 0;
   double delivered_sum = 0, backup = 0, unserved = 0, curtailed = 0, full_cycles = 0;
 
   for (std::size_t h = 0; h < static_cast<std::size_t>(kHoursPerYear); ++h) {
@@ -134,6 +135,7 @@ YearDispatch dispatch_year(const DispatchInputs& in, DispatchState& state,
         soc += amps * soc_per_charge_amp;
         if (soc > 1.0) soc = 1.0;
       }
+      if (!can_charge[h] && soc < 1.0) charge_blocked_hours += 1;
       const double drawn = to_terminals * inv_eta_charger;
       charged_terminal += to_terminals;
       charge_source += drawn;
@@ -141,6 +143,7 @@ YearDispatch dispatch_year(const DispatchInputs& in, DispatchState& state,
       curtailed += surplus - drawn;
     } else if (deficit > 0) {
       double delivered = 0;
+      if (!can_discharge[h] && soc > 1.0 - dod) discharge_blocked_hours += 1;
       if (can_discharge[h]) {
         // The window this hour reaches down to 1 - reachable_depth (dod_window.h). Cold
         // narrows it (the charge below stays in the cells and comes back when the bank warms
@@ -193,6 +196,8 @@ YearDispatch dispatch_year(const DispatchInputs& in, DispatchState& state,
   y.charge_source_kwh = charge_source;
   y.charge_cost = charge_cost;
   y.charged_terminal_kwh = charged_terminal;
+  y.charge_blocked_by_temperature_hours = charge_blocked_hours;
+  y.discharge_blocked_by_temperature_hours = discharge_blocked_hours;
   y.discharged_terminal_kwh = discharged_terminal;
   y.delivered_kwh = delivered_sum;
   y.backup_kwh = backup;

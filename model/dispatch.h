@@ -54,6 +54,16 @@ struct YearDispatch {
   double curtailed_kwh = 0;
   double equivalent_full_cycles = 0;      // sum of SOC decreases by discharge (fractions of Q)
   double partial_charge_excess_days = 0;  // days beyond the grace period without full charge
+  // Hours the bank sat idle because of its temperature limits (inclusive, as above): a surplus
+  // arrived outside the charging range while the SOC was below 1, or a deficit outside the
+  // operating range while the SOC was above the setpoint floor 1 - dod_setpoint (both SOCs
+  // after the hour's self-discharge). That surplus is curtailed, that deficit goes to back-up
+  // or unserved.
+  double charge_blocked_by_temperature_hours = 0;
+  double discharge_blocked_by_temperature_hours = 0;
+  double temperature_idle_hours() const {
+    return charge_blocked_by_temperature_hours + discharge_blocked_by_temperature_hours;
+  }
 };
 
 // Share of the rated capacity the cells give before cut-off at a constant current `amps`

@@ -185,3 +185,48 @@ TEST_CASE("no charging outside the charging temperature limits", "[model][dispat
   CHECK(y.charged_terminal_kwh == 0.0);
   CHECK(trace.back() == Approx(0.5));
 }
+
+TEST_CASE("hours idle because of the temperature limits are counted", "[model][dispatch]") {
+  // Hand count. Charging limit 0 degC, operating limit -40 degC (inclusive). Hours 0..99 at
+  // -5 degC with a 1 kW surplus and the bank at SOC 0.5: 100 hours of surplus it had room for
+  // but could not take. It then charges to full in one warm hour (0.1 kWh of room, 1 kW
+  // offered). Hours 5000..5049 at -50 degC with a 0.01 kW deficit and a full bank: 50 hours it
+  // could not serve. Hours 6000..6009 at -50 degC with a surplus and a full bank: no room, not
+  // counted.
+  auto p = ideal_cell(100);
+  TemperatureSpec t = p.temperature.spec();
+  t.charge_min_c = 0;
+  p.temperature = TemperatureBehaviour(t);
+  auto s = quiet_site(2.0, 25.0);
+  s.source_kw.assign(kHoursPerYear, 1.0);
+  s.backup_price_per_kwh = 0.5;
+  for (std::size_t h = 0; h < 100; ++h) s.temp_c[h] = -5.0;
+  for (std::size_t h = 5000; h < 5050; ++h) {
+    s.temp_c[h] = -50.0;
+    s.source_kw[h] = 0.0;
+    s.load_kw[h] = 0.01;
+  }
+  for (std::size_t h = 6000; h < 6010; ++h) s.temp_c[h] = -50.0;
+  std::vector<double> trace;
+  const auto y = run_year(p, s, 1, 0.5, trace, 0.5);
+  CHECK(y.charge_blocked_by_temperature_hours == 100.0);
+  CHECK(y.discharge_blocked_by_temperature_hours == 50.0);
+  CHECK(y.temperature_idle_hours() == 150.0);
+  CHECK(y.delivered_kwh == 0.0);
+  CHECK(y.backup_kwh == Approx(50 * 0.01));
+}
+
+TEST_CASE("an empty bank outside its operating range is not idle because of it",
+          "[model][dispatch]") {
+  // With the SOC at the setpoint floor (1 - 0.5) and no source, the bank has nothing to give
+  // whatever the temperature: cold hours of deficit are not counted.
+  auto p = ideal_cell(100);
+  auto s = quiet_site(2.0, -50.0);
+  s.load_kw.assign(kHoursPerYear, 0.01);
+  std::vector<double> trace;
+  const auto y = run_year(p, s, 1, 0.5, trace, 0.5);
+  CHECK(y.discharge_blocked_by_temperature_hours == 0.0);
+  // Full, the same bank is blocked in every hour.
+  const auto full = run_year(p, s, 1, 0.5, trace, 1.0);
+  CHECK(full.discharge_blocked_by_temperature_hours == kHoursPerYear);
+}
