@@ -64,6 +64,10 @@ void write_design_json(JsonWriter& json, const DesignResult& d, const Requiremen
   json.field("unserved_fraction_max", d.unserved_fraction_max);
   json.field("meets_unserved_limit", d.meets_unserved_limit);
   const YearDispatch& first = d.years.front().dispatch;
+  json.field("auxiliary_kwh_first_year", first.auxiliary_kwh);
+  json.field("auxiliary_source_kwh_first_year", first.auxiliary_source_kwh);
+  json.field("auxiliary_bank_kwh_first_year", first.auxiliary_bank_kwh);
+  json.field("auxiliary_unmet_kwh_first_year", first.auxiliary_unmet_kwh);
   json.field("temperature_idle_hours_first_year", first.temperature_idle_hours());
   json.field("charge_blocked_by_temperature_hours_first_year",
              first.charge_blocked_by_temperature_hours);
@@ -100,6 +104,13 @@ void print_design_table(std::ostream& out, const DesignResult& d, const Requirem
              format_amount(first.discharged_terminal_kwh), format_amount(first.backup_kwh),
              format_amount(first.unserved_kwh, 1), format_amount(first.curtailed_kwh),
              first.equivalent_full_cycles);
+  if (first.auxiliary_kwh > 0)
+    fmt::print(out,
+               "  auxiliaries   {} kWh in the first year: {} kWh from the source, {} kWh from "
+               "the bank, {} kWh unmet (bank at its floor)\n",
+               format_amount(first.auxiliary_kwh, 1), format_amount(first.auxiliary_source_kwh, 1),
+               format_amount(first.auxiliary_bank_kwh, 1),
+               format_amount(first.auxiliary_unmet_kwh, 1));
   const auto& y1 = d.years.front();
   fmt::print(
       out,

@@ -21,7 +21,8 @@ namespace stowage::report {
 // equivalent_full_cycles_first_year, round_trip_efficiency, meets_unserved_limit,
 // unserved_fraction_max, and `breakdown` (present values: investment, replacements, fixed_om,
 // variable_om, charging, backup, unserved_penalty, end_of_life, residual_value).
-// Also temperature_idle_hours_first_year (with charge_ and discharge_ parts). A design that
+// Also auxiliary_{,source_,bank_,unmet_}kwh_first_year (dispatch.h step 4), and
+// temperature_idle_hours_first_year (with charge_ and discharge_ parts). A design that
 // delivers no energy has no LCOS: lcos_per_kwh and lcos_schmidt_per_kwh are left out and
 // `lcos_statement` says why. With `check`: `requirements` {meets_autonomy, required_usable_kwh,
 // usable_kwh, autonomy_strings, meets_peak_discharge, peak_discharge_kw, discharge_power_kw,
