@@ -118,7 +118,7 @@ void print_design_table(std::ostream& out, const DesignResult& d, const Requirem
       y1.damage_cycle, y1.damage_calendar, y1.damage_partial_charge);
   if (first.temperature_idle_hours() > 0)
     fmt::print(out,
-               "  temperature   idle {:.0f} h in the first year outside its limits "
+               "  temperature   idle {:.0f} h in the first year because of its temperature limits "
                "({:.0f} h of surplus it could not take, {:.0f} h of deficit it could not serve)\n",
                first.temperature_idle_hours(), first.charge_blocked_by_temperature_hours,
                first.discharge_blocked_by_temperature_hours);

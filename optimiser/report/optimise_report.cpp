@@ -221,9 +221,9 @@ void write_optimise_text(std::ostream& out, const StudyCase& study, const Optimi
                                  : std::string("n/a (no discharge planned)");
     fmt::print(out,
                "Model estimate of this design: NPC {} {}, LCOS {}; exact NPC {} {}, LCOS "
-               "{:.4f} {}/kWh (gap {:+.2f} % of the exact NPC)\n",
+               "{} {}/kWh (gap {:+.2f} % of the exact NPC)\n",
                format_amount(r.model_estimate_npc), cur, lcos, format_amount(best.npc), cur,
-               best.lcos_per_kwh, cur, 100 * r.gap);
+               lcos_cell(best, best.lcos_per_kwh), cur, 100 * r.gap);
   }
   if (r.method == SearchMethod::Milp) {
     fmt::print(out,
