@@ -204,13 +204,14 @@ void write_cash_flows_csv(std::ostream& out, const std::vector<DesignResult>& de
          "damage_partial_charge,damage_end,replaced_at_end,discharged_kwh,charge_source_kwh,"
          "backup_kwh,unserved_kwh,curtailed_kwh,investment,replacement,fixed_om,variable_om,"
          "charging,backup,unserved_penalty,end_of_life,residual_value,total,discount_factor,"
-         "present_value\n";
+         "present_value,auxiliary_kwh,auxiliary_source_kwh,auxiliary_bank_kwh,"
+         "auxiliary_unmet_kwh\n";
   for (const auto& d : designs) {
     const std::string id = d.profile_id + ',' + csv_number(d.dod_setpoint) + ',' +
                            std::to_string(d.bank.strings_parallel);
     // Year 0: the investment.
     out << id << ",0,,,,,,,,,,,," << csv_number(d.investment) << ",,,,,,,,,"
-        << csv_number(d.investment) << ",1," << csv_number(d.investment) << "\n";
+        << csv_number(d.investment) << ",1," << csv_number(d.investment) << ",,,,\n";
     for (const auto& y : d.years) {
       out << id << ',' << y.year << ',' << csv_number(y.health_start) << ','
           << csv_number(y.damage_cycle) << ',' << csv_number(y.damage_calendar) << ','
@@ -225,14 +226,17 @@ void write_cash_flows_csv(std::ostream& out, const std::vector<DesignResult>& de
           << csv_number(y.unserved_penalty) << ',' << csv_number(y.end_of_life) << ','
           << csv_number(y.residual_value) << ',' << csv_number(y.total()) << ','
           << csv_number(y.discount_factor) << ',' << csv_number(y.total() * y.discount_factor)
-          << "\n";
+          << ',' << csv_number(y.dispatch.auxiliary_kwh) << ','
+          << csv_number(y.dispatch.auxiliary_source_kwh) << ','
+          << csv_number(y.dispatch.auxiliary_bank_kwh) << ','
+          << csv_number(y.dispatch.auxiliary_unmet_kwh) << "\n";
     }
     // Year N + 1, or later when that bank has life left: its end of life.
     const std::string last = csv_number(d.final_end_of_life_year);
     const double df_last = d.final_discount_factor;
     out << id << ',' << last << ",,,,,,,,,,,,0,0,0,0,0,0,0," << csv_number(d.final_end_of_life)
         << ",0," << csv_number(d.final_end_of_life) << ',' << csv_number(df_last) << ','
-        << csv_number(d.final_end_of_life * df_last) << "\n";
+        << csv_number(d.final_end_of_life * df_last) << ",,,,\n";
   }
 }
 

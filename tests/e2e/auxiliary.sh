@@ -49,4 +49,15 @@ assert math.isclose(parts, want, rel_tol=1e-9), (parts, want)
 assert d["auxiliary_source_kwh_first_year"] > 0 and d["auxiliary_bank_kwh_first_year"] > 0
 PY
 fi
+if expect_exit 0 -- "$STOWAGE" evaluate --out "$WORK/set" "$WORK/aux.yaml"; then
+  "$PY" - "$WORK/set/cash-flows.csv" <<'PY' || fail "cash-flows.csv: auxiliary columns"
+import csv, sys
+rows = list(csv.reader(open(sys.argv[1])))
+assert len({len(r) for r in rows}) == 1, "ragged cash-flows.csv"
+recs = [dict(zip(rows[0], r)) for r in rows[1:]]
+year1 = [r for r in recs if r["year"] == "1"][0]
+assert float(year1["auxiliary_kwh"]) > 0 and float(year1["auxiliary_bank_kwh"]) > 0, year1
+assert [r for r in recs if r["year"] == "0"][0]["auxiliary_kwh"] == ""
+PY
+fi
 finish
