@@ -278,6 +278,11 @@ LoadedProfile build_profile(const YamlDocument& doc) {
         CalendarSocStress{number(soc["soc_exponent"]), number(soc["reference_soc"])};
   }
 
+  if (const YAML::Node aux = p["auxiliary"]) {
+    read_optional(aux, "standing_kw_per_kwh", profile.auxiliary.standing_kw_per_kwh);
+    read_optional(aux, "pump_kw_per_kw", profile.auxiliary.pump_kw_per_kw);
+  }
+
   TemperatureSpec spec = read_temperature(doc, p["temperature"]);
   try {
     profile.temperature = TemperatureBehaviour(std::move(spec));

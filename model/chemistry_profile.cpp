@@ -45,6 +45,10 @@ void ChemistryProfile::validate() const {
   require(std::isfinite(eol_capacity_fraction) && eol_capacity_fraction > 0 &&
               eol_capacity_fraction < 1,
           "ageing.end_of_life_capacity", "must be in (0, 1)");
+  require(non_negative(auxiliary.standing_kw_per_kwh) && auxiliary.standing_kw_per_kwh < 1,
+          "auxiliary.standing_kw_per_kwh", "must be in [0, 1)");
+  require(non_negative(auxiliary.pump_kw_per_kw) && auxiliary.pump_kw_per_kw < 1,
+          "auxiliary.pump_kw_per_kw", "must be in [0, 1)");
   if (partial_charge) {
     require(fraction_open_closed(partial_charge->full_charge_soc),
             "ageing.partial_charge.full_charge_soc", "must be in (0, 1]");

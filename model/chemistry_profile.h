@@ -39,6 +39,16 @@ struct ProfileCosts {
   std::optional<double> replacement_end_of_life_per_kwh;
 };
 
+// Auxiliary consumption of the storage system itself (docs/method.md 4, step 5), as loads at
+// the bank's DC terminals: a standing load (battery management, container climate control) of
+// standing_kw_per_kwh x nameplate kWh every hour, and pumps (flow batteries) of pump_kw_per_kw
+// x the hour's terminal energy charged or discharged. Both in [0, 1); 0 (the default) is none.
+struct AuxiliaryLoads {
+  double standing_kw_per_kwh = 0;  // kW per kWh of nameplate energy
+  double pump_kw_per_kw = 0;       // kW per kW of terminal throughput
+  bool any() const { return standing_kw_per_kwh > 0 || pump_kw_per_kw > 0; }
+};
+
 // Extra ageing when a bank goes too long without a full charge (sulfation of lead-acid).
 struct PartialChargeStress {
   double full_charge_soc = 0.98;            // SOC that counts as a full charge, (0, 1]
@@ -85,6 +95,7 @@ struct ChemistryProfile {
   double eol_capacity_fraction = 0.80;  // (0, 1)
   std::optional<PartialChargeStress> partial_charge;
   std::optional<CalendarSocStress> calendar_soc_stress;  // unset: calendar ageing ignores SOC
+  AuxiliaryLoads auxiliary;
   DodRange dod;
   ProfileCosts costs;
   std::optional<double> cell_mass_kg;
@@ -92,6 +103,13 @@ struct ChemistryProfile {
 
   double voltaic_efficiency() const { return mean_discharge_v / mean_charge_v; }
   double round_trip_efficiency() const { return voltaic_efficiency() * coulombic_efficiency; }
+  // The terminal round trip with the pumps running on both legs, fed from the source while
+  // charging and from the bank while discharging: eta_RT x (1 - a_p) / (1 + a_p). The standing
+  // load is left out: it depends on how long the charge is held.
+  double round_trip_with_pumps() const {
+    return round_trip_efficiency() * (1 - auxiliary.pump_kw_per_kw) /
+           (1 + auxiliary.pump_kw_per_kw);
+  }
   double cell_energy_kwh() const { return cell_nominal_v * cell_capacity_ah / 1000.0; }
 
   // Checks every rule stated above; throws InvalidValue naming the field.

@@ -107,6 +107,12 @@ YearDispatch dispatch_year(const DispatchInputs& in, DispatchState& state,
   const unsigned char* can_charge = hf.can_charge.data();
   const unsigned char* can_discharge = hf.can_discharge.data();
   const double* charge_price = site.charge_price_per_kwh.data();
+  // Auxiliary loads (step 4 of dispatch.h), kWh at the terminals.
+  const bool has_aux = p.auxiliary.any();
+  const double aux_standing_kwh = p.auxiliary.standing_kw_per_kwh * in.bank.nameplate_kwh;
+  const double aux_pump_per_kwh = p.auxiliary.pump_kw_per_kw;
+  const double aux_amps_per_kwh = 1000.0 / v_discharge;
+  const double aux_floor_ah = (1.0 - dod) * q_ah;
 
   soc_trace.resize(static_cast<std::size_t>(kHoursPerYear) + 1);
   double* trace = soc_trace.data();
@@ -116,12 +122,15 @@ YearDispatch dispatch_year(const DispatchInputs& in, DispatchState& state,
   trace[0] = soc;
   // Running sums kept in registers, stored once at the end.
   double charge_source = 0, charge_cost = 0, charged_terminal = 0, discharged_terminal = 0;
+  double charge_blocked_hours = 0, discharge_blocked_hours = 0;
   double delivered_sum = 0, backup = 0, unserved = 0, curtailed = 0, full_cycles = 0;
+  double aux_sum = 0, aux_source = 0, aux_bank = 0, aux_unmet = 0;
 
   for (std::size_t h = 0; h < static_cast<std::size_t>(kHoursPerYear); ++h) {
     soc *= keep_per_hour;
     const double surplus = balance[h].surplus_kwh;
     const double deficit = balance[h].deficit_kwh;
+    double throughput = 0, spare = 0;  // terminal kWh moved; source kWh the bank did not take
 
     if (surplus > 0) {
       double to_terminals = 0;  // kWh
@@ -134,13 +143,17 @@ YearDispatch dispatch_year(const DispatchInputs& in, DispatchState& state,
         soc += amps * soc_per_charge_amp;
         if (soc > 1.0) soc = 1.0;
       }
+      if (!can_charge[h] && soc < 1.0) charge_blocked_hours += 1;
       const double drawn = to_terminals * inv_eta_charger;
       charged_terminal += to_terminals;
       charge_source += drawn;
       charge_cost += drawn * charge_price[h];
       curtailed += surplus - drawn;
+      throughput = to_terminals;
+      spare = surplus - drawn;
     } else if (deficit > 0) {
       double delivered = 0;
+      if (!can_discharge[h] && soc > 1.0 - dod) discharge_blocked_hours += 1;
       if (can_discharge[h]) {
         // The window this hour reaches down to 1 - reachable_depth (dod_window.h). Cold
         // narrows it (the charge below stays in the cells and comes back when the bank warms
@@ -170,10 +183,31 @@ YearDispatch dispatch_year(const DispatchInputs& in, DispatchState& state,
           discharged_terminal += out_kwh;
           delivered_sum += delivered;
           full_cycles += depth;
+          throughput = out_kwh;
         }
       }
       const double shortfall = deficit - delivered;
       if (shortfall > 1e-12) (has_backup ? backup : unserved) += shortfall;
+    }
+
+    if (has_aux) {
+      double need = aux_standing_kwh + aux_pump_per_kwh * throughput;
+      aux_sum += need;
+      if (spare > 0) {
+        const double want_source = need * inv_eta_charger;
+        const double from_source = std::min(want_source, spare);
+        aux_source += from_source;
+        charge_cost += from_source * charge_price[h];
+        curtailed -= from_source;
+        need = from_source < want_source ? need - from_source * eta_charger : 0.0;
+      }
+      if (need > 0) {
+        const double want_ah = need * aux_amps_per_kwh;
+        const double ah = std::min(want_ah, std::max(0.0, soc * q_ah - aux_floor_ah));
+        soc -= ah * inv_q_ah;
+        aux_bank += ah / aux_amps_per_kwh;
+        if (ah < want_ah) aux_unmet += (want_ah - ah) / aux_amps_per_kwh;
+      }
     }
 
     if (track_partial) {
@@ -193,12 +227,18 @@ YearDispatch dispatch_year(const DispatchInputs& in, DispatchState& state,
   y.charge_source_kwh = charge_source;
   y.charge_cost = charge_cost;
   y.charged_terminal_kwh = charged_terminal;
+  y.charge_blocked_by_temperature_hours = charge_blocked_hours;
+  y.discharge_blocked_by_temperature_hours = discharge_blocked_hours;
   y.discharged_terminal_kwh = discharged_terminal;
   y.delivered_kwh = delivered_sum;
   y.backup_kwh = backup;
   y.unserved_kwh = unserved;
   y.curtailed_kwh = curtailed;
   y.equivalent_full_cycles = full_cycles;
+  y.auxiliary_kwh = aux_sum;
+  y.auxiliary_source_kwh = aux_source;
+  y.auxiliary_bank_kwh = aux_bank;
+  y.auxiliary_unmet_kwh = aux_unmet;
   state.soc = soc;
   state.hours_since_full_charge = hours_since_full;
   y.partial_charge_excess_days = excess_hours / 24.0;

@@ -2,11 +2,11 @@
 // Hourly dispatch of one bank over one year (8760 one-hour steps).
 //
 // State: SOC as a fraction of the charge the bank holds when full, Q = capacity_ah x health.
-// Stored charge only changes by charging, discharging and self-discharge, never by
-// temperature. The DoD window of the hour is [1 - reachable_depth, 1] with reachable_depth =
-// dod_setpoint x min(1, f_T(T_h) x f_P(I)) (dod_window.h), f_T the profile's available-capacity
-// factor: cold makes part of the charge unreachable until the bank warms up, heat never takes
-// the bank past its setpoint. Each hour, in this order:
+// Stored charge only changes by charging, discharging, self-discharge and the auxiliary loads
+// (step 4), never by temperature. The DoD window of the hour is [1 - reachable_depth, 1] with
+// reachable_depth = dod_setpoint x min(1, f_T(T_h) x f_P(I)) (dod_window.h), f_T the profile's
+// available-capacity factor: cold makes part of the charge unreachable until the bank warms up,
+// heat never takes the bank past its setpoint. Each hour, in this order:
 //   1. self-discharge: SOC *= (1 - s_month)^(1/730);
 //   2. the source serves the load directly; source_to_load_efficiency of what it gives arrives.
 //      Surplus: the charger passes surplus x charger_efficiency to the bank terminals, limited
@@ -23,6 +23,13 @@
 //      lies below the hour's floor (charge the cold leaves unreachable), the room is taken as 0
 //      and the bank gives nothing that hour. Discharge only within the
 //      operating temperature limits. The remaining deficit goes to back-up or unserved.
+//   4. (after 2 or 3) Auxiliary loads of the profile (chemistry_profile.h), at the terminals:
+//      A = standing_kw_per_kwh x nameplate_kwh + pump_kw_per_kw x (terminal kWh charged or
+//      discharged this hour). Served first from the surplus the bank did not take, through
+//      the charger (A / charger_efficiency of source energy, priced at the hour's charging
+//      price like charging energy); the rest from the stored charge, A x 1000 / V_discharge
+//      Ah, down to the setpoint floor 1 - dod_setpoint, in any temperature; what neither
+//      covers is unmet (the auxiliaries stop) and only counted.
 // V_charge and V_discharge are the profile's mean cell voltages times cells in series.
 // Energy figures are in kWh; "terminal" means at the bank's DC terminals.
 #pragma once
@@ -54,6 +61,21 @@ struct YearDispatch {
   double curtailed_kwh = 0;
   double equivalent_full_cycles = 0;      // sum of SOC decreases by discharge (fractions of Q)
   double partial_charge_excess_days = 0;  // days beyond the grace period without full charge
+  // Hours the bank sat idle because of its temperature limits (inclusive, as above): a surplus
+  // arrived outside the charging range while the SOC was below 1, or a deficit outside the
+  // operating range while the SOC was above the setpoint floor 1 - dod_setpoint (both SOCs
+  // after the hour's self-discharge). That surplus is curtailed, that deficit goes to back-up
+  // or unserved.
+  double charge_blocked_by_temperature_hours = 0;
+  double discharge_blocked_by_temperature_hours = 0;
+  // Auxiliary loads (step 4): demand, fed from the source (before the charger), fed from the
+  // bank (at its terminals, not in discharged_terminal_kwh nor in the equivalent full cycles),
+  // unmet; kWh.
+  double auxiliary_kwh = 0, auxiliary_source_kwh = 0, auxiliary_bank_kwh = 0,
+         auxiliary_unmet_kwh = 0;
+  double temperature_idle_hours() const {
+    return charge_blocked_by_temperature_hours + discharge_blocked_by_temperature_hours;
+  }
 };
 
 // Share of the rated capacity the cells give before cut-off at a constant current `amps`

@@ -110,6 +110,13 @@ int autonomy_strings(const ChemistryProfile& profile, const SiteConditions& site
   return n;
 }
 
+// Least n >= 1 whose discharge power at the C-rate limit covers `peak_kw` at the terminals.
+int peak_strings(const ChemistryProfile& profile, double bus_voltage_v, double peak_kw) {
+  if (peak_kw <= 0) return 1;
+  const double power = string_discharge_power_kw(profile, bus_voltage_v);
+  return std::max(1, static_cast<int>(std::ceil(peak_kw / power * (1 - 1e-12))));
+}
+
 int cap_by(double limit, double per_string) {
   if (per_string <= 0) return std::numeric_limits<int>::max();
   const double n = std::floor(limit / per_string * (1 + 1e-12));
@@ -121,11 +128,7 @@ int cap_by(double limit, double per_string) {
 DesignSpace build_design_space(const StudyCase& study) {
   DesignSpace space;
   const SiteConditions& site = study.site;
-  double peak = 0;
-  for (std::size_t h = 0; h < site.load_kw.size(); ++h) {
-    peak = std::max(peak, hour_balance(site, h).deficit_kwh);
-  }
-  space.peak_discharge_terminal_kw = peak / site.inverter_efficiency;
+  space.peak_discharge_terminal_kw = peak_discharge_terminal_kw(site);
   const SearchSettings& s = study.search;
 
   for (std::size_t p = 0; p < study.profiles.size(); ++p) {
@@ -162,12 +165,8 @@ DesignSpace build_design_space(const StudyCase& study) {
         apply(cap_by(*s.max_volume_l, *profile.cell_volume_l * cells), StringCap::Volume);
       }
     }
-    const double power = string_discharge_power_kw(profile, site.bus_voltage_v);
     const int c_rate_n =
-        space.peak_discharge_terminal_kw <= 0
-            ? 1
-            : std::max(1, static_cast<int>(
-                              std::ceil(space.peak_discharge_terminal_kw / power * (1 - 1e-12))));
+        peak_strings(profile, site.bus_voltage_v, space.peak_discharge_terminal_kw);
     for (double dod : dod_ladder(s, profile)) {
       DesignChoice c;
       c.profile_index = p;
@@ -186,6 +185,33 @@ DesignSpace build_design_space(const StudyCase& study) {
     }
   }
   return space;
+}
+
+double peak_discharge_terminal_kw(const SiteConditions& site) {
+  double peak = 0;
+  for (std::size_t h = 0; h < site.load_kw.size(); ++h) {
+    peak = std::max(peak, hour_balance(site, h).deficit_kwh);
+  }
+  return peak / site.inverter_efficiency;
+}
+
+RequirementCheck check_requirements(const ChemistryProfile& profile, const SiteConditions& site,
+                                    double dod_setpoint, int strings) {
+  RequirementCheck c;
+  const AutonomySizing sizing = size_for_autonomy(profile, site, dod_setpoint);
+  c.required_usable_kwh = sizing.required_usable_kwh;
+  c.usable_kwh = design_usable_kwh(profile, site, dod_setpoint, strings);
+  // Starts at the sizing rule's answer, so the search moves a string or two at most; the
+  // ceiling only guards the loop.
+  c.autonomy_strings =
+      autonomy_strings(profile, site, dod_setpoint, sizing.required_usable_kwh,
+                       sizing.strings_parallel, std::max(strings, sizing.strings_parallel) + 64);
+  c.peak_kw = peak_discharge_terminal_kw(site);
+  c.power_kw = string_discharge_power_kw(profile, site.bus_voltage_v) * strings;
+  c.peak_strings = peak_strings(profile, site.bus_voltage_v, c.peak_kw);
+  c.meets_autonomy = strings >= c.autonomy_strings;
+  c.meets_peak = strings >= c.peak_strings;
+  return c;
 }
 
 std::size_t DesignSpace::admissible_designs() const {

@@ -113,6 +113,27 @@ struct DesignSpace {
 
 DesignSpace build_design_space(const StudyCase& study);
 
+// max over hours of (load - source serving it directly)^+ / inverter_efficiency, kW at the
+// bank terminals: the peak discharge requirement.
+double peak_discharge_terminal_kw(const SiteConditions& site);
+
+// Whether one design meets the two hard requirements above (autonomy and peak discharge), by
+// the very rule that bounds the design space from below: a design passes exactly when its
+// strings are at least the least admissible n of its (profile, setpoint) pair. `evaluate`
+// uses it to mark the designs `optimise` would reject.
+struct RequirementCheck {
+  double required_usable_kwh = 0;  // autonomy requirement at the terminals (sizing.h)
+  double usable_kwh = 0;           // design_usable_kwh of the design
+  int autonomy_strings = 1;        // least n meeting autonomy
+  double peak_kw = 0;              // peak_discharge_terminal_kw
+  double power_kw = 0;             // strings x string_discharge_power_kw
+  int peak_strings = 1;            // least n meeting the peak discharge
+  bool meets_autonomy = true, meets_peak = true;
+  bool meets_all() const { return meets_autonomy && meets_peak; }
+};
+RequirementCheck check_requirements(const ChemistryProfile& profile, const SiteConditions& site,
+                                    double dod_setpoint, int strings);
+
 // Per-string figures of a profile on the study's bus.
 double string_nameplate_kwh(const ChemistryProfile& profile, double bus_voltage_v);
 double string_discharge_power_kw(const ChemistryProfile& profile, double bus_voltage_v);

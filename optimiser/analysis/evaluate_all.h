@@ -10,9 +10,16 @@
 
 #include "model/lifecycle.h"
 #include "model/study.h"
+#include "optimiser/design_space.h"
 
 namespace stowage {
 
 std::vector<DesignResult> evaluate_all(const Study& study);
+
+// For each result, whether it meets autonomy and the peak discharge by the optimiser's own rule
+// (check_requirements in optimiser/design_space.h), in the same order. `optimise` never offers
+// a design that fails; `evaluate` shows them, marked. Results must come from `study`.
+std::vector<RequirementCheck> requirement_checks(const Study& study,
+                                                 const std::vector<DesignResult>& results);
 
 }  // namespace stowage

@@ -38,18 +38,19 @@ void register_evaluate(CLI::App& app, int& exit_code) {
       if (args->out_dir) files.emplace(*args->out_dir);  // refuses a bad DIR now
       const StudyCase study = load_study_for_cli(args->study_path);
       const std::vector<DesignResult> results = evaluate_all(study);
+      const std::vector<RequirementCheck> checks = requirement_checks(study, results);
       // Files first: a failure to write them must not follow a printed success.
       if (files) {
         files->add("designs.csv",
-                   [&](std::ostream& out) { report::write_designs_csv(out, results); });
+                   [&](std::ostream& out) { report::write_designs_csv(out, results, &checks); });
         files->add("cash-flows.csv",
                    [&](std::ostream& out) { report::write_cash_flows_csv(out, results); });
         files->commit();
       }
       if (args->format == OutputFormat::Json)
-        report::write_evaluate_json(std::cout, study, results);
+        report::write_evaluate_json(std::cout, study, results, checks);
       else
-        report::write_evaluate_text(std::cout, study, results);
+        report::write_evaluate_text(std::cout, study, results, checks);
       return static_cast<int>(kExitOk);
     });
   });

@@ -27,6 +27,12 @@ void write_check_text(std::ostream& out, const std::string& study_path, const St
                p.id, p.family, 100 * p.round_trip_efficiency(), p.dod.min, p.dod.max,
                sizing.strings_parallel, sizing.strings_parallel == 1 ? "" : "s",
                p.dod.default_setpoint);
+    if (p.auxiliary.any())
+      fmt::print(out,
+                 "    {:<28} auxiliaries: standing {:g} kW per kWh nameplate, pumps {:g} kW per "
+                 "kW moved; round trip with pumps {:.1f} % (standing load not included)\n",
+                 "", p.auxiliary.standing_kw_per_kwh, p.auxiliary.pump_kw_per_kw,
+                 100 * p.round_trip_with_pumps());
   }
   fmt::print(out, "  designs   {}\n",
              study.designs.empty()

@@ -27,15 +27,28 @@ std::string csv_number(double v) { return format_machine(v, 10); }
 
 }  // namespace
 
-void write_design_json(JsonWriter& json, const DesignResult& d) {
+const char* no_lcos_statement() {
+  return "no LCOS: the design delivers no energy to the load over the project, so there is no "
+         "cost per kWh delivered (its net present cost still counts)";
+}
+
+std::string lcos_cell(const DesignResult& d, double lcos_per_kwh) {
+  return d.delivers_energy() ? format_fixed(lcos_per_kwh, 4) : std::string("none");
+}
+
+void write_design_json(JsonWriter& json, const DesignResult& d, const RequirementCheck* check) {
   json.begin_object();
   json.field("profile", d.profile_id);
   json.field("dod_setpoint", d.dod_setpoint);
   json.field("cells_series", d.bank.cells_series);
   json.field("strings_parallel", d.bank.strings_parallel);
   json.field("nameplate_kwh", d.bank.nameplate_kwh);
-  json.field("lcos_per_kwh", d.lcos_per_kwh);
-  json.field("lcos_schmidt_per_kwh", d.lcos_schmidt_per_kwh);
+  if (d.delivers_energy()) {
+    json.field("lcos_per_kwh", d.lcos_per_kwh);
+    json.field("lcos_schmidt_per_kwh", d.lcos_schmidt_per_kwh);
+  } else {
+    json.field("lcos_statement", no_lcos_statement());
+  }
   json.field("npc", d.npc);
   json.field("currency", d.currency);
   json.key("replacement_years").begin_array();
@@ -50,13 +63,36 @@ void write_design_json(JsonWriter& json, const DesignResult& d) {
   json.field("investment", d.investment);
   json.field("unserved_fraction_max", d.unserved_fraction_max);
   json.field("meets_unserved_limit", d.meets_unserved_limit);
+  const YearDispatch& first = d.years.front().dispatch;
+  json.field("auxiliary_kwh_first_year", first.auxiliary_kwh);
+  json.field("auxiliary_source_kwh_first_year", first.auxiliary_source_kwh);
+  json.field("auxiliary_bank_kwh_first_year", first.auxiliary_bank_kwh);
+  json.field("auxiliary_unmet_kwh_first_year", first.auxiliary_unmet_kwh);
+  json.field("temperature_idle_hours_first_year", first.temperature_idle_hours());
+  json.field("charge_blocked_by_temperature_hours_first_year",
+             first.charge_blocked_by_temperature_hours);
+  json.field("discharge_blocked_by_temperature_hours_first_year",
+             first.discharge_blocked_by_temperature_hours);
+  if (check) {
+    json.field("meets_requirements", check->meets_all());
+    json.key("requirements").begin_object();
+    json.field("meets_autonomy", check->meets_autonomy);
+    json.field("required_usable_kwh", check->required_usable_kwh);
+    json.field("usable_kwh", check->usable_kwh);
+    json.field("autonomy_strings", check->autonomy_strings);
+    json.field("meets_peak_discharge", check->meets_peak);
+    json.field("peak_discharge_kw", check->peak_kw);
+    json.field("discharge_power_kw", check->power_kw);
+    json.field("peak_strings", check->peak_strings);
+    json.end_object();
+  }
   json.key("breakdown").begin_object();
   for (const CostLine& item : cost_lines()) json.field(item.key, d.present_value.*item.member);
   json.end_object();
   json.end_object();
 }
 
-void print_design_table(std::ostream& out, const DesignResult& d) {
+void print_design_table(std::ostream& out, const DesignResult& d, const RequirementCheck* check) {
   const auto& first = d.years.front().dispatch;
   fmt::print(out, "{} at DoD {:.2f}: {} string{} x {} cells, {} kWh nameplate at {:g} V\n",
              d.profile_id, d.dod_setpoint, d.bank.strings_parallel,
@@ -68,11 +104,36 @@ void print_design_table(std::ostream& out, const DesignResult& d) {
              format_amount(first.discharged_terminal_kwh), format_amount(first.backup_kwh),
              format_amount(first.unserved_kwh, 1), format_amount(first.curtailed_kwh),
              first.equivalent_full_cycles);
+  if (first.auxiliary_kwh > 0)
+    fmt::print(out,
+               "  auxiliaries   {} kWh in the first year: {} kWh from the source, {} kWh from "
+               "the bank, {} kWh unmet (bank at its floor)\n",
+               format_amount(first.auxiliary_kwh, 1), format_amount(first.auxiliary_source_kwh, 1),
+               format_amount(first.auxiliary_bank_kwh, 1),
+               format_amount(first.auxiliary_unmet_kwh, 1));
   const auto& y1 = d.years.front();
   fmt::print(
       out,
       "  ageing        year-1 damage: cycling {:.3f}, calendar {:.3f}, partial charge {:.3f}\n",
       y1.damage_cycle, y1.damage_calendar, y1.damage_partial_charge);
+  if (first.temperature_idle_hours() > 0)
+    fmt::print(out,
+               "  temperature   idle {:.0f} h in the first year because of its temperature limits "
+               "({:.0f} h of surplus it could not take, {:.0f} h of deficit it could not serve)\n",
+               first.temperature_idle_hours(), first.charge_blocked_by_temperature_hours,
+               first.discharge_blocked_by_temperature_hours);
+  if (check && !check->meets_autonomy)
+    fmt::print(out,
+               "  FAILS         autonomy: {} kWh usable needed at the terminals, this bank gives "
+               "{} kWh (at least {} strings); optimise would reject it\n",
+               format_amount(check->required_usable_kwh, 1), format_amount(check->usable_kwh, 1),
+               check->autonomy_strings);
+  if (check && !check->meets_peak)
+    fmt::print(out,
+               "  FAILS         peak discharge: {} kW needed at the terminals, this bank gives "
+               "{} kW within its C-rate (at least {} strings); optimise would reject it\n",
+               format_amount(check->peak_kw, 1), format_amount(check->power_kw, 1),
+               check->peak_strings);
   fmt::print(out, "  replacements  {}\n",
              d.replacement_years.empty() ? std::string("none within the project")
                                          : "end of year " + years_text(d.replacement_years, ", "));
@@ -87,6 +148,10 @@ void print_design_table(std::ostream& out, const DesignResult& d) {
     fmt::print(out, "    {:<32}{:>14}\n", item.label, format_amount(v));
   }
   fmt::print(out, "    {:<32}{:>14}\n", "net present cost", format_amount(d.npc));
+  if (!d.delivers_energy()) {
+    fmt::print(out, "  LCOS          {}\n", no_lcos_statement());
+    return;
+  }
   fmt::print(out,
              "  LCOS          {:.4f} {}/kWh delivered (storage costs net of the residual value / "
              "discounted energy delivered after the inverter)\n",
@@ -97,15 +162,20 @@ void print_design_table(std::ostream& out, const DesignResult& d) {
              d.lcos_schmidt_per_kwh, d.currency);
 }
 
-void write_designs_csv(std::ostream& out, const std::vector<DesignResult>& designs) {
+void write_designs_csv(std::ostream& out, const std::vector<DesignResult>& designs,
+                       const std::vector<RequirementCheck>* checks) {
   out << "profile,dod_setpoint,cells_series,strings_parallel,nameplate_kwh,lcos_per_kwh,"
          "lcos_schmidt_per_kwh,npc,currency,replacement_years,discharged_kwh_per_year,discharged_"
          "kwh_first_year,"
          "unserved_kwh_first_year,backup_kwh_first_year,equivalent_full_cycles_first_year,"
          "meets_unserved_limit";
   for (const CostLine& item : cost_lines()) out << ",pv_" << item.key;
+  out << ",delivers_energy,charge_blocked_by_temperature_hours_first_year,"
+         "discharge_blocked_by_temperature_hours_first_year,meets_autonomy,meets_peak_discharge";
   out << "\n";
-  for (const auto& d : designs) {
+  const auto flag = [](bool b) { return b ? "true" : "false"; };
+  for (std::size_t i = 0; i < designs.size(); ++i) {
+    const DesignResult& d = designs[i];
     out << d.profile_id << ',' << csv_number(d.dod_setpoint) << ',' << d.bank.cells_series << ','
         << d.bank.strings_parallel << ',' << csv_number(d.bank.nameplate_kwh) << ','
         << csv_number(d.lcos_per_kwh) << ',' << csv_number(d.lcos_schmidt_per_kwh) << ','
@@ -117,6 +187,14 @@ void write_designs_csv(std::ostream& out, const std::vector<DesignResult>& desig
         << (d.meets_unserved_limit ? "true" : "false");
     for (const CostLine& item : cost_lines())
       out << ',' << csv_number(d.present_value.*item.member);
+    const YearDispatch& first = d.years.front().dispatch;
+    out << ',' << flag(d.delivers_energy()) << ','
+        << csv_number(first.charge_blocked_by_temperature_hours) << ','
+        << csv_number(first.discharge_blocked_by_temperature_hours) << ',';
+    if (checks)
+      out << flag((*checks)[i].meets_autonomy) << ',' << flag((*checks)[i].meets_peak);
+    else
+      out << ',';
     out << "\n";
   }
 }
@@ -126,13 +204,14 @@ void write_cash_flows_csv(std::ostream& out, const std::vector<DesignResult>& de
          "damage_partial_charge,damage_end,replaced_at_end,discharged_kwh,charge_source_kwh,"
          "backup_kwh,unserved_kwh,curtailed_kwh,investment,replacement,fixed_om,variable_om,"
          "charging,backup,unserved_penalty,end_of_life,residual_value,total,discount_factor,"
-         "present_value\n";
+         "present_value,auxiliary_kwh,auxiliary_source_kwh,auxiliary_bank_kwh,"
+         "auxiliary_unmet_kwh\n";
   for (const auto& d : designs) {
     const std::string id = d.profile_id + ',' + csv_number(d.dod_setpoint) + ',' +
                            std::to_string(d.bank.strings_parallel);
     // Year 0: the investment.
     out << id << ",0,,,,,,,,,,,," << csv_number(d.investment) << ",,,,,,,,,"
-        << csv_number(d.investment) << ",1," << csv_number(d.investment) << "\n";
+        << csv_number(d.investment) << ",1," << csv_number(d.investment) << ",,,,\n";
     for (const auto& y : d.years) {
       out << id << ',' << y.year << ',' << csv_number(y.health_start) << ','
           << csv_number(y.damage_cycle) << ',' << csv_number(y.damage_calendar) << ','
@@ -147,14 +226,17 @@ void write_cash_flows_csv(std::ostream& out, const std::vector<DesignResult>& de
           << csv_number(y.unserved_penalty) << ',' << csv_number(y.end_of_life) << ','
           << csv_number(y.residual_value) << ',' << csv_number(y.total()) << ','
           << csv_number(y.discount_factor) << ',' << csv_number(y.total() * y.discount_factor)
-          << "\n";
+          << ',' << csv_number(y.dispatch.auxiliary_kwh) << ','
+          << csv_number(y.dispatch.auxiliary_source_kwh) << ','
+          << csv_number(y.dispatch.auxiliary_bank_kwh) << ','
+          << csv_number(y.dispatch.auxiliary_unmet_kwh) << "\n";
     }
     // Year N + 1, or later when that bank has life left: its end of life.
     const std::string last = csv_number(d.final_end_of_life_year);
     const double df_last = d.final_discount_factor;
     out << id << ',' << last << ",,,,,,,,,,,,0,0,0,0,0,0,0," << csv_number(d.final_end_of_life)
         << ",0," << csv_number(d.final_end_of_life) << ',' << csv_number(df_last) << ','
-        << csv_number(d.final_end_of_life * df_last) << "\n";
+        << csv_number(d.final_end_of_life * df_last) << ",,,,\n";
   }
 }
 

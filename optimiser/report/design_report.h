@@ -10,6 +10,7 @@
 
 #include "model/lifecycle.h"
 #include "model/study.h"
+#include "optimiser/design_space.h"
 #include "optimiser/report/json_writer.h"
 
 namespace stowage::report {
@@ -20,13 +21,32 @@ namespace stowage::report {
 // equivalent_full_cycles_first_year, round_trip_efficiency, meets_unserved_limit,
 // unserved_fraction_max, and `breakdown` (present values: investment, replacements, fixed_om,
 // variable_om, charging, backup, unserved_penalty, end_of_life, residual_value).
-void write_design_json(JsonWriter& json, const DesignResult& design);
+// Also auxiliary_{,source_,bank_,unmet_}kwh_first_year (dispatch.h step 4), and
+// temperature_idle_hours_first_year (with charge_ and discharge_ parts). A design that
+// delivers no energy has no LCOS: lcos_per_kwh and lcos_schmidt_per_kwh are left out and
+// `lcos_statement` says why. With `check`: `requirements` {meets_autonomy, required_usable_kwh,
+// usable_kwh, autonomy_strings, meets_peak_discharge, peak_discharge_kw, discharge_power_kw,
+// peak_strings} and `meets_requirements`.
+void write_design_json(JsonWriter& json, const DesignResult& design,
+                       const RequirementCheck* check = nullptr);
 
-// A readable block for one design: bank, energy, ageing, replacements, cost breakdown, LCOS.
-void print_design_table(std::ostream& out, const DesignResult& design);
+// A readable block for one design: bank, energy, ageing, replacements, cost breakdown, LCOS;
+// with `check`, a FAILS line for each hard requirement the design misses.
+void print_design_table(std::ostream& out, const DesignResult& design,
+                        const RequirementCheck* check = nullptr);
+
+// The words shown instead of an LCOS for a design that delivers no energy.
+const char* no_lcos_statement();
+// An LCOS for a table column: 4 decimals, or "none" when the design delivers no energy.
+std::string lcos_cell(const DesignResult& design, double lcos_per_kwh);
 
 // CSV files: one summary row per design, and the year-by-year cash flows of every design.
-void write_designs_csv(std::ostream& out, const std::vector<DesignResult>& designs);
+// designs.csv: lcos_per_kwh and lcos_schmidt_per_kwh are empty when delivers_energy is false;
+// the first-year temperature idle hours; meets_autonomy and meets_peak_discharge from
+// `checks` (checks[i] for designs[i]), empty without them (optimise offers only designs that
+// meet both).
+void write_designs_csv(std::ostream& out, const std::vector<DesignResult>& designs,
+                       const std::vector<RequirementCheck>* checks = nullptr);
 void write_cash_flows_csv(std::ostream& out, const std::vector<DesignResult>& designs);
 
 // The opening fields of a JSON report: stowage_version, study, site, project_years,

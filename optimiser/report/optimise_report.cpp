@@ -221,9 +221,9 @@ void write_optimise_text(std::ostream& out, const StudyCase& study, const Optimi
                                  : std::string("n/a (no discharge planned)");
     fmt::print(out,
                "Model estimate of this design: NPC {} {}, LCOS {}; exact NPC {} {}, LCOS "
-               "{:.4f} {}/kWh (gap {:+.2f} % of the exact NPC)\n",
+               "{} {}/kWh (gap {:+.2f} % of the exact NPC)\n",
                format_amount(r.model_estimate_npc), cur, lcos, format_amount(best.npc), cur,
-               best.lcos_per_kwh, cur, 100 * r.gap);
+               lcos_cell(best, best.lcos_per_kwh), cur, 100 * r.gap);
   }
   if (r.method == SearchMethod::Milp) {
     fmt::print(out,
@@ -250,10 +250,10 @@ void write_optimise_text(std::ostream& out, const StudyCase& study, const Optimi
              "DoD", "strings", "kWh", "LCOS " + cur, "Schmidt " + cur, "NPC " + cur, "vs best");
   for (std::size_t i = 0; i < r.ranking.size(); ++i) {
     const DesignResult& d = r.ranking[i];
-    fmt::print(out, "{:>4}  {:<28}{:>5.2f}{:>9}{:>11}{:>13.4f}{:>13.4f}{:>14}{:>14}\n", i + 1,
+    fmt::print(out, "{:>4}  {:<28}{:>5.2f}{:>9}{:>11}{:>13}{:>13}{:>14}{:>14}\n", i + 1,
                d.profile_id, d.dod_setpoint, d.bank.strings_parallel,
-               format_amount(d.bank.nameplate_kwh, 1), d.lcos_per_kwh, d.lcos_schmidt_per_kwh,
-               format_amount(d.npc),
+               format_amount(d.bank.nameplate_kwh, 1), lcos_cell(d, d.lcos_per_kwh),
+               lcos_cell(d, d.lcos_schmidt_per_kwh), format_amount(d.npc),
                i == 0 ? std::string("-") : format_signed_amount(d.npc - best.npc));
   }
   if (r.ranking.size() > 1) {

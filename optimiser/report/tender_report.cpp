@@ -113,10 +113,10 @@ void write_tender_text(std::ostream& out, const TenderCase& tender, const Tender
   } else {
     const BidResult& best = result.bids[result.order.front()];
     fmt::print(out,
-               "Recommended: {} ({}), total score {:.1f}, NPC {} {}, LCOS {:.4f} {}/kWh "
-               "({:.4f} under Schmidt et al. 2019 conventions)\n",
+               "Recommended: {} ({}), total score {:.1f}, NPC {} {}, LCOS {} {}/kWh "
+               "({} under Schmidt et al. 2019 conventions)\n",
                best.label, best.family, best.total_score, format_amount(best.npc), cur,
-               best.lcos_per_kwh, cur, best.lcos_schmidt_per_kwh);
+               format_fixed(best.lcos_per_kwh, 4), cur, format_fixed(best.lcos_schmidt_per_kwh, 4));
     if (result.order.size() > 1) {
       const BidResult& second = result.bids[result.order[1]];
       fmt::print(out, "Runner-up:   {}, {:.1f} points behind, NPC {} {}\n", second.label,
@@ -140,9 +140,10 @@ void write_tender_text(std::ostream& out, const TenderCase& tender, const Tender
              "LCOS", "LCOS Schm.", "price", "technical", "total");
   for (std::size_t i : result.order) {
     const BidResult& b = result.bids[i];
-    fmt::print(out, "{:>4}  {:<10}{:>14}{:>12.4f}{:>12.4f}{:>8.1f}{:>11.1f}{:>8.1f}\n", b.rank,
-               b.label, format_amount(b.npc), b.lcos_per_kwh, b.lcos_schmidt_per_kwh, b.price_score,
-               b.technical_score, b.total_score);
+    fmt::print(out, "{:>4}  {:<10}{:>14}{:>12}{:>12}{:>8.1f}{:>11.1f}{:>8.1f}\n", b.rank, b.label,
+               format_amount(b.npc), format_fixed(b.lcos_per_kwh, 4),
+               format_fixed(b.lcos_schmidt_per_kwh, 4), b.price_score, b.technical_score,
+               b.total_score);
   }
   out << "\nWarranty against the chemistry's own ageing model\n";
   out << "  (replacements at the end of the years shown)\n";

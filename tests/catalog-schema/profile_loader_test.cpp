@@ -276,6 +276,25 @@ TEST_CASE("the end-of-life cost at a replacement may differ from the project's e
              Catch::Contains("finite"));
 }
 
+TEST_CASE("auxiliary loads are read, and a load of 1 kW per kWh or more is refused",
+          "[catalog][profile]") {
+  // Test values, not data: 0.002 kW of standing load per kWh, pumps at 4 % of throughput.
+  const std::string text =
+      replace_once(full_profile(), "  sources:\n",
+                   "  auxiliary: {standing_kw_per_kwh: 0.002, pump_kw_per_kw: 0.04}\n  sources:\n");
+  const ChemistryProfile p = load_text(text).profile;
+  CHECK(p.auxiliary.standing_kw_per_kwh == 0.002);
+  CHECK(p.auxiliary.pump_kw_per_kw == 0.04);
+  // eta_RT (1 - a_p) / (1 + a_p), by hand from the fixture's round trip.
+  CHECK(p.round_trip_with_pumps() == Approx(p.round_trip_efficiency() * 0.96 / 1.04));
+
+  const std::string whole = replace_once(text, "pump_kw_per_kw: 0.04", "pump_kw_per_kw: 1");
+  profile_error(whole, "pump_kw_per_kw", "profile.auxiliary.pump_kw_per_kw");
+  const std::string unknown =
+      replace_once(text, "pump_kw_per_kw: 0.04", "pump_kw_per_kw: 0.04, fans_kw: 1");
+  profile_error(unknown, "fans_kw", "profile.auxiliary.fans_kw");
+}
+
 TEST_CASE("a negative capacity is refused", "[catalog][profile][bad]") {
   const std::string text = replace_once(full_profile(), "capacity_ah: 100", "capacity_ah: -100");
   CHECK_THAT(profile_error(text, "capacity_ah", "profile.cell.capacity_ah"),

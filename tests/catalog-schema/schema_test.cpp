@@ -122,6 +122,10 @@ TEST_CASE("schema defaults are the values an absent field gets", "[catalog][sche
         schema_default("profile", "profile.costs.price_decline_per_year"));
   CHECK(p.costs.end_of_life_per_kwh ==
         schema_default("profile", "profile.costs.end_of_life_per_kwh"));
+  CHECK(p.auxiliary.standing_kw_per_kwh ==
+        schema_default("profile", "profile.auxiliary.standing_kw_per_kwh"));
+  CHECK(p.auxiliary.pump_kw_per_kw ==
+        schema_default("profile", "profile.auxiliary.pump_kw_per_kw"));
   const SiteConditions defaults;
   CHECK(defaults.design_margin == schema_default("site", "site.design_margin"));
   CHECK(defaults.source_to_load_efficiency ==

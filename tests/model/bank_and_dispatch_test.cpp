@@ -185,3 +185,115 @@ TEST_CASE("no charging outside the charging temperature limits", "[model][dispat
   CHECK(y.charged_terminal_kwh == 0.0);
   CHECK(trace.back() == Approx(0.5));
 }
+
+TEST_CASE("hours idle because of the temperature limits are counted", "[model][dispatch]") {
+  // Hand count. Charging limit 0 degC, operating limit -40 degC (inclusive). Hours 0..99 at
+  // -5 degC with a 1 kW surplus and the bank at SOC 0.5: 100 hours of surplus it had room for
+  // but could not take. It then charges to full in one warm hour (0.1 kWh of room, 1 kW
+  // offered). Hours 5000..5049 at -50 degC with a 0.01 kW deficit and a full bank: 50 hours it
+  // could not serve. Hours 6000..6009 at -50 degC with a surplus and a full bank: no room, not
+  // counted.
+  auto p = ideal_cell(100);
+  TemperatureSpec t = p.temperature.spec();
+  t.charge_min_c = 0;
+  p.temperature = TemperatureBehaviour(t);
+  auto s = quiet_site(2.0, 25.0);
+  s.source_kw.assign(kHoursPerYear, 1.0);
+  s.backup_price_per_kwh = 0.5;
+  for (std::size_t h = 0; h < 100; ++h) s.temp_c[h] = -5.0;
+  for (std::size_t h = 5000; h < 5050; ++h) {
+    s.temp_c[h] = -50.0;
+    s.source_kw[h] = 0.0;
+    s.load_kw[h] = 0.01;
+  }
+  for (std::size_t h = 6000; h < 6010; ++h) s.temp_c[h] = -50.0;
+  std::vector<double> trace;
+  const auto y = run_year(p, s, 1, 0.5, trace, 0.5);
+  CHECK(y.charge_blocked_by_temperature_hours == 100.0);
+  CHECK(y.discharge_blocked_by_temperature_hours == 50.0);
+  CHECK(y.temperature_idle_hours() == 150.0);
+  CHECK(y.delivered_kwh == 0.0);
+  CHECK(y.backup_kwh == Approx(50 * 0.01));
+}
+
+TEST_CASE("an empty bank outside its operating range is not idle because of it",
+          "[model][dispatch]") {
+  // With the SOC at the setpoint floor (1 - 0.5) and no source, the bank has nothing to give
+  // whatever the temperature: cold hours of deficit are not counted.
+  auto p = ideal_cell(100);
+  auto s = quiet_site(2.0, -50.0);
+  s.load_kw.assign(kHoursPerYear, 0.01);
+  std::vector<double> trace;
+  const auto y = run_year(p, s, 1, 0.5, trace, 0.5);
+  CHECK(y.discharge_blocked_by_temperature_hours == 0.0);
+  // Full, the same bank is blocked in every hour.
+  const auto full = run_year(p, s, 1, 0.5, trace, 1.0);
+  CHECK(full.discharge_blocked_by_temperature_hours == kHoursPerYear);
+}
+
+TEST_CASE("a standing auxiliary load drains an idle bank to its setpoint floor, then is unmet",
+          "[model][dispatch][auxiliary]") {
+  // Hand derivation: 1 string of 1 x 2 V x 100 Ah = 0.2 kWh nameplate; 0.01 kW per kWh gives
+  // 0.002 kWh an hour, 0.002 x 1000 / 2 V = 1 Ah = 0.01 of SOC. From SOC 1 with DoD 0.5 the
+  // bank feeds it for 50 hours (0.1 kWh) and then sits at 0.5; the other 8710 hours
+  // (17.42 kWh) are unmet. No source, so nothing comes from it.
+  auto p = ideal_cell(100);
+  p.auxiliary.standing_kw_per_kwh = 0.01;
+  const auto s = quiet_site(2.0);
+  std::vector<double> trace;
+  const auto y = run_year(p, s, 1, 0.5, trace);
+  CHECK(trace[1] == Approx(0.99));
+  CHECK(trace[50] == Approx(0.5));
+  CHECK(trace.back() == Approx(0.5));
+  CHECK(y.auxiliary_kwh == Approx(8760 * 0.002));
+  CHECK(y.auxiliary_bank_kwh == Approx(0.1));
+  CHECK(y.auxiliary_unmet_kwh == Approx(8710 * 0.002));
+  CHECK(y.auxiliary_source_kwh == 0.0);
+  CHECK(y.discharged_terminal_kwh == 0.0);  // not a discharge to the load
+}
+
+TEST_CASE("auxiliary loads take spare source energy first, through the charger, at its price",
+          "[model][dispatch][auxiliary]") {
+  // Hand derivation: a full bank, 1 kW of source every hour, no load: the bank takes nothing,
+  // so the 0.002 kWh standing load of every hour comes from the source through an 80 %
+  // charger, 0.0025 kWh an hour, 21.9 kWh a year, at 0.2 a kWh = 4.38; the curtailed energy
+  // falls by as much and the SOC stays at 1.
+  auto p = ideal_cell(100);
+  p.auxiliary.standing_kw_per_kwh = 0.01;
+  auto s = quiet_site(2.0);
+  s.source_kw.assign(kHoursPerYear, 1.0);
+  s.charge_price_per_kwh.assign(kHoursPerYear, 0.2);
+  s.charger_efficiency = 0.8;
+  std::vector<double> trace;
+  const auto y = run_year(p, s, 1, 0.5, trace);
+  CHECK(y.auxiliary_source_kwh == Approx(21.9));
+  CHECK(y.charge_cost == Approx(4.38));
+  CHECK(y.curtailed_kwh == Approx(8760 - 21.9));
+  CHECK(y.auxiliary_bank_kwh == 0.0);
+  CHECK(y.auxiliary_unmet_kwh == 0.0);
+  CHECK(trace.back() == 1.0);
+}
+
+TEST_CASE("pumps draw in proportion to the terminal throughput", "[model][dispatch][auxiliary]") {
+  // Hand derivation: 2 V x 1000 Ah = 2 kWh; 0.1 kW of load, no source, ideal inverter: each
+  // hour 0.1 kWh = 50 Ah out (0.05 of SOC) and pumps at 0.1 x 0.1 = 0.01 kWh = 5 Ah (0.005).
+  // After 9 hours SOC = 1 - 9 x 0.055 = 0.505; in hour 10 the room above the 0.5 floor is
+  // 5 Ah, all of it to the load (0.01 kWh), and its 0.001 kWh of pumping finds no room:
+  // unmet. Then the bank is at its floor and moves nothing, so the pumps need nothing.
+  auto p = ideal_cell(1000);
+  p.auxiliary.pump_kw_per_kw = 0.1;
+  auto s = quiet_site(2.0);
+  s.load_kw.assign(kHoursPerYear, 0.1);
+  s.backup_price_per_kwh = 1.0;
+  std::vector<double> trace;
+  const auto y = run_year(p, s, 1, 0.5, trace);
+  CHECK(trace[1] == Approx(0.945));
+  CHECK(trace[9] == Approx(0.505));
+  CHECK(trace[10] == Approx(0.5));
+  CHECK(y.delivered_kwh == Approx(0.91));
+  CHECK(y.auxiliary_bank_kwh == Approx(0.09));
+  CHECK(y.auxiliary_unmet_kwh == Approx(0.001));
+  CHECK(y.auxiliary_kwh == Approx(0.091));
+  // The load's balance is unchanged by the auxiliaries: demand = delivered + back-up.
+  CHECK(y.backup_kwh == Approx(876 - 0.91));
+}

@@ -120,3 +120,30 @@ TEST_CASE("a profile without a cell volume cannot meet a volume limit", "[optimi
   CHECK(unmet.back().requirement == Requirement::MissingCellData);
   CHECK_FALSE(unmet.back().missing_mass);
 }
+
+TEST_CASE("a design below the least admissible strings fails the requirement check",
+          "[optimiser][space][requirements]") {
+  // The same hand sizing as above: autonomy needs 29 strings (IEEE 1013 approach, by hand
+  // above), the 1.111 kW peak 3 strings of 0.468 kW.
+  const StudyCase s = hand_study();
+  const ChemistryProfile& p = s.profiles[0];
+  const RequirementCheck one = check_requirements(p, s.site, 0.5, 1);
+  CHECK_FALSE(one.meets_autonomy);
+  CHECK_FALSE(one.meets_peak);
+  CHECK_FALSE(one.meets_all());
+  CHECK(one.autonomy_strings == 29);
+  CHECK(one.peak_strings == 3);
+  CHECK(one.required_usable_kwh == Approx(24.0 * 2 / 0.9));
+  CHECK(one.peak_kw == Approx(1.0 / 0.9));
+  CHECK(one.power_kw == Approx(0.468));
+
+  const RequirementCheck few = check_requirements(p, s.site, 0.5, 3);
+  CHECK(few.meets_peak);
+  CHECK_FALSE(few.meets_autonomy);
+  CHECK(few.autonomy_strings == 29);  // not capped at the design's own strings + 1
+
+  CHECK_FALSE(check_requirements(p, s.site, 0.5, 28).meets_autonomy);
+  const RequirementCheck enough = check_requirements(p, s.site, 0.5, 29);
+  CHECK(enough.meets_all());
+  CHECK(enough.usable_kwh + 1e-9 >= enough.required_usable_kwh);
+}
