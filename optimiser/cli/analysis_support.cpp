@@ -6,6 +6,7 @@
 #include <iostream>
 
 #include "optimiser/report/sweep_report.h"
+#include "optimiser/report/uncertainty_report.h"
 
 namespace stowage::cli {
 
@@ -28,6 +29,24 @@ std::vector<Variation> variations_with(const LoadedStudy& loaded,
     extra.push_back(parse_vary_option(text, loaded.study));
   }
   return merge_variations(loaded.variations, extra);
+}
+
+void emit_uncertainty(std::optional<report::OutputSet>& files, OutputFormat format,
+                      const StudyCase& study, const UncertaintyResult& result) {
+  if (files) {
+    files->add("uncertainty.json",
+               [&](std::ostream& out) { report::write_uncertainty_json(out, study, result); });
+    files->add("summary.csv",
+               [&](std::ostream& out) { report::write_uncertainty_summary_csv(out, result); });
+    files->add("samples.csv",
+               [&](std::ostream& out) { report::write_uncertainty_samples_csv(out, result); });
+    files->commit();
+  }
+  if (format == OutputFormat::Json) {
+    report::write_uncertainty_json(std::cout, study, result);
+  } else {
+    report::write_uncertainty_text(std::cout, study, result);
+  }
 }
 
 RunProgress::RunProgress(bool quiet, std::string unit)

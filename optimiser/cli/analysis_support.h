@@ -13,7 +13,9 @@
 
 #include "catalog-schema/study_loader.h"
 #include "optimiser/analysis/parallel.h"
+#include "optimiser/analysis/uncertainty.h"
 #include "optimiser/cli/cli_support.h"
+#include "optimiser/report/output_set.h"
 
 namespace stowage::cli {
 
@@ -32,6 +34,12 @@ std::vector<Variation> variations_with(const LoadedStudy& loaded,
 
 // Done/total, rate and time left on stderr, redrawn at most four times a second; silent when
 // stderr is not a terminal or `quiet`. The callback is called one at a time (parallel.h).
+// Writes an uncertainty result: uncertainty.json, summary.csv and samples.csv into `files`
+// (committed) when given, and the text or JSON report on stdout. Shared by `uncertainty` and
+// `merge`, so a merged run prints exactly what the unsharded one does.
+void emit_uncertainty(std::optional<report::OutputSet>& files, OutputFormat format,
+                      const StudyCase& study, const UncertaintyResult& result);
+
 class RunProgress {
  public:
   RunProgress(bool quiet, std::string unit);

@@ -128,4 +128,24 @@ cmp -s "$WORK/u1/uncertainty.json" "$WORK/u1.json" || fail "a failed run changed
 mkdir -p "$WORK/mine" && echo keep >"$WORK/mine/notes.txt"
 expect_exit 2 -- "$STOWAGE" sweep --out "$WORK/mine" "$fixture" || fail "foreign --out directory"
 [ "$(cat "$WORK/mine/notes.txt")" = keep ] || fail "user file touched"
+
+# 7. Shards: 4 slices run apart (under GNU parallel when it is installed, else as background
+#    jobs) and merged give the unsharded JSON and samples byte for byte, in any part order.
+expect_exit 0 -- "$STOWAGE" uncertainty --samples 30 --seed 5 --format json --out "$WORK/whole" "$fixture" && cp "$WORK/out" "$WORK/whole.json" || fail "unsharded run"
+shard() { "$STOWAGE" uncertainty --samples 30 --seed 5 --threads 1 --shard "$1/4" "$fixture" >"$WORK/part$1.txt"; }
+if command -v parallel >/dev/null; then
+  export -f shard && export STOWAGE fixture WORK
+  parallel -j 2 shard ::: 1 2 3 4 || fail "shards under GNU parallel"
+else
+  for i in 1 2 3 4; do shard "$i" & done
+  wait
+fi
+expect_exit 0 -- "$STOWAGE" merge --format json --out "$WORK/merged" "$WORK/part3.txt" "$WORK/part1.txt" "$WORK/part4.txt" "$WORK/part2.txt" || fail "merge"
+cmp -s "$WORK/out" "$WORK/whole.json" || fail "merged JSON differs from the unsharded run"
+cmp -s "$WORK/merged/samples.csv" "$WORK/whole/samples.csv" || fail "merged samples.csv differs"
+expect_exit 2 -- "$STOWAGE" merge "$WORK/part1.txt" "$WORK/part2.txt" && grep -q "in no part" "$WORK/err" || fail "missing shard"
+expect_exit 2 -- "$STOWAGE" merge "$WORK/part1.txt" "$WORK/part1.txt" "$WORK/part2.txt" "$WORK/part3.txt" "$WORK/part4.txt" && grep -q "overlap" "$WORK/err" || fail "doubled shard"
+head -n 9 "$WORK/part2.txt" >"$WORK/cut.txt"
+expect_exit 2 -- "$STOWAGE" merge "$WORK/cut.txt" && grep -q "cut.txt:10" "$WORK/err" || fail "truncated part"
+expect_exit 2 -- "$STOWAGE" uncertainty --shard 5/4 "$fixture" && grep -q -- "--shard" "$WORK/err" || fail "bad --shard"
 finish
