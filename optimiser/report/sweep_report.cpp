@@ -262,8 +262,10 @@ void write_grid_text(std::ostream& out, const StudyCase& study, const GridResult
   if (g.axes.size() > 1) head += fmt::format(" {:>14}", "axis 2");
   fmt::print(out, "{}  {:<22} {:>14} {:>12}  {}\n", head, "winner", "NPC " + cur, "LCOS " + cur,
              "design");
+  bool any_change = false;
   for (std::size_t k = 0; k < g.points.size(); ++k) {
     const PointOutcome& p = g.points[k];
+    any_change = any_change || !winner_mark(p, g.base).empty();
     std::string row = fmt::format("{:>14}", format_general(g.values[0][k / columns], 6));
     if (g.axes.size() > 1)
       row += fmt::format(" {:>14}", format_general(g.values[1][k % columns], 6));
@@ -272,7 +274,7 @@ void write_grid_text(std::ostream& out, const StudyCase& study, const GridResult
                w ? format_amount(w->npc) : "n/a", w ? format_fixed(w->lcos_per_kwh, 4) : "n/a",
                w ? design_text(*w) : "");
   }
-  out << "* the winner differs from the base case's\n";
+  if (any_change) out << "* the winner differs from the base case's\n";
   if (g.axes.size() > 1) {
     fmt::print(out, "\nWinner map: rows {} (down), columns {} (across)\n", g.axes[0].label,
                g.axes[1].label);

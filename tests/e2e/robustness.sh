@@ -148,4 +148,12 @@ expect_exit 2 -- "$STOWAGE" merge "$WORK/part1.txt" "$WORK/part1.txt" "$WORK/par
 head -n 9 "$WORK/part2.txt" >"$WORK/cut.txt"
 expect_exit 2 -- "$STOWAGE" merge "$WORK/cut.txt" && grep -q "cut.txt:10" "$WORK/err" || fail "truncated part"
 expect_exit 2 -- "$STOWAGE" uncertainty --shard 5/4 "$fixture" && grep -q -- "--shard" "$WORK/err" || fail "bad --shard"
+
+# 8. Progress only on a terminal (script(1) gives the run one), and not with --quiet.
+if command -v script >/dev/null; then
+  script -qec "$STOWAGE uncertainty --samples 200 --threads 1 --format json $fixture" /dev/null >"$WORK/tty.txt" 2>&1
+  grep -aq "/ 200 samples" "$WORK/tty.txt" || fail "no progress on a terminal"
+  script -qec "$STOWAGE uncertainty --samples 200 --threads 1 --quiet --format json $fixture" /dev/null >"$WORK/tty.txt" 2>&1
+  grep -aq "/ 200 samples" "$WORK/tty.txt" && fail "progress despite --quiet"
+fi
 finish
