@@ -61,7 +61,10 @@ void register_merge(CLI::App& app, int& exit_code) {
       "Join the partial results of `stowage uncertainty --shard i/N` runs into the result of "
       "the whole run");
   cmd->add_option("parts", args->parts, "Partial result files, in any order")->required();
-  add_run_options(*cmd, args->run, "uncertainty.json, summary.csv and samples.csv");
+  add_format_option(*cmd, args->run.format);
+  cmd->add_option("--out", args->run.out_dir,
+                  "Also write uncertainty.json, summary.csv and samples.csv into this directory")
+      ->type_name("DIR");
   cmd->callback(
       [args, &exit_code]() { exit_code = run_guarded([&]() { return run_merge(*args); }); });
 }
