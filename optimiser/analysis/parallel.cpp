@@ -16,7 +16,8 @@ int resolve_threads(int threads) {
   return cores == 0 ? 1 : static_cast<int>(cores);
 }
 
-void parallel_for(std::size_t count, int threads, const std::function<void(std::size_t)>& task) {
+void parallel_for(std::size_t count, int threads, const std::function<void(std::size_t)>& task,
+                  const DoneCallback& done) {
   const std::size_t workers =
       std::min<std::size_t>(count, static_cast<std::size_t>(resolve_threads(threads)));
   std::atomic<std::size_t> next{0};
@@ -24,12 +25,18 @@ void parallel_for(std::size_t count, int threads, const std::function<void(std::
   std::mutex error_mutex;
   std::size_t error_index = count;
   std::exception_ptr error;
+  std::mutex done_mutex;
+  std::size_t finished = 0;
   const auto work = [&]() {
     while (!failed.load()) {
       const std::size_t i = next.fetch_add(1);
       if (i >= count) return;
       try {
         task(i);
+        if (done) {
+          const std::lock_guard<std::mutex> lock(done_mutex);
+          done(++finished);
+        }
       } catch (...) {
         const std::lock_guard<std::mutex> lock(error_mutex);
         if (i < error_index) {

@@ -56,13 +56,18 @@ PointOutcome evaluate_point(const StudyCase& changed, const PointOptions& option
     for (const DesignResult& d : result.ranking)
       outcome.by_profile[index_of(d.profile_id)] = summarise(d);
   }
+  rank_point(outcome);
+  return outcome;
+}
+
+void rank_point(PointOutcome& outcome) {
+  outcome.ranking.clear();
   for (const std::optional<DesignSummary>& d : outcome.by_profile) {
     if (d && d->meets_unserved_limit) outcome.ranking.push_back(*d);
   }
   // by_profile is in profile order, so a stable sort breaks ties by profile order.
   std::stable_sort(outcome.ranking.begin(), outcome.ranking.end(),
                    [](const DesignSummary& a, const DesignSummary& b) { return a.npc < b.npc; });
-  return outcome;
 }
 
 }  // namespace stowage

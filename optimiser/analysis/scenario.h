@@ -67,4 +67,9 @@ struct PointOutcome {
 
 PointOutcome evaluate_point(const StudyCase& changed, const PointOptions& options);
 
+// Fills outcome.ranking from outcome.by_profile by the rule above (the designs meeting the
+// unserved-energy limit, ascending NPC, ties in profile order). evaluate_point() ends with it,
+// and a point read back from a partial result (shards.h) is ranked by it again.
+void rank_point(PointOutcome& outcome);
+
 }  // namespace stowage

@@ -34,18 +34,37 @@ const std::string& winner_id(const PointOutcome& p) {
 
 }  // namespace
 
-TornadoResult run_tornado(const StudyCase& study, const std::vector<Variation>& variations,
-                          const SweepOptions& options) {
-  const PreparedRun run = prepare_run(study, options.hold_designs, options.optimise);
+std::vector<PointOutcome> evaluate_points(const StudyCase& study, const PointOptions& point,
+                                          const PointList& points, std::size_t first,
+                                          std::size_t last, int threads,
+                                          const DoneCallback& progress) {
+  if (first > last || last > points.size()) throw ContractViolation("last", "past the points");
+  std::vector<PointOutcome> out(last - first);
+  parallel_for(
+      out.size(), threads,
+      [&](std::size_t i) {
+        out[i] = evaluate_point(with_settings(study, points[first + i]), point);
+      },
+      progress);
+  return out;
+}
+
+PointList tornado_points(const std::vector<Variation>& variations) {
+  PointList points;
+  for (const Variation& v : variations) {
+    points.push_back({{v.path, v.low}});
+    points.push_back({{v.path, v.high}});
+  }
+  return points;
+}
+
+TornadoResult assemble_tornado(bool hold_designs, PointOutcome base,
+                               const std::vector<Variation>& variations,
+                               std::vector<PointOutcome> ends) {
+  if (ends.size() != 2 * variations.size()) throw ContractViolation("ends", "two per variation");
   TornadoResult result;
-  result.hold_designs = options.hold_designs;
-  result.base = run.base;
-  std::vector<PointOutcome> ends(2 * variations.size());
-  parallel_for(ends.size(), options.threads, [&](std::size_t i) {
-    const Variation& v = variations[i / 2];
-    const double value = i % 2 == 0 ? v.low : v.high;
-    ends[i] = evaluate_point(with_settings(study, {{v.path, value}}), run.point);
-  });
+  result.hold_designs = hold_designs;
+  result.base = std::move(base);
   for (std::size_t k = 0; k < variations.size(); ++k) {
     TornadoBar bar;
     bar.variation = variations[k];
@@ -68,6 +87,15 @@ TornadoResult run_tornado(const StudyCase& study, const std::vector<Variation>& 
   return result;
 }
 
+TornadoResult run_tornado(const StudyCase& study, const std::vector<Variation>& variations,
+                          const SweepOptions& options) {
+  const PreparedRun run = prepare_run(study, options.hold_designs, options.optimise);
+  const PointList points = tornado_points(variations);
+  return assemble_tornado(options.hold_designs, run.base, variations,
+                          evaluate_points(study, run.point, points, 0, points.size(),
+                                          options.threads, options.progress));
+}
+
 std::vector<double> axis_values(const Variation& v, int steps) {
   if (!v.points.empty()) return v.points;
   if (steps < 2) throw ContractViolation("steps", "must be at least 2");
@@ -80,26 +108,48 @@ std::vector<double> axis_values(const Variation& v, int steps) {
   return out;
 }
 
-GridResult run_grid(const StudyCase& study, const std::vector<Variation>& axes,
-                    const SweepOptions& options) {
+void check_grid_axes(const std::vector<Variation>& axes) {
   if (axes.empty() || axes.size() > 2) throw ContractViolation("axes", "must be one or two");
   if (axes.size() == 2 && axes[0].path == axes[1].path) {
     throw ContractViolation("axes", "must name two different paths");
   }
-  const PreparedRun run = prepare_run(study, options.hold_designs, options.optimise);
+}
+
+PointList grid_points(const std::vector<Variation>& axes,
+                      const std::vector<std::vector<double>>& values) {
+  check_grid_axes(axes);
+  PointList points;
+  const std::size_t columns = axes.size() > 1 ? values[1].size() : 1;
+  for (std::size_t i = 0; i < values[0].size() * columns; ++i) {
+    std::vector<Setting> settings{{axes[0].path, values[0][i / columns]}};
+    if (axes.size() > 1) settings.push_back({axes[1].path, values[1][i % columns]});
+    points.push_back(std::move(settings));
+  }
+  return points;
+}
+
+GridResult assemble_grid(bool hold_designs, PointOutcome base, std::vector<Variation> axes,
+                         std::vector<std::vector<double>> values,
+                         std::vector<PointOutcome> points) {
   GridResult grid;
-  grid.hold_designs = options.hold_designs;
-  grid.axes = axes;
-  grid.base = run.base;
-  for (const Variation& v : axes) grid.values.push_back(axis_values(v, options.steps));
-  const std::size_t columns = axes.size() > 1 ? grid.values[1].size() : 1;
-  grid.points.resize(grid.values[0].size() * columns);
-  parallel_for(grid.points.size(), options.threads, [&](std::size_t i) {
-    std::vector<Setting> settings{{axes[0].path, grid.values[0][i / columns]}};
-    if (axes.size() > 1) settings.push_back({axes[1].path, grid.values[1][i % columns]});
-    grid.points[i] = evaluate_point(with_settings(study, settings), run.point);
-  });
+  grid.hold_designs = hold_designs;
+  grid.axes = std::move(axes);
+  grid.values = std::move(values);
+  grid.base = std::move(base);
+  grid.points = std::move(points);
   return grid;
+}
+
+GridResult run_grid(const StudyCase& study, const std::vector<Variation>& axes,
+                    const SweepOptions& options) {
+  check_grid_axes(axes);
+  const PreparedRun run = prepare_run(study, options.hold_designs, options.optimise);
+  std::vector<std::vector<double>> values;
+  for (const Variation& v : axes) values.push_back(axis_values(v, options.steps));
+  const PointList points = grid_points(axes, values);
+  return assemble_grid(options.hold_designs, run.base, axes, values,
+                       evaluate_points(study, run.point, points, 0, points.size(), options.threads,
+                                       options.progress));
 }
 
 }  // namespace stowage

@@ -6,7 +6,6 @@
 
 #include "model/contract.h"
 #include "model/invalid_value.h"
-#include "optimiser/analysis/parallel.h"
 #include "optimiser/analysis/sweep.h"
 
 namespace stowage {
@@ -22,62 +21,97 @@ struct Tally {
   std::size_t regret_count = 0;
 };
 
-struct SampleRecord {
-  std::vector<double> values;
-  PointOutcome outcome;
-};
-
 double binomial_se(double p, std::size_t n) {
   return n == 0 ? kNaN : std::sqrt(p * (1 - p) / static_cast<double>(n));
 }
 
+// The index of the sample's cheapest profile meeting the limit (ties: profile order), or
+// npos: the rule of rank_point() (scenario.h) on the sample's designs.
+std::size_t winner_of(const SampleRecord& r) {
+  std::size_t best = std::string::npos;
+  for (std::size_t p = 0; p < r.profiles.size(); ++p) {
+    const ProfileDraw& d = r.profiles[p];
+    if (!d.present || !d.meets_unserved_limit) continue;
+    if (best == std::string::npos || d.npc < r.profiles[best].npc) best = p;
+  }
+  return best;
+}
+
 }  // namespace
 
-UncertaintyResult run_uncertainty(const StudyCase& study, const std::vector<Variation>& variations,
-                                  const UncertaintyOptions& options) {
+UncertaintySampler::UncertaintySampler(const StudyCase& study,
+                                       const std::vector<Variation>& variations,
+                                       const UncertaintyOptions& options)
+    : study_(study), options_(options) {
   if (options.samples < 2) throw ContractViolation("samples", "must be at least 2");
-  UncertaintyResult result;
   for (const Variation& v : variations) {
-    if (v.distribution) result.drawn.push_back(v);
+    if (v.distribution) run_.drawn.push_back(v);
   }
-  if (result.drawn.empty()) {
+  if (run_.drawn.empty()) {
     throw InvalidValue("variations",
                        "no variation has a distribution, so there is nothing to draw; add a "
                        "distribution to an entry of study.variations");
   }
-  const std::size_t n = options.samples;
-  result.samples = n;
-  result.seed = options.seed;
-  result.latin_hypercube = options.latin_hypercube;
-  result.reoptimise = options.reoptimise;
-  const PreparedRun run = prepare_run(study, !options.reoptimise, options.optimise);
-  if (run.base.feasible()) result.base_winner = run.base.winner().profile_id;
-
-  std::vector<std::vector<std::size_t>> strata;
+  run_.samples = options.samples;
+  run_.seed = options.seed;
+  run_.latin_hypercube = options.latin_hypercube;
+  run_.reoptimise = options.reoptimise;
+  for (const ChemistryProfile& p : study.profiles) run_.profile_ids.push_back(p.id);
+  const PreparedRun prepared = prepare_run(study, !options.reoptimise, options.optimise);
+  point_ = prepared.point;
+  if (prepared.base.feasible()) run_.base_winner = prepared.base.winner().profile_id;
   if (options.latin_hypercube) {
-    for (std::size_t j = 0; j < result.drawn.size(); ++j) {
-      strata.push_back(latin_strata(options.seed, j, n));
+    for (std::size_t j = 0; j < run_.drawn.size(); ++j) {
+      strata_.push_back(latin_strata(options.seed, j, options.samples));
     }
   }
-  std::vector<SampleRecord> records(n);
-  parallel_for(n, options.threads, [&](std::size_t k) {
-    SampleRecord& r = records[k];
-    std::vector<Setting> settings;
-    for (std::size_t j = 0; j < result.drawn.size(); ++j) {
-      double u = sample_uniform(options.seed, k, j);
-      if (options.latin_hypercube) u = (static_cast<double>(strata[j][k]) + u) / n;
-      const double x = distribution_quantile(*result.drawn[j].distribution, u);
-      r.values.push_back(x);
-      settings.push_back({result.drawn[j].path, x});
-    }
-    r.outcome = evaluate_point(with_settings(study, settings), run.point);
-  });
+}
+
+SampleRecord UncertaintySampler::sample(std::size_t k) const {
+  SampleRecord r;
+  std::vector<Setting> settings;
+  for (std::size_t j = 0; j < run_.drawn.size(); ++j) {
+    double u = sample_uniform(options_.seed, k, j);
+    if (options_.latin_hypercube) u = (static_cast<double>(strata_[j][k]) + u) / run_.samples;
+    const double x = distribution_quantile(*run_.drawn[j].distribution, u);
+    r.values.push_back(x);
+    settings.push_back({run_.drawn[j].path, x});
+  }
+  const PointOutcome o = evaluate_point(with_settings(study_, settings), point_);
+  for (const std::optional<DesignSummary>& d : o.by_profile) {
+    ProfileDraw draw;
+    if (d) draw = {true, d->npc, d->lcos_per_kwh, d->meets_unserved_limit};
+    r.profiles.push_back(draw);
+  }
+  return r;
+}
+
+std::vector<SampleRecord> UncertaintySampler::samples(std::size_t first, std::size_t last) const {
+  if (first > last || last > run_.samples) throw ContractViolation("last", "past the samples");
+  std::vector<SampleRecord> out(last - first);
+  parallel_for(
+      out.size(), options_.threads, [&](std::size_t i) { out[i] = sample(first + i); },
+      options_.progress);
+  return out;
+}
+
+UncertaintyResult summarise_uncertainty(const UncertaintyRun& run,
+                                        const std::vector<SampleRecord>& records) {
+  const std::size_t n = run.samples;
+  if (records.size() != n) throw ContractViolation("records", "one per sample");
+  UncertaintyResult result;
+  result.drawn = run.drawn;
+  result.samples = n;
+  result.seed = run.seed;
+  result.latin_hypercube = run.latin_hypercube;
+  result.reoptimise = run.reoptimise;
+  result.base_winner = run.base_winner;
 
   // Profiles in study order that have a design in some sample.
   std::vector<std::size_t> profile_index;
-  for (std::size_t p = 0; p < study.profiles.size(); ++p) {
+  for (std::size_t p = 0; p < run.profile_ids.size(); ++p) {
     for (const SampleRecord& r : records) {
-      if (r.outcome.by_profile[p]) {
+      if (r.profiles.at(p).present) {
         profile_index.push_back(p);
         break;
       }
@@ -89,29 +123,30 @@ UncertaintyResult run_uncertainty(const StudyCase& study, const std::vector<Vari
   std::vector<std::size_t> base_wins_by(n, 0);
   std::size_t base_wins = 0;
   for (std::size_t k = 0; k < n; ++k) {
-    const PointOutcome& o = records[k].outcome;
-    result.values.push_back(records[k].values);
+    const SampleRecord& r = records[k];
+    result.values.push_back(r.values);
     std::vector<double> row;
-    const std::string winner = o.feasible() ? o.winner().profile_id : std::string();
+    const std::size_t w = winner_of(r);
+    const std::string winner = w == std::string::npos ? std::string() : run.profile_ids[w];
     result.winners.push_back(winner);
     if (winner.empty()) ++no_winner;
     if (!result.base_winner.empty() && winner == result.base_winner) ++base_wins;
     base_wins_by[k] = base_wins;
     for (std::size_t i = 0; i < profile_index.size(); ++i) {
-      const std::optional<DesignSummary>& d = o.by_profile[profile_index[i]];
+      const ProfileDraw& d = r.profiles[profile_index[i]];
       ProfileUncertainty& pu = result.profiles[i];
-      pu.profile_id = study.profiles[profile_index[i]].id;
-      if (!d) {
+      pu.profile_id = run.profile_ids[profile_index[i]];
+      if (!d.present) {
         row.push_back(kNaN);
         continue;
       }
-      row.push_back(d->npc);
-      tally[i].npc.push_back(d->npc);
-      tally[i].lcos.push_back(d->lcos_per_kwh);
-      if (!d->meets_unserved_limit) {
+      row.push_back(d.npc);
+      tally[i].npc.push_back(d.npc);
+      tally[i].lcos.push_back(d.lcos_per_kwh);
+      if (!d.meets_unserved_limit) {
         ++pu.fails_limit;
       } else if (!winner.empty()) {
-        tally[i].regret_sum += d->npc - o.winner().npc;
+        tally[i].regret_sum += d.npc - r.profiles[w].npc;
         ++tally[i].regret_count;
         if (winner == pu.profile_id) ++tally[i].wins;
       }
@@ -140,6 +175,12 @@ UncertaintyResult run_uncertainty(const StudyCase& study, const std::vector<Vari
     }
   }
   return result;
+}
+
+UncertaintyResult run_uncertainty(const StudyCase& study, const std::vector<Variation>& variations,
+                                  const UncertaintyOptions& options) {
+  const UncertaintySampler sampler(study, variations, options);
+  return summarise_uncertainty(sampler.run(), sampler.samples(0, options.samples));
 }
 
 }  // namespace stowage

@@ -18,6 +18,9 @@
 // probabilities and it sum to 1. convergence: the win probability of the base winner and its
 // standard error after N/8, N/4, N/2 and N samples (whole samples, in sample order).
 // Identical for any thread count: every sample's numbers depend only on (seed, k).
+// A run can be split (shards.h): an UncertaintySampler evaluates any slice of the samples and
+// summarise_uncertainty() turns all of them, in sample order, into the result; run_uncertainty
+// does exactly that in one go, so a merged run equals an unsharded one.
 #pragma once
 
 #include <cstdint>
@@ -25,6 +28,7 @@
 #include <vector>
 
 #include "catalog-schema/variations_loader.h"
+#include "optimiser/analysis/parallel.h"
 #include "optimiser/analysis/sampling.h"
 #include "optimiser/analysis/scenario.h"
 
@@ -37,6 +41,7 @@ struct UncertaintyOptions {
   bool reoptimise = false;
   int threads = 0;
   OptimiseOptions optimise;
+  DoneCallback progress;  // after each sample (parallel.h); may be empty
 };
 
 struct ProfileUncertainty {
@@ -68,6 +73,50 @@ struct UncertaintyResult {
   std::vector<std::vector<double>> npc;
   std::vector<std::string> winners;  // per sample; empty when none meets the limit
 };
+
+// What every sample of a run shares, and what a summary needs besides the samples.
+struct UncertaintyRun {
+  std::vector<Variation> drawn;  // the variations with a distribution, in draw order
+  std::size_t samples = 0;
+  std::uint64_t seed = 0;
+  bool latin_hypercube = false, reoptimise = false;
+  std::string base_winner;               // empty when the base case has no feasible design
+  std::vector<std::string> profile_ids;  // the study's, in study order
+};
+
+// One sample: the drawn values (order of `drawn`) and each profile's design (study order).
+struct ProfileDraw {
+  bool present = false;  // the profile has a design in this sample
+  double npc = 0, lcos_per_kwh = 0;
+  bool meets_unserved_limit = true;
+};
+struct SampleRecord {
+  std::vector<double> values;
+  std::vector<ProfileDraw> profiles;
+};
+
+class UncertaintySampler {
+ public:
+  // Optimises the base case (held designs) and draws the Latin hypercube strata. Throws as
+  // run_uncertainty does.
+  UncertaintySampler(const StudyCase& study, const std::vector<Variation>& variations,
+                     const UncertaintyOptions& options);
+  const UncertaintyRun& run() const { return run_; }
+  // Samples [first, last), on options.threads threads; element i is sample first + i.
+  std::vector<SampleRecord> samples(std::size_t first, std::size_t last) const;
+
+ private:
+  SampleRecord sample(std::size_t k) const;
+  const StudyCase& study_;
+  UncertaintyOptions options_;
+  UncertaintyRun run_;
+  PointOptions point_;
+  std::vector<std::vector<std::size_t>> strata_;
+};
+
+// The result from every sample of the run, in sample order (records.size() == run.samples).
+UncertaintyResult summarise_uncertainty(const UncertaintyRun& run,
+                                        const std::vector<SampleRecord>& records);
 
 // Throws InvalidValue("variations", ...) when no variation has a distribution, or when a
 // drawn value is refused; ContractViolation for fewer than 2 samples.

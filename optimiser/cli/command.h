@@ -25,6 +25,10 @@ void register_cycles(CLI::App& app, int& exit_code);
 void register_optimise(CLI::App& app, int& exit_code);
 void register_tender(CLI::App& app, int& exit_code);
 void register_report(CLI::App& app, int& exit_code);
+void register_sweep(CLI::App& app, int& exit_code);
+void register_breakeven(CLI::App& app, int& exit_code);
+void register_uncertainty(CLI::App& app, int& exit_code);
+void register_merge(CLI::App& app, int& exit_code);
 
 // Adds the study report of `result` to `files` and commits them (cmd_report.cpp); returns
 // kExitOk, or kExitInfeasible when no design is feasible (the report then says why).

@@ -22,6 +22,10 @@ int main(int argc, char** argv) {
   stowage::cli::register_optimise(app, exit_code);
   stowage::cli::register_tender(app, exit_code);
   stowage::cli::register_report(app, exit_code);
+  stowage::cli::register_sweep(app, exit_code);
+  stowage::cli::register_breakeven(app, exit_code);
+  stowage::cli::register_uncertainty(app, exit_code);
+  stowage::cli::register_merge(app, exit_code);
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {

@@ -1,0 +1,194 @@
+// SPDX-License-Identifier: MIT
+#include "optimiser/analysis/shards.h"
+
+#include <cstdlib>
+#include <fstream>
+#include <limits>
+#include <sstream>
+
+#include "catalog-schema/input_error.h"
+#include "model/invalid_value.h"
+
+namespace stowage {
+
+namespace {
+
+std::size_t parse_count(const std::string& text, bool& ok) {
+  char* end = nullptr;
+  const unsigned long long v = std::strtoull(text.c_str(), &end, 10);
+  ok = !text.empty() && text[0] != '-' && end && *end == '\0';
+  return static_cast<std::size_t>(v);
+}
+
+class LineReader {
+ public:
+  LineReader(std::istream& in, std::string name) : in_(in), name_(std::move(name)) {}
+  // The next line's words; `want` must be its first word.
+  std::vector<std::string> next(const std::string& want) {
+    std::string line;
+    if (!std::getline(in_, line)) fail(want, "the file ends early (a part cut short?)");
+    ++line_;
+    last_ = line;
+    std::istringstream words(line);
+    std::vector<std::string> out;
+    for (std::string w; words >> w;) out.push_back(w);
+    if (out.empty() || out[0] != want) fail(want, "expected a line starting with '" + want + "'");
+    return out;
+  }
+  const std::string& last_line() const { return last_; }
+  [[noreturn]] void fail(const std::string& field, const std::string& message) const {
+    throw InputError(name_, line_ + 1, 1, field, message);
+  }
+  std::size_t count(const std::string& text, const std::string& field) const {
+    bool ok = false;
+    const std::size_t v = parse_count(text, ok);
+    if (!ok) fail(field, "not a whole number: " + text);
+    return v;
+  }
+  double number(const std::string& text, const std::string& field) const {
+    if (text == "nan") return std::numeric_limits<double>::quiet_NaN();
+    char* end = nullptr;
+    const double v = std::strtod(text.c_str(), &end);
+    if (text.empty() || !end || *end != '\0') fail(field, "not a number: " + text);
+    return v;
+  }
+  bool flag(const std::string& text, const std::string& field) const {
+    if (text != "0" && text != "1") fail(field, "must be 0 or 1, not " + text);
+    return text == "1";
+  }
+  int line() const { return line_; }
+
+ private:
+  std::istream& in_;
+  std::string name_;
+  int line_ = 0;
+  std::string last_;
+};
+
+std::string text_of(const std::string& word) { return word == "-" ? std::string() : word; }
+
+}  // namespace
+
+ShardSpec parse_shard(const std::string& text) {
+  const std::size_t slash = text.find('/');
+  bool ok_i = false, ok_n = false;
+  ShardSpec s;
+  if (slash != std::string::npos) {
+    s.index = parse_count(text.substr(0, slash), ok_i);
+    s.count = parse_count(text.substr(slash + 1), ok_n);
+  }
+  if (!ok_i || !ok_n || s.count < 1 || s.index < 1 || s.index > s.count) {
+    throw InvalidValue("--shard", "'" + text + "' is not i/N with 1 <= i <= N, e.g. 2/4");
+  }
+  return s;
+}
+
+SampleSlice shard_slice(std::size_t samples, const ShardSpec& shard) {
+  return {(shard.index - 1) * samples / shard.count, shard.index * samples / shard.count};
+}
+
+UncertaintyPart read_uncertainty_part(std::istream& in, const std::string& source_name) {
+  LineReader r(in, source_name);
+  UncertaintyPart part;
+  std::vector<std::string> w = r.next("stowage-partial");
+  if (w.size() != 3 || w[1] != "1" || w[2] != "uncertainty") {
+    r.fail("stowage-partial", "not a partial uncertainty result of this version");
+  }
+  w = r.next("study");
+  if (w.size() < 2) r.fail("study", "expected the study's path");
+  part.study_path = r.last_line().substr(std::string("study ").size());
+  w = r.next("study_digest");
+  if (w.size() != 2) r.fail("study_digest", "expected one digest");
+  part.study_digest = w[1];
+  w = r.next("run");
+  if (w.size() != 6) r.fail("run", "expected samples, seed, latin_hypercube, reoptimise, winner");
+  part.run.samples = r.count(w[1], "run");
+  part.run.seed = r.count(w[2], "run");
+  part.run.latin_hypercube = r.flag(w[3], "run");
+  part.run.reoptimise = r.flag(w[4], "run");
+  part.run.base_winner = text_of(w[5]);
+  w = r.next("profiles");
+  part.run.profile_ids.assign(w.begin() + 1, w.end());
+  w = r.next("drawn");
+  for (std::size_t j = 1; j < w.size(); ++j) {
+    Variation v;
+    v.path = w[j];
+    part.run.drawn.push_back(v);
+  }
+  w = r.next("shard");
+  if (w.size() != 5) r.fail("shard", "expected i, N, first, last");
+  part.shard = {r.count(w[1], "shard"), r.count(w[2], "shard")};
+  part.slice = {r.count(w[3], "shard"), r.count(w[4], "shard")};
+  if (part.slice.first > part.slice.last || part.slice.last > part.run.samples) {
+    r.fail("shard", "the slice lies outside the run's samples");
+  }
+  const std::size_t nd = part.run.drawn.size(), np = part.run.profile_ids.size();
+  for (std::size_t k = part.slice.first; k < part.slice.last; ++k) {
+    w = r.next("sample");
+    if (w.size() != 2 + nd + 4 * np) r.fail("sample", "wrong number of fields");
+    if (r.count(w[1], "sample") != k) r.fail("sample", "samples out of order");
+    SampleRecord rec;
+    for (std::size_t j = 0; j < nd; ++j) rec.values.push_back(r.number(w[2 + j], "sample"));
+    for (std::size_t p = 0; p < np; ++p) {
+      const std::size_t at = 2 + nd + 4 * p;
+      ProfileDraw d;
+      d.present = r.flag(w[at], "sample");
+      d.npc = r.number(w[at + 1], "sample");
+      d.lcos_per_kwh = r.number(w[at + 2], "sample");
+      d.meets_unserved_limit = r.flag(w[at + 3], "sample");
+      rec.profiles.push_back(d);
+    }
+    part.records.push_back(std::move(rec));
+  }
+  w = r.next("end");
+  return part;
+}
+
+UncertaintyPart read_uncertainty_part_file(const std::string& path) {
+  std::ifstream in(path);
+  if (!in) throw InputError(path, 0, 0, "", "cannot open the partial result");
+  return read_uncertainty_part(in, path);
+}
+
+std::vector<SampleRecord> join_parts(const std::vector<UncertaintyPart>& parts,
+                                     const std::vector<std::string>& names) {
+  if (parts.empty()) throw InvalidValue("PARTS", "no partial results to merge");
+  const UncertaintyPart& a = parts.front();
+  std::vector<const UncertaintyPart*> by_start(a.run.samples, nullptr);
+  for (std::size_t i = 0; i < parts.size(); ++i) {
+    const UncertaintyPart& p = parts[i];
+    const auto refuse = [&](const std::string& what) {
+      throw InputError(names[i], 0, 0, "", what + " differs from " + names[0]);
+    };
+    if (p.study_digest != a.study_digest) refuse("the study (its input files)");
+    if (p.run.samples != a.run.samples || p.run.seed != a.run.seed ||
+        p.run.latin_hypercube != a.run.latin_hypercube || p.run.reoptimise != a.run.reoptimise ||
+        p.run.base_winner != a.run.base_winner) {
+      refuse("the run (samples, seed, sampling or base winner)");
+    }
+    if (p.run.profile_ids != a.run.profile_ids) refuse("the profiles");
+    if (p.run.drawn.size() != a.run.drawn.size()) refuse("the drawn inputs");
+    for (std::size_t j = 0; j < p.run.drawn.size(); ++j) {
+      if (p.run.drawn[j].path != a.run.drawn[j].path) refuse("the drawn inputs");
+    }
+    if (p.slice.first == p.slice.last) continue;
+    if (by_start[p.slice.first]) {
+      throw InputError(names[i], 0, 0, "", "its samples overlap another part's");
+    }
+    by_start[p.slice.first] = &p;
+  }
+  std::vector<SampleRecord> out;
+  std::size_t k = 0;
+  while (k < a.run.samples) {
+    const UncertaintyPart* p = by_start[k];
+    if (!p) {
+      throw InvalidValue("PARTS", "samples from " + std::to_string(k) +
+                                      " on are in no part: a shard is missing or parts overlap");
+    }
+    out.insert(out.end(), p->records.begin(), p->records.end());
+    k = p->slice.last;
+  }
+  return out;
+}
+
+}  // namespace stowage

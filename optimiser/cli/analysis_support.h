@@ -1,0 +1,60 @@
+// SPDX-License-Identifier: MIT
+// What `sweep`, `breakeven` and `uncertainty` share: the run options (--format, --out,
+// --threads, --quiet), the variations of a study with any --vary options added, and the
+// progress line on stderr (only when stderr is a terminal and --quiet is not given).
+#pragma once
+
+#include <CLI/CLI.hpp>
+#include <chrono>
+#include <cstddef>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "catalog-schema/study_loader.h"
+#include "optimiser/analysis/parallel.h"
+#include "optimiser/analysis/uncertainty.h"
+#include "optimiser/cli/cli_support.h"
+#include "optimiser/report/output_set.h"
+
+namespace stowage::cli {
+
+struct RunArgs {
+  OutputFormat format = OutputFormat::Text;
+  std::optional<std::string> out_dir;
+  int threads = 0;  // 0: every core
+  bool quiet = false;
+};
+void add_run_options(CLI::App& command, RunArgs& args, const std::string& out_files);
+
+// study.variations with each --vary PATH=LOW:HIGH added (the command line wins for a path
+// given in both). Throws InvalidValue naming "--vary" for a bad option.
+std::vector<Variation> variations_with(const LoadedStudy& loaded,
+                                       const std::vector<std::string>& vary_options);
+
+// Done/total, rate and time left on stderr, redrawn at most four times a second; silent when
+// stderr is not a terminal or `quiet`. The callback is called one at a time (parallel.h).
+// Writes an uncertainty result: uncertainty.json, summary.csv and samples.csv into `files`
+// (committed) when given, and the text or JSON report on stdout. Shared by `uncertainty` and
+// `merge`, so a merged run prints exactly what the unsharded one does.
+void emit_uncertainty(std::optional<report::OutputSet>& files, OutputFormat format,
+                      const StudyCase& study, const UncertaintyResult& result);
+
+class RunProgress {
+ public:
+  RunProgress(bool quiet, std::string unit);
+  ~RunProgress();
+  RunProgress(const RunProgress&) = delete;
+  RunProgress& operator=(const RunProgress&) = delete;
+  DoneCallback callback(std::size_t total);
+  void finish();
+
+ private:
+  void show(std::size_t done, std::size_t total);
+  bool enabled_;
+  std::string unit_;
+  bool shown_ = false;
+  std::chrono::steady_clock::time_point start_, last_;
+};
+
+}  // namespace stowage::cli

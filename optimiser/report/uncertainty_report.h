@@ -1,0 +1,28 @@
+// SPDX-License-Identifier: MIT
+// How an uncertainty run is shown (optimiser/analysis/uncertainty.h): the drawn inputs and
+// their distributions, then per profile the probability of being cheapest (with its standard
+// error), NPC P10/P50/P90, mean and standard error, LCOS P50, the expected regret and the
+// samples in which it breaks the unserved-energy limit; the convergence of the base winner's
+// win probability; a verdict on how often the base winner stays cheapest.
+// JSON (stable field names, docs/usage.md): samples, seed, latin_hypercube, reoptimise,
+// base_winner, drawn (variations with their distribution), profiles (profile, samples,
+// win_probability, win_probability_se, npc and lcos_per_kwh as {mean, standard_error, p10,
+// p50, p90}, expected_regret, fails_limit), no_winner_probability, convergence. No timing, so
+// the document is the same for any thread count.
+// CSV: summary.csv (one row per profile) and samples.csv (one row per sample: the drawn values,
+// the winner, each profile's NPC).
+#pragma once
+
+#include <ostream>
+
+#include "catalog-schema/study_case.h"
+#include "optimiser/analysis/uncertainty.h"
+
+namespace stowage::report {
+
+void write_uncertainty_text(std::ostream& out, const StudyCase& study, const UncertaintyResult& r);
+void write_uncertainty_json(std::ostream& out, const StudyCase& study, const UncertaintyResult& r);
+void write_uncertainty_summary_csv(std::ostream& out, const UncertaintyResult& r);
+void write_uncertainty_samples_csv(std::ostream& out, const UncertaintyResult& r);
+
+}  // namespace stowage::report
