@@ -1,7 +1,8 @@
 // SPDX-License-Identifier: MIT
 // `cmake --build build --target bench`: speed figures of the model and the optimiser.
 // `stowage_bench model [FILTER]` runs the model part only (FILTER: designs whose study path and
-// profile id contain it), `stowage_bench optimise` the optimiser part.
+// profile id contain it), `stowage_bench optimise` the optimiser part, `stowage_bench
+// uncertainty [SAMPLES]` the Monte Carlo part (bench_uncertainty.h; default 10,000 samples).
 //
 // Model: for every demo study under studies/ and each of its designs, one 20-year exact
 // evaluation (dispatch, rainflow ageing with leg attribution, calendar ageing, replacements,
@@ -13,6 +14,7 @@
 #include <chrono>
 #include <cmath>
 #include <cstdio>
+#include <cstdlib>
 #include <cstring>
 #include <filesystem>
 #include <string>
@@ -20,6 +22,7 @@
 
 #include "bare_loop.h"
 #include "bench_optimise.h"
+#include "bench_uncertainty.h"
 #include "catalog-schema/profile_loader.h"
 #include "catalog-schema/study_loader.h"
 #include "model/lifecycle.h"
@@ -138,8 +141,9 @@ void run_model_benchmarks(const std::string& only) {
 
 int main(int argc, char** argv) {
   const std::string part = argc > 1 ? argv[1] : "all";
-  if (part != "all" && part != "model" && part != "optimise") {
-    std::fprintf(stderr, "usage: stowage_bench [all|model [FILTER]|optimise]\n");
+  if (part != "all" && part != "model" && part != "optimise" && part != "uncertainty") {
+    std::fprintf(stderr,
+                 "usage: stowage_bench [all|model [FILTER]|optimise|uncertainty [SAMPLES]]\n");
     return 2;
   }
   // Profile warnings (a demo bid's cycle-life curve, say) are the loader's business, not the
@@ -148,8 +152,16 @@ int main(int argc, char** argv) {
   stowage::set_warning_sink([](const std::string&) { ++warnings; });
   std::printf("stowage bench\n");
   // A third argument keeps only the model designs whose "study-path profile-id" contains it.
-  if (part != "optimise") run_model_benchmarks(argc > 2 ? argv[2] : "");
-  if (part != "model") stowage::bench::run_optimise_benchmarks();
+  if (part == "all" || part == "model") run_model_benchmarks(argc > 2 ? argv[2] : "");
+  if (part == "all" || part == "optimise") stowage::bench::run_optimise_benchmarks();
+  if (part == "all" || part == "uncertainty") {
+    const long samples = part == "uncertainty" && argc > 2 ? std::atol(argv[2]) : 10000;
+    if (samples < 2) {
+      std::fprintf(stderr, "stowage_bench: SAMPLES must be a whole number >= 2\n");
+      return 2;
+    }
+    stowage::bench::run_uncertainty_benchmarks(static_cast<std::size_t>(samples));
+  }
   if (warnings > 0) std::printf("(%d profile warnings while loading, not shown)\n", warnings);
   return 0;
 }
