@@ -8,6 +8,7 @@
 
 #include "catalog-schema/study_loader.h"
 #include "optimiser/analysis/design_trace.h"
+#include "optimiser/analysis/sweep.h"
 #include "optimiser/cli/cli_support.h"
 #include "optimiser/cli/command.h"
 #include "optimiser/optimise.h"
@@ -20,10 +21,16 @@ int write_study_report(report::OutputSet& files, const LoadedStudy& loaded,
                        const OptimiseResult& result) {
   std::optional<DesignTrace> trace;
   if (result.feasible()) trace = trace_first_year(loaded.study, result.best());
+  // A study that names variations gets its one-at-a-time sensitivity in the report.
+  std::optional<TornadoResult> tornado;
+  if (result.feasible() && !loaded.variations.empty()) {
+    tornado = run_tornado(loaded.study, loaded.variations, SweepOptions{});
+  }
   report::ReportInputs inputs;
   inputs.loaded = &loaded;
   inputs.result = &result;
   inputs.trace = trace ? &*trace : nullptr;
+  inputs.tornado = tornado ? &*tornado : nullptr;
   inputs.generated_at = report::report_timestamp();
   report::add_report_files(files, inputs);
   files.commit();

@@ -8,6 +8,7 @@
 #include "optimiser/report/cost_lines.h"
 #include "optimiser/report/number_format.h"
 #include "optimiser/report/svg_chart.h"
+#include "optimiser/report/sweep_report.h"
 
 namespace stowage::report {
 
@@ -437,6 +438,72 @@ ReportFigure temperature_chart(const DesignResult& design, const DesignTrace& tr
       ": the available capacity (the profile's table, linear between rows) and the "
       "ageing acceleration relative to the reference temperature (floored at 1, "
       "docs/method.md section 3), as daily means with the daily extremes.";
+  f.svg = canvas.str();
+  return f;
+}
+
+ReportFigure tornado_chart(const TornadoResult& tornado, const std::string& currency) {
+  std::vector<const TornadoBar*> bars;
+  for (const TornadoBar& b : tornado.bars) {
+    if (b.low.feasible() && b.high.feasible()) bars.push_back(&b);
+  }
+  const double base = tornado.base.winner().npc;
+  double lo = base, hi = base;
+  for (const TornadoBar* b : bars) {
+    for (const PointOutcome* end : {&b->low, &b->high}) {
+      lo = std::min(lo, end->winner().npc);
+      hi = std::max(hi, end->winner().npc);
+    }
+  }
+  const double row_px = 34;
+  const double rows = std::max(1.0, static_cast<double>(bars.size()));
+  const double plot_h = rows * row_px;
+  Canvas canvas("fig-tornado", 900, plot_h + 120, "Sensitivity of the winner's net present cost",
+                "Tornado chart: for each varied input, the net present cost of the winning design "
+                "at the input's low and high end, against the base case.");
+  Axis x = value_axis("net present cost of the winner (" + currency + ")", lo, hi);
+  x.tick_text = [](double v) { return format_amount(v); };
+  // Rows from the top, largest swing first; each row's tick is its input (an asterisk where
+  // the winner changes at one of its ends).
+  Axis y;
+  y.label = "varied input";
+  y.label_offset = 306;
+  y.lo = 0;
+  y.hi = rows;
+  std::vector<std::string> names;
+  for (std::size_t i = 0; i < bars.size(); ++i) {
+    y.ticks.push_back(rows - static_cast<double>(i) - 0.5);
+    names.push_back((bars[i]->winner_changes ? "* " : "") + bars[i]->variation.label);
+  }
+  y.tick_text = [names, rows](double v) {
+    const auto i = static_cast<std::size_t>(std::lround(rows - 0.5 - v));
+    return i < names.size() ? names[i] : std::string();
+  };
+  Plot plot(canvas, 340, 30, 520, plot_h, x, y);
+  plot.draw_axes();
+  plot.vline(base, "base " + format_amount(base));
+  plot.begin_data("tornado");
+  for (std::size_t i = 0; i < bars.size(); ++i) {
+    const TornadoBar& b = *bars[i];
+    const double top = rows - static_cast<double>(i) - 0.15, bottom = top - 0.7;
+    const double at_low = b.low.winner().npc, at_high = b.high.winner().npc;
+    plot.bar(std::min(base, at_low), std::max(base, at_low), bottom, top, 0,
+             b.variation.label + " at " + variation_value_text(b.variation, b.variation.low) +
+                 ": " + format_amount(at_low) + " " + currency);
+    plot.bar(std::min(base, at_high), std::max(base, at_high), bottom, top, 1,
+             b.variation.label + " at " + variation_value_text(b.variation, b.variation.high) +
+                 ": " + format_amount(at_high) + " " + currency);
+  }
+  plot.end_data();
+  canvas.legend(340, plot_h + 80,
+                {{0, "winner at the input's low end", true, false},
+                 {1, "winner at the input's high end", true, false}});
+  ReportFigure f;
+  f.id = "fig-tornado";
+  f.caption =
+      "Net present cost of the winning design at the low and high end of each varied "
+      "input, every other input at its base value; the line is the base case. An "
+      "asterisk marks an input at one of whose ends another profile wins.";
   f.svg = canvas.str();
   return f;
 }

@@ -12,6 +12,7 @@
 #include "model/chemistry_profile.h"
 #include "model/lifecycle.h"
 #include "optimiser/analysis/design_trace.h"
+#include "optimiser/analysis/sweep.h"
 #include "optimiser/report/report_document.h"
 
 namespace stowage::report {
@@ -51,5 +52,11 @@ ReportFigure cycle_life_chart(const DesignResult& design, const ChemistryProfile
 // Daily site temperature, available capacity factor and ageing acceleration over year 1.
 ReportFigure temperature_chart(const DesignResult& design, const DesignTrace& trace,
                                const ChemistryProfile& profile);
+
+// Tornado of a sensitivity sweep: one row per variation (largest swing at the top), a bar from
+// the base winner's NPC to the winner's NPC at the low end and one to the high end (two
+// hatches), the base NPC as a reference line, and an asterisk where the winner changes.
+// Variations with an end without a winner are left out. Requires tornado.base.feasible().
+ReportFigure tornado_chart(const TornadoResult& tornado, const std::string& currency);
 
 }  // namespace stowage::report

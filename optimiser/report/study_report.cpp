@@ -19,6 +19,7 @@
 #include "optimiser/report/optimise_report.h"
 #include "optimiser/report/report_charts.h"
 #include "optimiser/report/study_hash.h"
+#include "optimiser/report/sweep_report.h"
 #include "stowage_version.h"
 
 namespace stowage::report {
@@ -296,6 +297,60 @@ ReportSection ranking_section(const StudyCase& study, const OptimiseResult& r) {
   b.rows.push_back(total);
   s.table(b);
   s.figure(breakdown_chart(r.ranking, cur));
+  return s;
+}
+
+ReportSection sensitivity_section(const StudyCase& study, const TornadoResult& t) {
+  ReportSection s;
+  s.id = "sensitivity";
+  s.title = "Sensitivity of the recommendation";
+  const std::string& cur = study.economics.currency;
+  s.paragraph(
+      "Each input the study names under variations is set to its low and its high end "
+      "in turn, every other input at its base value, and the study is " +
+      std::string(t.hold_designs ? "evaluated with the base case's designs held fixed"
+                                 : "optimised again") +
+      " (stowage sweep; the numbers are those of tornado.json). Inputs are listed by "
+      "the swing of the winner's net present cost, largest first.");
+  ReportTable tab;
+  tab.caption = "Winner and its net present cost at each end of each input (" + cur + ")";
+  tab.header = {"input", "end", "value", "winner", "NPC (" + cur + ")", "range from"};
+  tab.numeric = {false, false, true, false, true, false};
+  std::vector<std::string> changes;
+  for (const TornadoBar& b : t.bars) {
+    for (const bool high : {false, true}) {
+      const PointOutcome& p = high ? b.high : b.low;
+      const double value = high ? b.variation.high : b.variation.low;
+      const bool differs = p.feasible() && p.winner().profile_id != t.base.winner().profile_id;
+      const std::string winner =
+          p.feasible() ? p.winner().profile_id + (differs ? " *" : "") : "none meets the limits";
+      tab.rows.push_back(
+          {plain(high ? "" : b.variation.label), plain(high ? "high" : "low"),
+           plain(variation_value_text(b.variation, value)), plain(winner),
+           plain(p.feasible() ? format_amount(p.winner().npc) : "-"),
+           plain(high ? "" : (b.variation.source.empty() ? "not stated" : b.variation.source))});
+      if (!p.feasible() || differs) {
+        changes.push_back((p.feasible() ? p.winner().profile_id : std::string("no design")) +
+                          " at " + b.variation.label + " = " +
+                          variation_value_text(b.variation, value));
+      }
+    }
+  }
+  s.table(tab);
+  if (changes.empty()) {
+    s.paragraph(t.base.winner().profile_id + " stays the winner at every end tested.");
+  } else {
+    s.notice("The recommendation of " + t.base.winner().profile_id +
+             " does not survive every end tested (marked *): the winner becomes " +
+             [&] {
+               std::string joined;
+               for (std::size_t i = 0; i < changes.size(); ++i)
+                 joined += (i ? "; " : "") + changes[i];
+               return joined;
+             }() +
+             ". Firm prices or measurements for these inputs should come before the decision.");
+  }
+  s.figure(tornado_chart(t, cur));
   return s;
 }
 
@@ -629,6 +684,8 @@ ReportDocument build_study_report(const ReportInputs& in) {
   doc.generated_line = "Generated " + in.generated_at + " by stowage " + STOWAGE_VERSION_STRING;
   doc.sections.push_back(decision_section(study, r));
   if (r.feasible()) doc.sections.push_back(ranking_section(study, r));
+  if (r.feasible() && in.tornado && in.tornado->base.feasible())
+    doc.sections.push_back(sensitivity_section(study, *in.tornado));
   for (const ReportSection& extra : in.analysis_sections) doc.sections.push_back(extra);
   if (r.feasible()) doc.sections.push_back(recommended_section(study, r, *in.trace));
   doc.sections.push_back(inputs_section(*in.loaded));
@@ -654,6 +711,13 @@ void add_report_files(OutputSet& set, const ReportInputs& in) {
   set.add("designs.csv", [result](std::ostream& out) { write_designs_csv(out, result->ranking); });
   set.add("cash-flows.csv",
           [result](std::ostream& out) { write_cash_flows_csv(out, result->ranking); });
+  if (in.tornado) {
+    const TornadoResult* tornado = in.tornado;
+    set.add("tornado.json",
+            [study, tornado](std::ostream& out) { write_tornado_json(out, *study, *tornado); });
+    set.add("tornado.csv",
+            [study, tornado](std::ostream& out) { write_tornado_csv(out, *study, *tornado); });
+  }
   if (in.trace) {
     const DesignTrace* trace = in.trace;
     set.add("recommended-first-year.csv",

@@ -18,6 +18,7 @@
 
 #include "catalog-schema/study_loader.h"
 #include "optimiser/analysis/design_trace.h"
+#include "optimiser/analysis/sweep.h"
 #include "optimiser/optimise.h"
 #include "optimiser/report/output_set.h"
 #include "optimiser/report/report_document.h"
@@ -31,6 +32,10 @@ struct ReportInputs {
   // First-year trace of result->best(), required when the result is feasible.
   const DesignTrace* trace = nullptr;
   std::string generated_at;  // UTC time stamp, e.g. from report_timestamp()
+  // One-at-a-time sensitivity of the study's variations (optimiser/analysis/sweep.h), or null
+  // when the study names none: a "Sensitivity" section after the ranking (table and tornado
+  // chart) and tornado.json / tornado.csv in the output set (sweep_report.h's writers).
+  const TornadoResult* tornado = nullptr;
   // Extension point for analyses run on the same study (sensitivity, break-even,
   // uncertainty, tender scoring): each section a caller builds from its own result object is
   // placed after the ranking, in the given order, and written by both renderers like every

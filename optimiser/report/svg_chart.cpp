@@ -319,7 +319,8 @@ void Plot::draw_axes(const std::string& panel_title) {
                 "\" stroke=\"#CCCCCC\" stroke-width=\"0.6\"/>\n");
     canvas_.text(left_ - 7, y + 4, tick_text(y_, t), "tick", "end");
   }
-  canvas_.text(left_ - 58, top_ + height_ / 2, y_.label, "axis-label", "middle", -90);
+  canvas_.text(left_ - (y_.label_offset + 24), top_ + height_ / 2, y_.label, "axis-label", "middle",
+               -90);
   canvas_.raw("</g>\n");
   canvas_.raw("<rect x=\"" + num(left_) + "\" y=\"" + num(top_) + "\" width=\"" + num(width_) +
               "\" height=\"" + num(height_) + "\" fill=\"none\" stroke=\"#000000\"/>\n");

@@ -46,8 +46,10 @@ struct Axis {
   // Tick text; empty: format_general(value, 4).
   std::function<std::string(double)> tick_text;
   // x axis only: tick text turned by this many degrees (negative: counter-clockwise) for long
-  // category names, and the distance of the axis label below the plot area in pixels.
+  // category names.
   double tick_rotate = 0;
+  // Distance of the axis label from the plot area in pixels: below it (x axis), or
+  // label_offset + 24 to its left (y axis, leaving room for the tick text).
   double label_offset = 34;
 };
 

@@ -14,7 +14,7 @@ study="$SRC/studies/sandglass-mast/study.yaml"
 expect_exit 0 -- "$STOWAGE" report "$study" --out "$WORK/r1" || { finish; }
 for f in report.html report.md result.json designs.csv cash-flows.csv \
   recommended-first-year.csv fig-breakdown.svg fig-soc.svg fig-rainflow.svg fig-life.svg \
-  fig-cycle-life.svg fig-temperature.svg; do
+  fig-cycle-life.svg fig-temperature.svg tornado.json tornado.csv fig-tornado.svg; do
   [ -s "$WORK/r1/$f" ] || fail "report: $f missing or empty"
 done
 "$PY" "$CHECK" "$WORK/r1" || fail "report_check on the sandglass report"

@@ -97,6 +97,8 @@ if tender:
 elif not infeasible:
     want = {"fig-breakdown", "fig-soc", "fig-rainflow", "fig-life", "fig-cycle-life",
             "fig-temperature"}
+    if os.path.exists(os.path.join(out_dir, "tornado.json")):
+        want.add("fig-tornado")
     check({i for i, _ in inline} == want, f"figures {sorted(i for i, _ in inline)}")
 for fig_id, svg_text in inline:
     check(read(fig_id + ".svg") == svg_text, f"{fig_id}: inline SVG differs from {fig_id}.svg")
@@ -213,8 +215,27 @@ for word in ("hydrogen", "thermal runaway", "DC arcs", "electrolyte", "weight", 
     check(word in notice, f"safety notice lacks {word!r}")
     check(word in md_text, f"Markdown lacks {word!r}")
 
+# ---- sensitivity section against tornado.json -----------------------------------------------
+tornado_path = os.path.join(out_dir, "tornado.json")
+if os.path.exists(tornado_path):
+    tornado = json.load(open(tornado_path))
+    m = re.search(r'<section id="sensitivity".*?</section>', html_text, re.S)
+    check(m is not None, "tornado.json without a sensitivity section")
+    if m:
+        section = m.group(0)
+        for bar in tornado["bars"]:
+            for end in ("low", "high"):
+                point = bar[end]
+                if point["winner"] is None:
+                    continue
+                npc = next(d["npc"] for d in point["designs"] if d["profile"] == point["winner"])
+                text = f"{npc:,.0f}"
+                check(f">{text}<" in section,
+                      f"sensitivity: {bar['variation']['path']} {end}: NPC {text} not in the table")
+
 if errors:
     for e in errors[:40]:
         print("FAIL:", e, file=sys.stderr)
     sys.exit(1)
 print(f"report ok: {len(inline)} figures, {len(tagged)} numbers checked against {json_name}")
+
