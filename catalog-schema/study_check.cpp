@@ -171,6 +171,8 @@ StudyCheck check_study_file(const std::string& path) {
   try {
     std::istringstream again(text);
     result.study = load_study_details(again, path, base_dir);
+  } catch (const InputErrors& e) {
+    result.problems = e.all();
   } catch (const InputError& e) {
     result.problems.push_back(e);
   }

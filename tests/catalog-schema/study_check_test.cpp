@@ -144,3 +144,33 @@ TEST_CASE("check passes each profile warning on once", "[catalog][check]") {
   CHECK(check.problems.empty());
   CHECK(warnings.size() == 1);
 }
+
+TEST_CASE("check reports every design's problem, not only the first", "[catalog][check]") {
+  const TempDir dir;
+  std::string study = stowage::testing::read_text(fixture_path("study.yaml"));
+  study = stowage::testing::replace_once(study, "site: site.yaml",
+                                         "site: " + fixture_path("site.yaml"));
+  study = stowage::testing::replace_once(study, "    - lfp-test.yaml\n",
+                                         "    - " + fixture_path("lfp-test.yaml") + "\n");
+  study = stowage::testing::replace_once(study, "    - lead-test.yaml\n",
+                                         "    - " + fixture_path("lead-test.yaml") + "\n");
+  // Two designs with a swapped-letter id each, one with a setpoint beyond lfp-test's dod.max.
+  study = stowage::testing::replace_once(
+      study, "    - {profile: lfp-test, dod_setpoint: 0.7, strings_parallel: 2}\n",
+      "    - {profile: lfp-tset, dod_setpoint: 0.7, strings_parallel: 2}\n"
+      "    - {profile: lfp-test, dod_setpoint: 0.97}\n");
+  study = stowage::testing::replace_once(study, "    - {profile: lead-test}\n",
+                                         "    - {profile: laed-test}\n");
+  const StudyCheck check = check_study_file(dir.write("study.yaml", study));
+  std::vector<std::string> fields;
+  for (const InputError& e : check.problems) fields.push_back(e.field());
+  CHECK(fields == std::vector<std::string>{"study.designs[0].profile",
+                                           "study.designs[1].dod_setpoint",
+                                           "study.designs[2].profile"});
+  REQUIRE(check.problems.size() == 3);
+  CHECK_THAT(check.problems[0].message(), Catch::Contains("did you mean 'lfp-test'?"));
+  CHECK_THAT(check.problems[2].message(), Catch::Contains("did you mean 'lead-test'?"));
+  // The loader itself still reports the first.
+  CHECK_THROWS_WITH(load_study_details_file(dir.path() + "/study.yaml"),
+                    Catch::Contains("study.designs[0].profile"));
+}
