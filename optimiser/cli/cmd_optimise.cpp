@@ -129,7 +129,7 @@ void register_optimise(CLI::App& app, int& exit_code) {
                                         "'; each needs its own, or use --report alone (the "
                                         "report holds the CSV files too)");
         }
-        report_files.emplace(*args->report_dir);
+        report_files.emplace(*args->report_dir, "--report");
       }
       std::optional<report::OutputFile> model_file;
       if (args->export_model_given) model_file.emplace("--export-model", args->export_model);

@@ -69,8 +69,9 @@ bool exchange(const fs::path& a, const fs::path& b) {
 
 }  // namespace
 
-OutputSet::OutputSet(std::string directory) : directory_(std::move(directory)) {
-  if (directory_.empty()) fail("--out", "needs a directory name, not an empty string");
+OutputSet::OutputSet(std::string directory, const std::string& option)
+    : directory_(std::move(directory)) {
+  if (directory_.empty()) fail(option, "needs a directory name, not an empty string");
   while (directory_.size() > 1 && directory_.back() == '/') directory_.pop_back();
   const fs::path dir(directory_);
   std::error_code ec;

@@ -30,7 +30,8 @@ struct OutputFileError : std::runtime_error {
 
 class OutputSet {
  public:
-  explicit OutputSet(std::string directory);
+  explicit OutputSet(std::string directory,
+                     const std::string& option = "--out");  // option: for messages
   // Adds a file by name (no path separators); `write` fills it.
   void add(std::string name, std::function<void(std::ostream&)> write);
   void commit();

@@ -76,6 +76,7 @@ for cmd in evaluate optimise tender; do
   bad_out "no-parent" "$cmd" "$WORK/missing.yaml" --out "$WORK/no-parent/out"
 done
 bad_out "empty" report "$WORK/missing.yaml" --out ""
+bad_out "--report: needs a directory name" optimise "$WORK/missing.yaml" --report ""
 bad_out "no-parent" report "$WORK/missing.yaml" --out "$WORK/no-parent/out"
 bad_out "empty" optimise "$WORK/missing.yaml" --export-model ""
 bad_out "directory" optimise "$WORK/missing.yaml" --export-model "$WORK/a-dir"
