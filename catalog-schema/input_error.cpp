@@ -109,6 +109,9 @@ InputError::InputError(std::string file, int line, int column, std::string field
       field_(std::move(field)),
       message_(std::move(message)) {}
 
+InputErrors::InputErrors(std::vector<InputError> all)
+    : InputError(all.at(0)), all_(std::move(all)) {}
+
 std::string InputNote::text() const {
   return format_error(file, line, column, field, "note: " + message);
 }

@@ -17,6 +17,7 @@
 #include <stdexcept>
 #include <string>
 #include <string_view>
+#include <vector>
 
 namespace stowage {
 
@@ -51,6 +52,17 @@ class InputError : public std::runtime_error {
   int column_;
   std::string field_;
   std::string message_;
+};
+
+// Several independent errors of one pass (each design of study.designs, say), for a caller
+// that reports them all (check_study_file); a caller that catches InputError sees the first.
+class InputErrors : public InputError {
+ public:
+  explicit InputErrors(std::vector<InputError> all);  // requires !all.empty()
+  const std::vector<InputError>& all() const { return all_; }
+
+ private:
+  std::vector<InputError> all_;
 };
 
 // Something a loader noticed and accepted, for the caller to show (an ignored CSV column): same

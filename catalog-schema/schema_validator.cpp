@@ -103,18 +103,26 @@ std::string join_words(const std::vector<std::string>& words, const std::string&
   return out;
 }
 
+// Optimal string alignment distance (Damerau 1964; Levenshtein with the swap of two adjacent
+// characters counted as one edit, each substring edited once), case ignored: "lpf" is one
+// edit from "lfp", as a typist sees it, where plain Levenshtein counts two.
 std::size_t edit_distance(const std::string& a, const std::string& b) {
-  std::vector<std::size_t> row(b.size() + 1);
+  const auto same = [&](std::size_t i, std::size_t j) {  // 1-based positions
+    return std::tolower(static_cast<unsigned char>(a[i - 1])) ==
+           std::tolower(static_cast<unsigned char>(b[j - 1]));
+  };
+  // Rows i-2, i-1 and i of the (a.size()+1) x (b.size()+1) table.
+  std::vector<std::size_t> before(b.size() + 1), above(b.size() + 1), row(b.size() + 1);
   for (std::size_t j = 0; j <= b.size(); ++j) row[j] = j;
   for (std::size_t i = 1; i <= a.size(); ++i) {
-    std::size_t diagonal = row[0];
+    before.swap(above);
+    above.swap(row);
     row[0] = i;
     for (std::size_t j = 1; j <= b.size(); ++j) {
-      const std::size_t above = row[j];
-      const bool same = std::tolower(static_cast<unsigned char>(a[i - 1])) ==
-                        std::tolower(static_cast<unsigned char>(b[j - 1]));
-      row[j] = std::min({row[j] + 1, row[j - 1] + 1, diagonal + (same ? 0 : 1)});
-      diagonal = above;
+      row[j] = std::min({above[j] + 1, row[j - 1] + 1, above[j - 1] + (same(i, j) ? 0 : 1)});
+      if (i > 1 && j > 1 && same(i, j - 1) && same(i - 1, j)) {
+        row[j] = std::min(row[j], before[j - 2] + 1);
+      }
     }
   }
   return row[b.size()];

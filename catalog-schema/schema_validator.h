@@ -62,7 +62,9 @@ class SchemaValidator {
 };
 
 // The allowed word closest to `word` by edit distance, or "" when none is close enough to be a
-// plausible typo (distance at most 1 + length / 4, case ignored).
+// plausible typo (distance at most 1 + length / 4, case ignored). The distance counts an
+// insertion, a deletion, a substitution or a swap of two adjacent characters as one edit
+// (optimal string alignment, Damerau 1964), so "lpf" suggests "lfp".
 std::string closest_match(const std::string& word, const std::vector<std::string>& allowed);
 
 }  // namespace stowage

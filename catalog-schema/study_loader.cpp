@@ -91,6 +91,42 @@ void read_profiles(const YamlDocument& doc, const std::string& base_dir, LoadedS
   }
 }
 
+// One entry of study.designs; throws InputError for its first problem.
+void read_design(const YamlDocument& doc, const YAML::Node& d, std::size_t i,
+                 const std::vector<std::string>& ids, LoadedStudy& loaded) {
+  const std::string base = join_index("study.designs", i);
+  DesignSpec design;
+  design.profile_id = d["profile"].Scalar();
+  const std::optional<std::size_t> index = loaded.study.find_profile(design.profile_id);
+  if (!index) {
+    std::string message =
+        "no loaded profile has the id '" + printable_input(design.profile_id) + "'";
+    const std::string hint = closest_match(design.profile_id, ids);
+    if (!hint.empty()) message += " (did you mean '" + hint + "'?)";
+    std::string all;
+    for (const std::string& id : ids) all += (all.empty() ? "" : ", ") + id;
+    message += "; the study's profiles are: " + all;
+    throw doc.error_at(d["profile"], base + ".profile", message);
+  }
+  const ChemistryProfile* profile = &loaded.study.profiles[*index];
+  if (d["dod_setpoint"]) {
+    const double setpoint = number(d["dod_setpoint"]);
+    if (setpoint < profile->dod.min || setpoint > profile->dod.max) {
+      throw doc.error_at(d["dod_setpoint"], base + ".dod_setpoint",
+                         "must lie within profile " + profile->id + "'s dod range [" +
+                             number_text(profile->dod.min) + ", " + number_text(profile->dod.max) +
+                             "], found " + number_text(setpoint));
+    }
+    design.dod_setpoint = setpoint;
+  }
+  if (d["strings_parallel"]) {
+    design.strings_parallel =
+        plausible_count(doc, d["strings_parallel"], base + ".strings_parallel", kMaxStringsParallel,
+                        " strings in parallel");
+  }
+  loaded.study.designs.push_back(design);
+}
+
 void read_designs(const YamlDocument& doc, LoadedStudy& loaded) {
   const YAML::Node list = doc.root()["study"]["designs"];
   if (!list) return;
@@ -102,40 +138,16 @@ void read_designs(const YamlDocument& doc, LoadedStudy& loaded) {
   }
   std::vector<std::string> ids;
   for (const ChemistryProfile& p : loaded.study.profiles) ids.push_back(p.id);
+  // Each design is checked on its own: every design's error is collected (InputErrors).
+  std::vector<InputError> errors;
   for (std::size_t i = 0; i < list.size(); ++i) {
-    const YAML::Node d = list[i];
-    const std::string base = join_index("study.designs", i);
-    DesignSpec design;
-    design.profile_id = d["profile"].Scalar();
-    const std::optional<std::size_t> index = loaded.study.find_profile(design.profile_id);
-    if (!index) {
-      std::string message =
-          "no loaded profile has the id '" + printable_input(design.profile_id) + "'";
-      const std::string hint = closest_match(design.profile_id, ids);
-      if (!hint.empty()) message += " (did you mean '" + hint + "'?)";
-      std::string all;
-      for (const std::string& id : ids) all += (all.empty() ? "" : ", ") + id;
-      message += "; the study's profiles are: " + all;
-      throw doc.error_at(d["profile"], base + ".profile", message);
+    try {
+      read_design(doc, list[i], i, ids, loaded);
+    } catch (const InputError& e) {
+      errors.push_back(e);
     }
-    const ChemistryProfile* profile = &loaded.study.profiles[*index];
-    if (d["dod_setpoint"]) {
-      const double setpoint = number(d["dod_setpoint"]);
-      if (setpoint < profile->dod.min || setpoint > profile->dod.max) {
-        throw doc.error_at(d["dod_setpoint"], base + ".dod_setpoint",
-                           "must lie within profile " + profile->id + "'s dod range [" +
-                               number_text(profile->dod.min) + ", " +
-                               number_text(profile->dod.max) + "], found " + number_text(setpoint));
-      }
-      design.dod_setpoint = setpoint;
-    }
-    if (d["strings_parallel"]) {
-      design.strings_parallel =
-          plausible_count(doc, d["strings_parallel"], base + ".strings_parallel",
-                          kMaxStringsParallel, " strings in parallel");
-    }
-    loaded.study.designs.push_back(design);
   }
+  if (!errors.empty()) throw InputErrors(std::move(errors));
 }
 
 void read_search(const YamlDocument& doc, LoadedStudy& loaded) {

@@ -9,7 +9,8 @@
 //   - every profile's costs.currency equals study.economics.currency (error at the profile's
 //     costs.currency, naming the study's value and position);
 //   - a design names a loaded profile id (with a suggestion for a near miss) and its
-//     dod_setpoint lies within that profile's [dod.min, dod.max];
+//     dod_setpoint lies within that profile's [dod.min, dod.max]; every design is checked and
+//     their errors come together as one InputErrors (what() is the first's);
 //   - search.dod_ladder has from <= to; search.max_mass_kg / max_volume_l need cell.mass_kg /
 //     cell.volume_l in every profile.
 //   - at most kMaxProfiles profiles and kMaxDesigns designs; strings_parallel and

@@ -2,6 +2,7 @@
 #include "optimiser/cli/cli_support.h"
 
 #include <iostream>
+#include <sstream>
 
 #include "catalog-schema/input_error.h"
 #include "catalog-schema/study_loader.h"
@@ -42,6 +43,32 @@ void add_format_option(CLI::App& command, OutputFormat& format) {
           "Output format: text (default) or json")
       ->check(CLI::IsMember({"text", "json"}))
       ->type_name("FORMAT");
+}
+
+std::string exit_code_help() {
+  constexpr std::size_t kWidth = 78;
+  const std::string indent = "     ";
+  std::string text = "Exit codes:\n";
+  for (const ExitCodeMeaning& row : kExitCodeTable) {
+    std::string line = "  " + std::to_string(static_cast<int>(row.code)) + "  ";
+    std::istringstream words(row.meaning);
+    bool first = true;
+    for (std::string word; words >> word; first = false) {
+      if (!first && line.size() + 1 + word.size() > kWidth) {
+        text += line + "\n";
+        line = indent + word;
+      } else {
+        line += (first ? "" : " ") + word;
+      }
+    }
+    text += line + "\n";
+  }
+  return text;
+}
+
+int optimise_exit_code(const OptimiseResult& result) {
+  if (result.feasible()) return kExitOk;
+  return result.time_limit_reached ? kExitTimeLimitNoDesign : kExitInfeasible;
 }
 
 StudyCase load_study_for_cli(const std::string& path) { return load_study_file(path); }

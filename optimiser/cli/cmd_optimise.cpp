@@ -6,6 +6,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <filesystem>
 #include <iostream>
 #include <memory>
 #include <optional>
@@ -32,6 +33,7 @@ struct OptimiseArgs {
   std::string method = "milp";
   std::optional<double> time_limit_s;
   std::string export_model;
+  bool export_model_given = false;
   int days_per_month = 1;
   bool skip_proof = false;
   int threads = 0;
@@ -58,6 +60,17 @@ class ProgressLine {
   bool shown_ = false;
 };
 
+// Whether two --out style paths name one directory (as written, or once both exist).
+bool same_directory(const std::string& a, const std::string& b) {
+  namespace fs = std::filesystem;
+  auto canonical = [](const std::string& path) {
+    std::error_code ec;
+    fs::path p = fs::weakly_canonical(fs::absolute(path, ec), ec).lexically_normal();
+    return p.has_filename() ? p : p.parent_path();  // "dir/" names dir
+  };
+  return canonical(a) == canonical(b);
+}
+
 }  // namespace
 
 void register_optimise(CLI::App& app, int& exit_code) {
@@ -65,6 +78,7 @@ void register_optimise(CLI::App& app, int& exit_code) {
   auto* cmd = app.add_subcommand(
       "optimise",
       "Choose the profile, DoD setpoint and strings in parallel with the lowest lifecycle cost");
+  cmd->alias("optimize");
   cmd->add_option("study", args->study_path, "Study file (YAML)")->required();
   cmd->add_option("--method", args->method,
                   "milp (default: model-guided search, then a proof by the cost bound), "
@@ -75,9 +89,14 @@ void register_optimise(CLI::App& app, int& exit_code) {
                   "Stop after this many seconds and report the best design found so far "
                   "(marked not proven optimal)")
       ->check(CLI::PositiveNumber);
-  cmd->add_option("--export-model", args->export_model,
-                  "Write the mixed-integer model of the whole design space (free MPS, or CPLEX "
-                  "LP when FILE ends in .lp)")
+  cmd->add_option_function<std::string>(
+         "--export-model",
+         [args](const std::string& path) {
+           args->export_model = path;
+           args->export_model_given = true;
+         },
+         "Write the mixed-integer model of the whole design space (free MPS, or CPLEX "
+         "LP when FILE ends in .lp)")
       ->type_name("FILE");
   cmd->add_option("--days-per-month", args->days_per_month,
                   "Representative consecutive days per month in the model (default 1)")
@@ -99,21 +118,33 @@ void register_optimise(CLI::App& app, int& exit_code) {
       ->type_name("DIR");
   cmd->callback([args, &exit_code]() {
     exit_code = run_guarded([&]() {
+      // Every output path is refused now, before any work, if it cannot be written.
       std::optional<report::OutputSet> files;
-      if (args->out_dir) files.emplace(*args->out_dir);  // refuses a bad DIR now
+      if (args->out_dir) files.emplace(*args->out_dir);
       std::optional<report::OutputSet> report_files;
-      if (args->report_dir) report_files.emplace(*args->report_dir);
+      if (args->report_dir) {
+        if (args->out_dir && same_directory(*args->out_dir, *args->report_dir)) {
+          throw report::OutputFileError("--out and --report name the same directory '" +
+                                        *args->report_dir +
+                                        "'; each needs its own, or use --report alone (the "
+                                        "report holds the CSV files too)");
+        }
+        report_files.emplace(*args->report_dir, "--report");
+      }
+      std::optional<report::OutputFile> model_file;
+      if (args->export_model_given) model_file.emplace("--export-model", args->export_model);
       const LoadedStudy loaded = load_study_details_file(args->study_path);
       const StudyCase& study = loaded.study;
-      if (!args->export_model.empty()) {
+      if (model_file) {
         if (build_design_space(study).admissible_choices() == 0) {
           report::write_no_model_exported(std::cerr, args->export_model);
         } else {
           try {
-            export_design_space_model(study, args->export_model, args->days_per_month);
+            export_design_space_model(study, model_file->staging_path(), args->days_per_month);
           } catch (const std::runtime_error& e) {
             throw report::OutputFileError(e.what());
           }
+          model_file->commit();
         }
       }
       OptimiseOptions options;
@@ -139,7 +170,7 @@ void register_optimise(CLI::App& app, int& exit_code) {
       } else {
         report::write_optimise_text(std::cout, study, result);
       }
-      return static_cast<int>(result.feasible() ? kExitOk : kExitInfeasible);
+      return optimise_exit_code(result);
     });
   });
 }

@@ -34,7 +34,7 @@ int write_study_report(report::OutputSet& files, const LoadedStudy& loaded,
   inputs.generated_at = report::report_timestamp();
   report::add_report_files(files, inputs);
   files.commit();
-  return result.feasible() ? kExitOk : kExitInfeasible;
+  return optimise_exit_code(result);
 }
 
 namespace {

@@ -13,7 +13,8 @@ int main(int argc, char** argv) {
       "stowage " STOWAGE_VERSION_STRING
       ": simulate, age and price battery banks at a site over the project life,\n"
       "and find the chemistry, DoD setpoint and bank size with the lowest lifecycle cost."};
-  app.set_version_flag("--version", "stowage " STOWAGE_VERSION_STRING);
+  app.set_version_flag("-V,--version", "stowage " STOWAGE_VERSION_STRING);
+  app.footer(stowage::cli::exit_code_help());
   app.require_subcommand(1);
   int exit_code = stowage::cli::kExitOk;
   stowage::cli::register_check(app, exit_code);
@@ -29,9 +30,14 @@ int main(int argc, char** argv) {
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {
-    // Usage mistakes are bad input (exit 2); --help and --version are success.
-    const int code = app.exit(e);
-    return code == 0 ? stowage::cli::kExitOk : stowage::cli::kExitBadInput;
+    // --help and --version are success; usage mistakes are bad input (exit 2), worded as
+    // every other failure is.
+    if (e.get_exit_code() == static_cast<int>(CLI::ExitCodes::Success)) {
+      app.exit(e);
+      return stowage::cli::kExitOk;
+    }
+    stowage::report::write_failure(std::cerr, stowage::report::Failure::Usage, e.what());
+    return stowage::cli::kExitBadInput;
   } catch (const std::exception& e) {
     stowage::report::write_failure(std::cerr, stowage::report::Failure::Internal, e.what());
     return stowage::cli::kExitInternalError;

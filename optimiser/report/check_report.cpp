@@ -5,6 +5,8 @@
 #include <fmt/ostream.h>
 
 #include "model/sizing.h"
+#include "optimiser/report/json_writer.h"
+#include "optimiser/report/messages.h"
 #include "optimiser/report/number_format.h"
 
 namespace stowage::report {
@@ -38,6 +40,91 @@ void write_check_text(std::ostream& out, const std::string& study_path, const St
              study.designs.empty()
                  ? std::string("none listed: each profile at its default DoD, sized for autonomy")
                  : std::to_string(study.designs.size()));
+}
+
+void write_check_problems_text(std::ostream& err, const std::string& study_path,
+                               const std::vector<InputError>& problems) {
+  for (const InputError& e : problems) write_failure(err, Failure::BadInput, e.what());
+  fmt::print(err, "stowage: {} problem{} found in {}\n", problems.size(),
+             problems.size() == 1 ? "" : "s", escape_controls(study_path));
+}
+
+void write_check_notes_text(std::ostream& err, const std::vector<InputNote>& notes) {
+  for (const InputNote& note : notes) fmt::print(err, "stowage: {}\n", note.text());
+}
+
+namespace {
+
+void write_located(JsonWriter& json, const std::string& file, int line, int column,
+                   const std::string& field, const std::string& message) {
+  json.begin_object()
+      .field("file", escape_controls(file))
+      .field("line", line)
+      .field("column", column)
+      .field("field", escape_controls(field))
+      .field("message", escape_controls(message))
+      .end_object();
+}
+
+void write_summary_json(JsonWriter& json, const Study& study) {
+  const SiteConditions& site = study.site;
+  json.begin_object().field("title", escape_controls(study.title));
+  json.key("site")
+      .begin_object()
+      .field("name", escape_controls(site.name))
+      .field("bus_voltage_v", site.bus_voltage_v)
+      .field("annual_demand_kwh", site.annual_demand_kwh())
+      .field("autonomy_days", site.autonomy_days)
+      .end_object();
+  json.key("economics")
+      .begin_object()
+      .field("project_years", study.economics.project_years)
+      .field("real_discount_rate", study.economics.real_discount_rate)
+      .field("currency", escape_controls(study.economics.currency))
+      .end_object();
+  json.key("profiles").begin_array();
+  for (const auto& p : study.profiles) {
+    const auto sizing = size_for_autonomy(p, site, p.dod.default_setpoint);
+    json.begin_object()
+        .field("id", escape_controls(p.id))
+        .field("family", escape_controls(p.family))
+        .field("round_trip_efficiency", p.round_trip_efficiency())
+        .field("dod_min", p.dod.min)
+        .field("dod_default", p.dod.default_setpoint)
+        .field("dod_max", p.dod.max)
+        .field("strings_for_autonomy", sizing.strings_parallel)
+        .end_object();
+  }
+  json.end_array();
+  json.field("designs_listed", static_cast<int>(study.designs.size())).end_object();
+}
+
+}  // namespace
+
+void write_check_json(std::ostream& out, const std::string& study_path, const Study* study,
+                      const std::vector<InputError>& problems,
+                      const std::vector<InputNote>& notes) {
+  JsonWriter json;
+  json.begin_object()
+      .field("study", escape_controls(study_path))
+      .field("valid", problems.empty() && study != nullptr);
+  json.key("problems").begin_array();
+  for (const InputError& e : problems) {
+    write_located(json, e.file(), e.line(), e.column(), e.field(), e.message());
+  }
+  json.end_array();
+  json.key("notes").begin_array();
+  for (const InputNote& n : notes)
+    write_located(json, n.file, n.line, n.column, n.field, n.message);
+  json.end_array();
+  json.key("summary");
+  if (problems.empty() && study != nullptr) {
+    write_summary_json(json, *study);
+  } else {
+    json.null();
+  }
+  json.end_object();
+  out << json.str() << "\n";
 }
 
 }  // namespace stowage::report

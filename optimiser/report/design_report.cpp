@@ -4,6 +4,8 @@
 #include <fmt/format.h>
 #include <fmt/ostream.h>
 
+#include <algorithm>
+#include <cmath>
 #include <sstream>
 
 #include "optimiser/report/cost_lines.h"
@@ -162,37 +164,59 @@ void print_design_table(std::ostream& out, const DesignResult& d, const Requirem
              d.lcos_schmidt_per_kwh, d.currency);
 }
 
+namespace {
+
+// "[6,12]": a list as JSON writes it, quoted for CSV (it holds commas); "[]" when empty.
+std::string csv_year_list(const std::vector<int>& years) {
+  if (years.empty()) return "[]";
+  return "\"[" + years_text(years, ",") + "]\"";
+}
+
+const char* csv_bool(bool flag) { return flag ? "true" : "false"; }
+
+}  // namespace
+
 void write_designs_csv(std::ostream& out, const std::vector<DesignResult>& designs,
                        const std::vector<RequirementCheck>* checks) {
-  out << "profile,dod_setpoint,cells_series,strings_parallel,nameplate_kwh,lcos_per_kwh,"
-         "lcos_schmidt_per_kwh,npc,currency,replacement_years,discharged_kwh_per_year,discharged_"
-         "kwh_first_year,"
+  out << "rank,profile,dod_setpoint,cells_series,strings_parallel,nameplate_kwh,lcos_per_kwh,"
+         "lcos_schmidt_per_kwh,npc,npc_difference_to_best,currency,investment,replacement_years,"
+         "discharged_kwh_per_year,discharged_kwh_first_year,delivered_kwh_first_year,"
          "unserved_kwh_first_year,backup_kwh_first_year,equivalent_full_cycles_first_year,"
-         "meets_unserved_limit";
+         "unserved_fraction_max,meets_unserved_limit";
   for (const CostLine& item : cost_lines()) out << ",pv_" << item.key;
   out << ",delivers_energy,charge_blocked_by_temperature_hours_first_year,"
          "discharge_blocked_by_temperature_hours_first_year,meets_autonomy,meets_peak_discharge";
   out << "\n";
-  const auto flag = [](bool b) { return b ? "true" : "false"; };
+  // Rank: the place by NPC among these rows (ties keep their order), as the text ranking.
+  std::vector<std::size_t> order(designs.size());
+  for (std::size_t i = 0; i < order.size(); ++i) order[i] = i;
+  std::stable_sort(order.begin(), order.end(),
+                   [&](std::size_t a, std::size_t b) { return designs[a].npc < designs[b].npc; });
+  std::vector<int> rank(designs.size());
+  for (std::size_t k = 0; k < order.size(); ++k) rank[order[k]] = static_cast<int>(k + 1);
+  const double best_npc = order.empty() ? 0.0 : designs[order.front()].npc;
   for (std::size_t i = 0; i < designs.size(); ++i) {
     const DesignResult& d = designs[i];
-    out << d.profile_id << ',' << csv_number(d.dod_setpoint) << ',' << d.bank.cells_series << ','
-        << d.bank.strings_parallel << ',' << csv_number(d.bank.nameplate_kwh) << ','
-        << csv_number(d.lcos_per_kwh) << ',' << csv_number(d.lcos_schmidt_per_kwh) << ','
-        << csv_number(d.npc) << ',' << d.currency << ',' << years_text(d.replacement_years, ";")
-        << ',' << csv_number(d.mean_discharged_kwh_per_year()) << ','
+    out << rank[i] << ',' << d.profile_id << ',' << csv_number(d.dod_setpoint) << ','
+        << d.bank.cells_series << ',' << d.bank.strings_parallel << ','
+        << csv_number(d.bank.nameplate_kwh) << ',' << csv_number(d.lcos_per_kwh) << ','
+        << csv_number(d.lcos_schmidt_per_kwh) << ',' << csv_number(d.npc) << ','
+        << csv_number(d.npc - best_npc) << ',' << d.currency << ',' << csv_number(d.investment)
+        << ',' << csv_year_list(d.replacement_years) << ','
+        << csv_number(d.mean_discharged_kwh_per_year()) << ','
         << csv_number(d.discharged_kwh_first_year()) << ','
+        << csv_number(d.years.front().dispatch.delivered_kwh) << ','
         << csv_number(d.unserved_kwh_first_year()) << ',' << csv_number(d.backup_kwh_first_year())
         << ',' << csv_number(d.equivalent_full_cycles_first_year()) << ','
-        << (d.meets_unserved_limit ? "true" : "false");
+        << csv_number(d.unserved_fraction_max) << ',' << csv_bool(d.meets_unserved_limit);
     for (const CostLine& item : cost_lines())
       out << ',' << csv_number(d.present_value.*item.member);
     const YearDispatch& first = d.years.front().dispatch;
-    out << ',' << flag(d.delivers_energy()) << ','
+    out << ',' << csv_bool(d.delivers_energy()) << ','
         << csv_number(first.charge_blocked_by_temperature_hours) << ','
         << csv_number(first.discharge_blocked_by_temperature_hours) << ',';
     if (checks)
-      out << flag((*checks)[i].meets_autonomy) << ',' << flag((*checks)[i].meets_peak);
+      out << csv_bool((*checks)[i].meets_autonomy) << ',' << csv_bool((*checks)[i].meets_peak);
     else
       out << ',';
     out << "\n";
@@ -200,26 +224,25 @@ void write_designs_csv(std::ostream& out, const std::vector<DesignResult>& desig
 }
 
 void write_cash_flows_csv(std::ostream& out, const std::vector<DesignResult>& designs) {
-  out << "profile,dod_setpoint,strings_parallel,year,health_start,damage_cycle,damage_calendar,"
-         "damage_partial_charge,damage_end,replaced_at_end,discharged_kwh,charge_source_kwh,"
-         "backup_kwh,unserved_kwh,curtailed_kwh,investment,replacement,fixed_om,variable_om,"
-         "charging,backup,unserved_penalty,end_of_life,residual_value,total,discount_factor,"
-         "present_value,auxiliary_kwh,auxiliary_source_kwh,auxiliary_bank_kwh,"
-         "auxiliary_unmet_kwh\n";
+  out << "profile,dod_setpoint,strings_parallel,year,row,discount_time_years,health_start,"
+         "damage_cycle,damage_calendar,damage_partial_charge,damage_end,replaced_at_end,"
+         "discharged_kwh,charge_source_kwh,backup_kwh,unserved_kwh,curtailed_kwh,investment,"
+         "replacement,fixed_om,variable_om,charging,backup,unserved_penalty,end_of_life,"
+         "residual_value,total,discount_factor,present_value,auxiliary_kwh,auxiliary_source_kwh,"
+         "auxiliary_bank_kwh,auxiliary_unmet_kwh\n";
   for (const auto& d : designs) {
     const std::string id = d.profile_id + ',' + csv_number(d.dod_setpoint) + ',' +
                            std::to_string(d.bank.strings_parallel);
     // Year 0: the investment.
-    out << id << ",0,,,,,,,,,,,," << csv_number(d.investment) << ",,,,,,,,,"
+    out << id << ",0,investment,0,,,,,,,,,,,," << csv_number(d.investment) << ",,,,,,,,,"
         << csv_number(d.investment) << ",1," << csv_number(d.investment) << ",,,,\n";
     for (const auto& y : d.years) {
-      out << id << ',' << y.year << ',' << csv_number(y.health_start) << ','
-          << csv_number(y.damage_cycle) << ',' << csv_number(y.damage_calendar) << ','
+      out << id << ',' << y.year << ",operation," << y.year << ',' << csv_number(y.health_start)
+          << ',' << csv_number(y.damage_cycle) << ',' << csv_number(y.damage_calendar) << ','
           << csv_number(y.damage_partial_charge) << ',' << csv_number(y.damage_end) << ','
-          << (y.replaced_at_end ? "true" : "false") << ','
-          << csv_number(y.dispatch.discharged_terminal_kwh) << ','
-          << csv_number(y.dispatch.charge_source_kwh) << ',' << csv_number(y.dispatch.backup_kwh)
-          << ',' << csv_number(y.dispatch.unserved_kwh) << ','
+          << csv_bool(y.replaced_at_end) << ',' << csv_number(y.dispatch.discharged_terminal_kwh)
+          << ',' << csv_number(y.dispatch.charge_source_kwh) << ','
+          << csv_number(y.dispatch.backup_kwh) << ',' << csv_number(y.dispatch.unserved_kwh) << ','
           << csv_number(y.dispatch.curtailed_kwh) << ",0," << csv_number(y.replacement) << ','
           << csv_number(y.fixed_om) << ',' << csv_number(y.variable_om) << ','
           << csv_number(y.charging) << ',' << csv_number(y.backup) << ','
@@ -231,10 +254,12 @@ void write_cash_flows_csv(std::ostream& out, const std::vector<DesignResult>& de
           << csv_number(y.dispatch.auxiliary_bank_kwh) << ','
           << csv_number(y.dispatch.auxiliary_unmet_kwh) << "\n";
     }
-    // Year N + 1, or later when that bank has life left: its end of life.
-    const std::string last = csv_number(d.final_end_of_life_year);
+    // The last bank's end of life, discounted at N + 1 or later when that bank has life left
+    // (docs/method.md): `year` is the whole year it falls in, the exact time has its column.
+    const double t_final = d.final_end_of_life_year;
     const double df_last = d.final_discount_factor;
-    out << id << ',' << last << ",,,,,,,,,,,,0,0,0,0,0,0,0," << csv_number(d.final_end_of_life)
+    out << id << ',' << static_cast<long>(std::ceil(t_final - 1e-9)) << ",end_of_life,"
+        << csv_number(t_final) << ",,,,,,,,,,,,0,0,0,0,0,0,0," << csv_number(d.final_end_of_life)
         << ",0," << csv_number(d.final_end_of_life) << ',' << csv_number(df_last) << ','
         << csv_number(d.final_end_of_life * df_last) << ",,,,\n";
   }

@@ -13,9 +13,12 @@ enum class Failure {
   InvalidValue,  // a validated value is out of its range: the message names its path
   Output,        // an output file or directory cannot be written: the message says why
   Internal,      // a broken internal contract or an unexpected failure: a bug to report
+  Usage,         // the command line itself is wrong (unknown option, missing argument)
 };
 
-// "stowage: <what>", with "invalid value: " or "internal error: " for those kinds.
+// "stowage: <what>", with "invalid value: " or "internal error: " for those kinds; a Usage
+// failure adds a line pointing at --help. Every line written starts "stowage: ", and control
+// characters in `what` (it may quote a command-line argument) are escaped, never echoed raw.
 void write_failure(std::ostream& err, Failure kind, std::string_view what);
 
 }  // namespace stowage::report

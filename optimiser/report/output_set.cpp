@@ -69,8 +69,9 @@ bool exchange(const fs::path& a, const fs::path& b) {
 
 }  // namespace
 
-OutputSet::OutputSet(std::string directory) : directory_(std::move(directory)) {
-  if (directory_.empty()) fail("--out", "needs a directory name, not an empty string");
+OutputSet::OutputSet(std::string directory, const std::string& option)
+    : directory_(std::move(directory)) {
+  if (directory_.empty()) fail(option, "needs a directory name, not an empty string");
   while (directory_.size() > 1 && directory_.back() == '/') directory_.pop_back();
   const fs::path dir(directory_);
   std::error_code ec;
@@ -157,6 +158,34 @@ void OutputSet::commit() {
     return;
   }
   fs::remove_all(staging, ec);  // now holds the previous set
+}
+
+OutputFile::OutputFile(std::string option, std::string path) : path_(std::move(path)) {
+  if (path_.empty()) fail(option, "needs a file name, not an empty string");
+  const fs::path file(path_);
+  std::error_code ec;
+  if (fs::is_directory(fs::status(file, ec)) || path_.back() == '/') {
+    fail("cannot write '" + path_ + "'", "it is a directory; " + option + " needs a file name");
+  }
+  const fs::path parent = file.parent_path().empty() ? fs::path(".") : file.parent_path();
+  if (::access(parent.c_str(), W_OK | X_OK) != 0) {
+    fail("cannot write into '" + parent.string() + "'", reason(errno));
+  }
+  staging_ = (parent / (".staging-" + std::to_string(::getpid()) + "-" + file.filename().string()))
+                 .string();
+}
+
+OutputFile::~OutputFile() {
+  if (!committed_) ::unlink(staging_.c_str());
+}
+
+void OutputFile::commit() {
+  if (::rename(staging_.c_str(), path_.c_str()) != 0) {
+    const int err = errno;
+    ::unlink(staging_.c_str());
+    fail("cannot write '" + path_ + "'", reason(err));
+  }
+  committed_ = true;
 }
 
 }  // namespace stowage::report

@@ -30,7 +30,8 @@ struct OutputFileError : std::runtime_error {
 
 class OutputSet {
  public:
-  explicit OutputSet(std::string directory);
+  explicit OutputSet(std::string directory,
+                     const std::string& option = "--out");  // option: for messages
   // Adds a file by name (no path separators); `write` fills it.
   void add(std::string name, std::function<void(std::ostream&)> write);
   void commit();
@@ -40,6 +41,31 @@ class OutputSet {
  private:
   std::string directory_;
   std::vector<std::pair<std::string, std::function<void(std::ostream&)>>> files_;
+};
+
+// OutputFile: one file at a path the user named (optimise --export-model FILE), whole or absent.
+//
+// Contract
+//   - The constructor checks the path at once, before any work: "" is refused, and so are a
+//     path that is a directory and a parent directory that is missing or not writable.
+//   - The writer fills staging_path() (beside the file, ending in the same name so its
+//     extension still says the format); commit() renames it over the path in one atomic step.
+//     Without commit() (a failure or an exception on the way) the staging file is removed.
+//   - Failures throw OutputFileError naming the path and the reason.
+class OutputFile {
+ public:
+  OutputFile(std::string option, std::string path);
+  ~OutputFile();
+  OutputFile(const OutputFile&) = delete;
+  OutputFile& operator=(const OutputFile&) = delete;
+
+  const std::string& staging_path() const { return staging_; }
+  void commit();
+
+ private:
+  std::string path_;
+  std::string staging_;
+  bool committed_ = false;
 };
 
 }  // namespace stowage::report

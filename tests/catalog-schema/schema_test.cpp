@@ -204,6 +204,16 @@ TEST_CASE("near misses are suggested, far ones are not", "[catalog][schema]") {
   CHECK(closest_match("colour", {"nominal_v", "capacity_ah"}).empty());
 }
 
+TEST_CASE("a swap of two adjacent letters is one edit, so 'lpf' suggests 'lfp'",
+          "[catalog][schema]") {
+  // Optimal string alignment distance (Damerau 1964): "lpf" -> "lfp" is the one swap p<->f;
+  // plain Levenshtein counts two substitutions, above the limit 1 + 3 / 4 = 1 for three letters.
+  CHECK(closest_match("lpf", {"vrla-agm", "lfp", "nicd"}) == "lfp");
+  CHECK(closest_match("LPF", {"lfp"}) == "lfp");
+  // One swap (pa -> ap) and one missing letter (h): distance 2, within 1 + 10 / 4 = 3.
+  CHECK(closest_match("cpaacity_a", {"capacity_ah"}) == "capacity_ah");
+}
+
 TEST_CASE("YAML scalars are classified by the core schema", "[catalog][schema]") {
   const YamlDocument doc =
       parse("a: 3\nb: -2.5e3\nc: '3'\nd: .nan\ne: true\nf: ~\ng: 0x1F\nh: 1e999\n");

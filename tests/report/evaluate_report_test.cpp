@@ -20,10 +20,14 @@ bool contains(const std::string& text, const std::string& part) {
   return text.find(part) != std::string::npos;
 }
 
+// CSV cells of one line (RFC 4180: a quoted field may hold commas, such as a list "[7,14]").
 std::vector<std::string> split(const std::string& line) {
   std::vector<std::string> cells(1);
+  bool quoted = false;
   for (char c : line) {
-    if (c == ',')
+    if (c == '"')
+      quoted = !quoted;
+    else if (c == ',' && !quoted)
       cells.emplace_back();
     else
       cells.back().push_back(c);

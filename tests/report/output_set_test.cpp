@@ -119,3 +119,52 @@ TEST_CASE("an unwritable parent is reported with the system's reason", "[report]
     CHECK_THAT(e.what(), !Catch::Contains("Success"));
   }
 }
+
+TEST_CASE("an output file appears whole at commit and not at all without it", "[report][output]") {
+  using stowage::report::OutputFile;
+  const fs::path root = fresh_dir("file");
+  const fs::path target = root / "model.mps";
+  {
+    OutputFile file("--export-model", target.string());
+    std::ofstream(file.staging_path()) << "half a model";
+    // A failure on the way: the staging file goes, nothing appears at the path.
+  }
+  CHECK_FALSE(fs::exists(target));
+  CHECK(fs::is_empty(root));
+  {
+    OutputFile file("--export-model", target.string());
+    // The staging file keeps the extension, which says the format (.mps or .lp).
+    CHECK(fs::path(file.staging_path()).extension() == ".mps");
+    CHECK(fs::path(file.staging_path()).parent_path() == root);
+    std::ofstream(file.staging_path()) << "NAME x\nENDATA\n";
+    file.commit();
+  }
+  CHECK(slurp(target) == "NAME x\nENDATA\n");
+  int entries = 0;
+  for (const auto& e : fs::directory_iterator(root)) {
+    (void)e;
+    ++entries;
+  }
+  CHECK(entries == 1);
+  fs::remove_all(root);
+}
+
+TEST_CASE("an output file refuses an empty name, a directory and a missing parent at once",
+          "[report][output]") {
+  using stowage::report::OutputFile;
+  const fs::path root = fresh_dir("file-bad");
+  auto message = [](const std::string& path) -> std::string {
+    try {
+      OutputFile file("--export-model", path);
+    } catch (const OutputFileError& e) {
+      return e.what();
+    }
+    return "";
+  };
+  CHECK_THAT(message(""), Catch::Contains("--export-model") && Catch::Contains("empty"));
+  CHECK_THAT(message(root.string()), Catch::Contains("directory"));
+  CHECK_THAT(message((root / "sub").string() + "/"), Catch::Contains("directory"));
+  CHECK_THAT(message((root / "no-such" / "m.mps").string()),
+             Catch::Contains("no-such") && !Catch::Contains("Success"));
+  fs::remove_all(root);
+}
