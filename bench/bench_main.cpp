@@ -150,6 +150,7 @@ int main(int argc, char** argv) {
   // bench's: counted once, not printed for every load.
   static int warnings = 0;
   stowage::set_warning_sink([](const std::string&) { ++warnings; });
+  std::setvbuf(stdout, nullptr, _IOLBF, 0);  // every figure out as it comes, even to a file
   std::printf("stowage bench\n");
   // A third argument keeps only the model designs whose "study-path profile-id" contains it.
   if (part == "all" || part == "model") run_model_benchmarks(argc > 2 ? argv[2] : "");

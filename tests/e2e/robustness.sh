@@ -129,17 +129,13 @@ mkdir -p "$WORK/mine" && echo keep >"$WORK/mine/notes.txt"
 expect_exit 2 -- "$STOWAGE" sweep --out "$WORK/mine" "$fixture" || fail "foreign --out directory"
 [ "$(cat "$WORK/mine/notes.txt")" = keep ] || fail "user file touched"
 
-# 7. Shards: 4 slices run apart (under GNU parallel when it is installed, else as background
-#    jobs) and merged give the unsharded JSON and samples byte for byte, in any part order.
+# 7. Shards: 4 slices run apart under GNU parallel (Debian package parallel, installed by
+#    .ci/setup) and merged give the unsharded JSON and samples byte for byte, in any part order.
 expect_exit 0 -- "$STOWAGE" uncertainty --samples 30 --seed 5 --format json --out "$WORK/whole" "$fixture" && cp "$WORK/out" "$WORK/whole.json" || fail "unsharded run"
 shard() { "$STOWAGE" uncertainty --samples 30 --seed 5 --threads 1 --shard "$1/4" "$fixture" >"$WORK/part$1.txt"; }
-if command -v parallel >/dev/null; then
-  export -f shard && export STOWAGE fixture WORK
-  parallel -j 2 shard ::: 1 2 3 4 || fail "shards under GNU parallel"
-else
-  for i in 1 2 3 4; do shard "$i" & done
-  wait
-fi
+command -v parallel >/dev/null || fail "GNU parallel is not installed (run .ci/setup)"
+export -f shard && export STOWAGE fixture WORK
+parallel --will-cite -j 2 shard ::: 1 2 3 4 || fail "shards under GNU parallel"
 expect_exit 0 -- "$STOWAGE" merge --format json --out "$WORK/merged" "$WORK/part3.txt" "$WORK/part1.txt" "$WORK/part4.txt" "$WORK/part2.txt" || fail "merge"
 cmp -s "$WORK/out" "$WORK/whole.json" || fail "merged JSON differs from the unsharded run"
 cmp -s "$WORK/merged/samples.csv" "$WORK/whole/samples.csv" || fail "merged samples.csv differs"
