@@ -1,9 +1,29 @@
 // SPDX-License-Identifier: MIT
 #include "optimiser/report/report_document.h"
 
+#include <string>
 #include <utility>
+#include <vector>
+
+#include "optimiser/report/number_format.h"
 
 namespace stowage::report {
+
+ReportCell plain(std::string text) { return {std::move(text), "", ""}; }
+ReportCell tagged(std::string text, std::string key, double value) {
+  return {std::move(text), std::move(key), format_machine(value, 12)};
+}
+ReportCell tagged_text(std::string text, std::string key) {
+  std::string machine = text;
+  return {std::move(text), std::move(key), std::move(machine)};
+}
+
+std::string years_list(const std::vector<int>& years) {
+  if (years.empty()) return "none";
+  std::string out;
+  for (int y : years) out += (out.empty() ? "" : ", ") + std::to_string(y);
+  return out;
+}
 
 ReportSection& ReportSection::paragraph(std::string text) {
   ReportBlock b;

@@ -19,6 +19,14 @@ struct ReportCell {
   std::string machine;  // the value in machine form when `key` is set
 };
 
+// Cell factories shared by the report builders: text only; a number also in the report's JSON
+// at `key` (its machine form with 12 significant digits); a text also in the JSON at `key`.
+ReportCell plain(std::string text);
+ReportCell tagged(std::string text, std::string key, double value);
+ReportCell tagged_text(std::string text, std::string key);
+// "4, 8, 12", or "none" for an empty list: project years as a report sentence gives them.
+std::string years_list(const std::vector<int>& years);
+
 struct ReportTable {
   std::string caption;
   std::vector<std::string> header;

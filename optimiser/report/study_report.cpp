@@ -28,23 +28,6 @@ namespace {
 
 // ---- cells --------------------------------------------------------------------------------
 
-ReportCell plain(std::string text) { return {std::move(text), "", ""}; }
-// A number also in result.json at `key`, shown as `text`.
-ReportCell tagged(std::string text, std::string key, double value) {
-  return {std::move(text), std::move(key), format_machine(value, 12)};
-}
-ReportCell tagged_text(std::string text, std::string key) {
-  std::string machine = text;
-  return {std::move(text), std::move(key), std::move(machine)};
-}
-
-std::string years_list(const std::vector<int>& years) {
-  if (years.empty()) return "none";
-  std::string out;
-  for (std::size_t i = 0; i < years.size(); ++i) out += (i ? ", " : "") + std::to_string(years[i]);
-  return out;
-}
-
 std::string percent(double fraction, int decimals = 1) {
   return format_fixed(100 * fraction, decimals) + " %";
 }

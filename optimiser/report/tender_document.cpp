@@ -25,39 +25,10 @@ namespace {
 
 // ---- cells ----------------------------------------------------------------------------------
 
-ReportCell plain(std::string text) { return {std::move(text), "", ""}; }
-// A number also in tender.json at `key`, shown as `text`.
-ReportCell tagged(std::string text, std::string key, double value) {
-  return {std::move(text), std::move(key), format_machine(value, 12)};
-}
-ReportCell tagged_text(std::string text, std::string key) {
-  std::string machine = text;
-  return {std::move(text), std::move(key), std::move(machine)};
-}
-
 std::string bid_key(std::size_t i) { return "bids[" + std::to_string(i) + "]"; }
-
-std::string years_list(const std::vector<int>& years) {
-  if (years.empty()) return "none";
-  std::string out;
-  for (int y : years) out += (out.empty() ? "" : ", ") + std::to_string(y);
-  return out;
-}
 
 std::string path_text(const std::string& path) {
   return std::filesystem::path(path).lexically_normal().generic_string();
-}
-
-const char* cause_key(WarrantyEnd::Cause cause) {
-  switch (cause) {
-    case WarrantyEnd::Cause::Years:
-      return "years";
-    case WarrantyEnd::Cause::Throughput:
-      return "throughput";
-    case WarrantyEnd::Cause::Cycles:
-      return "cycles";
-  }
-  return "?";
 }
 
 const char* remedy_key(CapacityRemedy remedy) {
@@ -409,7 +380,7 @@ ReportSection warranty_section(const Ctx& c) {
     t.rows.push_back(
         {tagged_text(b.label, k + ".label"),
          years_cell(b.warranty.years, k + ".warranty_end_years"),
-         tagged_text(cause_key(b.warranty.cause), k + ".warranty_end_by"),
+         tagged_text(warranty_end_cause_name(b.warranty.cause), k + ".warranty_end_by"),
          years_cell(b.modelled_life_years, k + ".modelled_life_years"),
          plain(years_list(b.supplier_paid_years)), plain(years_list(b.buyer_paid_years)),
          tagged_text(remedy_key(c.tender.bids[i].warranty.capacity_remedy), k + ".capacity_remedy"),

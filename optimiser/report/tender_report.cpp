@@ -12,30 +12,12 @@
 #include "optimiser/report/design_report.h"
 #include "optimiser/report/json_writer.h"
 #include "optimiser/report/number_format.h"
+#include "optimiser/report/report_document.h"
 #include "stowage_version.h"
 
 namespace stowage::report {
 
 namespace {
-
-const char* cause_text(WarrantyEnd::Cause cause) {
-  switch (cause) {
-    case WarrantyEnd::Cause::Years:
-      return "years";
-    case WarrantyEnd::Cause::Throughput:
-      return "throughput";
-    case WarrantyEnd::Cause::Cycles:
-      return "cycles";
-  }
-  return "?";
-}
-
-std::string years_list(const std::vector<int>& years) {
-  if (years.empty()) return "none";
-  std::string out;
-  for (int y : years) out += (out.empty() ? "" : ", ") + std::to_string(y);
-  return out;
-}
 
 std::string life_text(double years) {
   return std::isfinite(years) ? format_fixed(years, 1) + " y" : std::string("beyond any horizon");
@@ -151,7 +133,7 @@ void write_tender_text(std::ostream& out, const TenderCase& tender, const Tender
              "modelled life", "supplier replaces", "buyer replaces");
   for (const BidResult& b : result.bids) {
     fmt::print(out, "  {:<10}{:>15}{:>12}{:>16}{:>20}{:>18}\n", b.label,
-               life_text(b.warranty.years), cause_text(b.warranty.cause),
+               life_text(b.warranty.years), warranty_end_cause_name(b.warranty.cause),
                life_text(b.modelled_life_years), years_list(b.supplier_paid_years),
                years_list(b.buyer_paid_years));
   }
@@ -241,7 +223,7 @@ void write_tender_json(std::ostream& out, const TenderCase& tender, const Tender
     json.field("availability_cost", b.availability_pv);
     json.field("top_up_kwh", b.top_up_kwh);
     json.field("warranty_end_years", b.warranty.years);
-    json.field("warranty_end_by", cause_text(b.warranty.cause));
+    json.field("warranty_end_by", warranty_end_cause_name(b.warranty.cause));
     json.field("modelled_life_years", b.modelled_life_years);
     json.field("warranty_exceeds_model", b.warranty_exceeds_model);
     json.key("supplier_paid_replacement_years").begin_array();
@@ -301,13 +283,25 @@ void write_tender_csv(std::ostream& out, const TenderCase&, const TenderResult& 
         << ',' << (b.compliant() ? format_machine(b.price_score) : "") << ','
         << (b.compliant() ? format_machine(b.technical_score) : "") << ','
         << (b.compliant() ? format_machine(b.total_score) : "") << ','
-        << format_machine(b.warranty.years) << ',' << cause_text(b.warranty.cause) << ','
-        << format_machine(b.modelled_life_years) << ',' << b.supplier_paid_years.size() << ','
-        << b.buyer_paid_years.size() << ',' << format_machine(b.least_usable_kwh) << ','
+        << format_machine(b.warranty.years) << ',' << warranty_end_cause_name(b.warranty.cause)
+        << ',' << format_machine(b.modelled_life_years) << ',' << b.supplier_paid_years.size()
+        << ',' << b.buyer_paid_years.size() << ',' << format_machine(b.least_usable_kwh) << ','
         << format_machine(b.power_kw) << ',' << format_machine(b.top_up_kwh) << ','
         << format_machine(b.liquidated_damages_pv) << ',' << format_machine(b.availability_pv)
         << "\n";
   }
+}
+
+const char* warranty_end_cause_name(WarrantyEnd::Cause cause) {
+  switch (cause) {
+    case WarrantyEnd::Cause::Years:
+      return "years";
+    case WarrantyEnd::Cause::Throughput:
+      return "throughput";
+    case WarrantyEnd::Cause::Cycles:
+      return "cycles";
+  }
+  return "?";
 }
 
 }  // namespace stowage::report

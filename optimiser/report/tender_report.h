@@ -12,6 +12,9 @@
 
 namespace stowage::report {
 
+// "years", "throughput" or "cycles": what ended the warranty, in text, JSON and CSV alike.
+const char* warranty_end_cause_name(WarrantyEnd::Cause cause);
+
 void write_tender_text(std::ostream& out, const TenderCase& tender, const TenderResult& result);
 void write_tender_json(std::ostream& out, const TenderCase& tender, const TenderResult& result);
 void write_tender_csv(std::ostream& out, const TenderCase& tender, const TenderResult& result);
