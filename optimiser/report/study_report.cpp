@@ -679,14 +679,17 @@ ReportDocument build_study_report(const ReportInputs& in) {
   return doc;
 }
 
-void add_report_files(OutputSet& set, const ReportInputs& in) {
-  auto doc = std::make_shared<const ReportDocument>(build_study_report(in));
+void add_document_files(OutputSet& set, std::shared_ptr<const ReportDocument> doc) {
   set.add("report.html", [doc](std::ostream& out) { write_report_html(out, *doc); });
   set.add("report.md", [doc](std::ostream& out) { write_report_markdown(out, *doc); });
   for (const ReportFigure* f : doc->figures()) {
     const std::string* svg = &f->svg;
     set.add(f->id + ".svg", [doc, svg](std::ostream& out) { out << *svg; });
   }
+}
+
+void add_report_files(OutputSet& set, const ReportInputs& in) {
+  add_document_files(set, std::make_shared<const ReportDocument>(build_study_report(in)));
   const StudyCase* study = &in.loaded->study;
   const OptimiseResult* result = in.result;
   set.add("result.json",

@@ -13,6 +13,7 @@
 // The only line that changes between reruns of the same inputs is the "Generated ..." line.
 #pragma once
 
+#include <memory>
 #include <string>
 #include <vector>
 
@@ -55,6 +56,8 @@ void add_report_files(OutputSet& set, const ReportInputs& inputs);
 // "<digest_name> digest"), and the safety cautions (print_safety_notice's wording).
 ReportSection reproduce_section(const StudyHash& hash, const std::string& digest_name);
 ReportSection safety_section();
+// Adds report.html, report.md and one .svg per figure of `doc` to `set`; the files share doc.
+void add_document_files(OutputSet& set, std::shared_ptr<const ReportDocument> doc);
 
 // "YYYY-MM-DDTHH:MM:SSZ": the time given by SOURCE_DATE_EPOCH when it is set to a number of
 // seconds (reproducible builds convention), else now.

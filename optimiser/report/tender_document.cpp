@@ -10,8 +10,6 @@
 #include "model/contract.h"
 #include "optimiser/report/cost_lines.h"
 #include "optimiser/report/design_report.h"
-#include "optimiser/report/html_report.h"
-#include "optimiser/report/markdown_report.h"
 #include "optimiser/report/number_format.h"
 #include "optimiser/report/report_charts.h"
 #include "optimiser/report/study_hash.h"
@@ -29,18 +27,6 @@ std::string bid_key(std::size_t i) { return "bids[" + std::to_string(i) + "]"; }
 
 std::string path_text(const std::string& path) {
   return std::filesystem::path(path).lexically_normal().generic_string();
-}
-
-const char* remedy_key(CapacityRemedy remedy) {
-  switch (remedy) {
-    case CapacityRemedy::None:
-      return "none";
-    case CapacityRemedy::TopUp:
-      return "top_up";
-    case CapacityRemedy::LiquidatedDamages:
-      return "liquidated_damages";
-  }
-  return "?";
 }
 
 // Years to one decimal, tagged, or the words for a bank that outlives any horizon.
@@ -383,7 +369,8 @@ ReportSection warranty_section(const Ctx& c) {
          tagged_text(warranty_end_cause_name(b.warranty.cause), k + ".warranty_end_by"),
          years_cell(b.modelled_life_years, k + ".modelled_life_years"),
          plain(years_list(b.supplier_paid_years)), plain(years_list(b.buyer_paid_years)),
-         tagged_text(remedy_key(c.tender.bids[i].warranty.capacity_remedy), k + ".capacity_remedy"),
+         tagged_text(capacity_remedy_name(c.tender.bids[i].warranty.capacity_remedy),
+                     k + ".capacity_remedy"),
          tagged(format_amount(b.top_up_kwh), k + ".top_up_kwh", b.top_up_kwh)});
   }
   s.table(t);
@@ -548,7 +535,7 @@ ReportTable bid_table(const Ctx& c, std::size_t i) {
              " y: " + format_general(p.capacity, 4);
   row("warranty.retention", plain(curve.empty() ? "the floor throughout" : curve), "year: fraction",
       src);
-  row("warranty.capacity_remedy", plain(remedy_key(w.capacity_remedy)), "", src);
+  row("warranty.capacity_remedy", plain(capacity_remedy_name(w.capacity_remedy)), "", src);
   if (w.capacity_remedy == CapacityRemedy::LiquidatedDamages)
     row("warranty.liquidated_damages_per_kwh", g(w.liquidated_damages_per_kwh), cur + "/kWh", src);
   row("warranty.availability", w.availability ? g(*w.availability) : plain("none"),
@@ -657,13 +644,7 @@ ReportDocument build_tender_report(const TenderReportInputs& in) {
 }
 
 void add_tender_report_files(OutputSet& set, const TenderReportInputs& in) {
-  auto doc = std::make_shared<const ReportDocument>(build_tender_report(in));
-  set.add("report.html", [doc](std::ostream& out) { write_report_html(out, *doc); });
-  set.add("report.md", [doc](std::ostream& out) { write_report_markdown(out, *doc); });
-  for (const ReportFigure* f : doc->figures()) {
-    const std::string* svg = &f->svg;
-    set.add(f->id + ".svg", [doc, svg](std::ostream& out) { out << *svg; });
-  }
+  add_document_files(set, std::make_shared<const ReportDocument>(build_tender_report(in)));
   const TenderCase* tender = in.tender;
   const TenderResult* result = in.result;
   auto designs = std::make_shared<std::vector<DesignResult>>();

@@ -34,18 +34,6 @@ std::string shortfall_text(const Shortfall& s) {
          format_amount(s.required) + " kW";
 }
 
-const char* remedy_text(CapacityRemedy remedy) {
-  switch (remedy) {
-    case CapacityRemedy::None:
-      return "none";
-    case CapacityRemedy::TopUp:
-      return "top_up";
-    case CapacityRemedy::LiquidatedDamages:
-      return "liquidated_damages";
-  }
-  return "?";
-}
-
 // The year-ends within the warranty at which the retention curve promises more than the
 // chemistry model gives, and what the supplier owes for them.
 void write_capacity_claims_text(std::ostream& out, const TenderCase& tender,
@@ -232,7 +220,7 @@ void write_tender_json(std::ostream& out, const TenderCase& tender, const Tender
     json.key("buyer_paid_replacement_years").begin_array();
     for (int y : b.buyer_paid_years) json.value(y);
     json.end_array();
-    json.field("capacity_remedy", remedy_text(tender.bids[i].warranty.capacity_remedy));
+    json.field("capacity_remedy", capacity_remedy_name(tender.bids[i].warranty.capacity_remedy));
     json.key("capacity_claims").begin_array();
     for (const CapacityClaim& c : b.capacity_claims) {
       json.begin_object();
@@ -300,6 +288,18 @@ const char* warranty_end_cause_name(WarrantyEnd::Cause cause) {
       return "throughput";
     case WarrantyEnd::Cause::Cycles:
       return "cycles";
+  }
+  return "?";
+}
+
+const char* capacity_remedy_name(CapacityRemedy remedy) {
+  switch (remedy) {
+    case CapacityRemedy::None:
+      return "none";
+    case CapacityRemedy::TopUp:
+      return "top_up";
+    case CapacityRemedy::LiquidatedDamages:
+      return "liquidated_damages";
   }
   return "?";
 }

@@ -14,6 +14,8 @@ namespace stowage::report {
 
 // "years", "throughput" or "cycles": what ended the warranty, in text, JSON and CSV alike.
 const char* warranty_end_cause_name(WarrantyEnd::Cause cause);
+// "none", "top_up" or "liquidated_damages": the warranty's capacity remedy, likewise.
+const char* capacity_remedy_name(CapacityRemedy remedy);
 
 void write_tender_text(std::ostream& out, const TenderCase& tender, const TenderResult& result);
 void write_tender_json(std::ostream& out, const TenderCase& tender, const TenderResult& result);
