@@ -187,10 +187,10 @@ const std::vector<Entry>& entries() {
                  [](StudyCase& s, std::size_t, double v) {
                    s.economics.project_years = static_cast<int>(v);
                  }});
-    t.push_back({C, "search.budget", "{cur}", 0, kHuge, false, true, false, Set,
+    t.push_back({C, "design_space.budget", "{cur}", 0, kHuge, false, true, false, Set,
                  [](const StudyCase& s, std::size_t) { return s.search.budget; },
                  [](StudyCase& s, std::size_t, double v) { s.search.budget = v; }});
-    t.push_back({C, "search.max_strings_parallel", "strings", 1, 10000, true, true, true, Set,
+    t.push_back({C, "design_space.max_strings_parallel", "strings", 1, 10000, true, true, true, Set,
                  [](const StudyCase& s, std::size_t) {
                    return std::optional<double>(s.search.max_strings_parallel);
                  },
@@ -296,7 +296,7 @@ void apply_parameter(StudyCase& study, std::string_view path, double value) {
   if (info.whole_number && value != std::floor(value)) {
     throw InvalidValue(name, "must be a whole number, found " + number_text(value));
   }
-  if (!info.present && name != "search.budget") {
+  if (!info.present && name != "design_space.budget") {
     throw InvalidValue(name,
                        "is not set in this study (or varies hour by hour), so it has no "
                        "single value to vary");

@@ -44,7 +44,8 @@ const std::set<std::string>& supported_keywords() {
                                                  "default",
                                                  "examples",
                                                  "errorMessage",
-                                                 "patternErrorMessage"};
+                                                 "patternErrorMessage",
+                                                 "renamedKeys"};
   return keywords;
 }
 
@@ -455,6 +456,11 @@ void SchemaValidator::check_object(const YAML::Node& schema, const YAML::Node& v
     }
     if (properties && properties[key]) {
       check_node(properties[key], it->second, key_node, field, document, out);
+    } else if (schema["renamedKeys"] && schema["renamedKeys"][key]) {
+      out.push_back(document.error_at(key_node, field,
+                                      "the key '" + key + "' is now called '" +
+                                          schema["renamedKeys"][key].Scalar() +
+                                          "'; rename it (the contents stay the same)"));
     } else if (closed) {
       std::string message = "unknown key '" + printable_input(key) + "'";
       const std::string hint = closest_match(key, allowed);

@@ -10,7 +10,8 @@
 //   (ECMAScript, unanchored as in JSON Schema), oneOf, $ref to "#/$defs/NAME", and the
 //   annotations $schema, $id, $comment, title, description, default, examples. The editor
 //   extensions errorMessage (message for a failed oneOf) and patternErrorMessage (hint for a
-//   failed pattern) are used for the wording.
+//   failed pattern) are used for the wording. The extension renamedKeys (an object mapping an
+//   old key name to its new one) refuses a retired key with a message naming the new key.
 // Beyond JSON Schema, a mapping with the same key twice is an error (YAML forbids it, yaml-cpp
 // keeps both), and an unknown key is reported with the nearest allowed key as a suggestion.
 // Numbers follow the YAML core schema (see yaml_document.h): a quoted "3" is text, not a number;

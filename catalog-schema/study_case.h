@@ -1,6 +1,6 @@
 // SPDX-License-Identifier: MIT
 // StudyCase: a study as a whole run sees it: the model's Study (site, profiles, economics,
-// designs) plus the optimiser's search settings from the study file's `search` block. A plain
+// designs) plus the optimiser's search settings from the study file's `design_space` block. A plain
 // value: copying it copies everything, and nothing points into it, so an analysis can copy a
 // case, change an input by its parameter path (parameter_paths.h) and run it again.
 #pragma once
@@ -12,7 +12,7 @@
 
 namespace stowage {
 
-// The `search` block, validated: the DoD ladder the optimiser tries (narrowed per profile to
+// The `design_space` block, validated: the DoD ladder the optimiser tries (narrowed per profile to
 // its allowed range) and the optional caps on a bank.
 struct SearchSettings {
   double dod_from = 0.20, dod_to = 1.00, dod_step = 0.05;  // ladder, fractions, from <= to
@@ -26,7 +26,7 @@ struct StudyCase : Study {
   SearchSettings search;
 };
 
-// The DoD ladder of `search` restricted to the profile's allowed [dod.min, dod.max]; values
+// The DoD ladder of `design_space` restricted to the profile's allowed [dod.min, dod.max]; values
 // are rounded to 1e-9 so 0.05 steps land on exact decimals.
 std::vector<double> dod_ladder(const SearchSettings& search, const ChemistryProfile& profile);
 

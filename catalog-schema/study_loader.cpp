@@ -151,7 +151,7 @@ void read_designs(const YamlDocument& doc, LoadedStudy& loaded) {
 }
 
 void read_search(const YamlDocument& doc, LoadedStudy& loaded) {
-  const YAML::Node s = doc.root()["study"]["search"];
+  const YAML::Node s = doc.root()["study"]["design_space"];
   if (!s) return;
   SearchSettings& search = loaded.study.search;
   if (const YAML::Node ladder = s["dod_ladder"]) {
@@ -159,14 +159,14 @@ void read_search(const YamlDocument& doc, LoadedStudy& loaded) {
     search.dod_to = number(ladder["to"]);
     search.dod_step = number(ladder["step"]);
     if (search.dod_from > search.dod_to) {
-      throw doc.error_at(ladder["from"], "study.search.dod_ladder.from",
+      throw doc.error_at(ladder["from"], "study.design_space.dod_ladder.from",
                          "must not exceed dod_ladder.to (" + number_text(search.dod_to) +
                              "), found " + number_text(search.dod_from));
     }
     // The optimiser builds and simulates every setpoint: bound their number before it does.
     const double setpoints = std::floor((search.dod_to - search.dod_from) / search.dod_step + 1e-9);
     if (!(setpoints + 1 <= static_cast<double>(kMaxDodLadderSetpoints))) {
-      throw doc.error_at(ladder["step"], "study.search.dod_ladder.step",
+      throw doc.error_at(ladder["step"], "study.design_space.dod_ladder.step",
                          "gives " + number_text(setpoints + 1) + " setpoints from " +
                              number_text(search.dod_from) + " to " + number_text(search.dod_to) +
                              ", more than the plausibility limit of " +
@@ -178,7 +178,7 @@ void read_search(const YamlDocument& doc, LoadedStudy& loaded) {
   }
   if (s["max_strings_parallel"]) {
     search.max_strings_parallel =
-        plausible_count(doc, s["max_strings_parallel"], "study.search.max_strings_parallel",
+        plausible_count(doc, s["max_strings_parallel"], "study.design_space.max_strings_parallel",
                         kMaxStringsParallel, " strings in parallel");
   }
   if (s["budget"]) search.budget = number(s["budget"]);
@@ -186,7 +186,7 @@ void read_search(const YamlDocument& doc, LoadedStudy& loaded) {
   const auto require_per_cell = [&](const char* key, const char* cell_field, auto has_value) {
     for (std::size_t i = 0; i < loaded.profiles.size(); ++i) {
       if (!has_value(loaded.profiles[i].profile)) {
-        throw doc.error_at(s[key], std::string("study.search.") + key,
+        throw doc.error_at(s[key], std::string("study.design_space.") + key,
                            "needs " + std::string(cell_field) + " in every profile, but " +
                                loaded.profile_paths[i] + " (profile " +
                                loaded.profiles[i].profile.id + ") has none");

@@ -8,15 +8,16 @@ namespace stowage::report {
 
 const std::vector<CostLine>& cost_lines() {
   static const std::vector<CostLine> lines = {
-      {"investment", "investment (year 0)", &CostBreakdown::investment},
-      {"replacements", "replacements", &CostBreakdown::replacements},
-      {"fixed_om", "fixed O&M", &CostBreakdown::fixed_om},
-      {"variable_om", "variable O&M", &CostBreakdown::variable_om},
-      {"charging", "charging energy (incl. losses)", &CostBreakdown::charging},
-      {"end_of_life", "end of life", &CostBreakdown::end_of_life},
-      {"residual_value", "residual value (credit)", &CostBreakdown::residual_value},
-      {"backup", "back-up energy", &CostBreakdown::backup},
-      {"unserved_penalty", "unserved-energy penalty", &CostBreakdown::unserved_penalty},
+      {"investment", "investment (year 0)", "investment", &CostBreakdown::investment},
+      {"replacements", "replacements", "replacement", &CostBreakdown::replacements},
+      {"fixed_om", "fixed O&M", "O&M", &CostBreakdown::fixed_om},
+      {"variable_om", "variable O&M", "O&M", &CostBreakdown::variable_om},
+      {"charging", "charging energy (incl. losses)", "charging", &CostBreakdown::charging},
+      {"end_of_life", "end of life", "end of life", &CostBreakdown::end_of_life},
+      {"residual_value", "residual value (credit)", "residual", &CostBreakdown::residual_value},
+      {"backup", "back-up energy", "service shortfall", &CostBreakdown::backup},
+      {"unserved_penalty", "unserved-energy penalty", "service shortfall",
+       &CostBreakdown::unserved_penalty},
   };
   return lines;
 }

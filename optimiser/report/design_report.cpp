@@ -7,6 +7,7 @@
 #include <algorithm>
 #include <cmath>
 #include <sstream>
+#include <string>
 
 #include "optimiser/report/cost_lines.h"
 #include "optimiser/report/number_format.h"
@@ -143,13 +144,17 @@ void print_design_table(std::ostream& out, const DesignResult& d, const Requirem
     fmt::print(
         out, "  WARNING       unserved energy reaches {:.3f} % of demand, above the site's limit\n",
         100 * d.unserved_fraction_max);
-  fmt::print(out, "  present value ({})\n", d.currency);
+  fmt::print(out, "  present value ({}), by LCOS term\n", d.currency);
+  const char* last_term = nullptr;
   for (const CostLine& item : cost_lines()) {
     const double v = d.present_value.*item.member;
     if (v == 0) continue;
-    fmt::print(out, "    {:<32}{:>14}\n", item.label, format_amount(v));
+    const bool new_term = last_term == nullptr || std::string(last_term) != item.term;
+    fmt::print(out, "    {:<20}{:<32}{:>14}\n", new_term ? item.term : "", item.label,
+               format_amount(v));
+    last_term = item.term;
   }
-  fmt::print(out, "    {:<32}{:>14}\n", "net present cost", format_amount(d.npc));
+  fmt::print(out, "    {:<52}{:>14}\n", "net present cost", format_amount(d.npc));
   if (!d.delivers_energy()) {
     fmt::print(out, "  LCOS          {}\n", no_lcos_statement());
     return;

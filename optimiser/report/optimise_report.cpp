@@ -164,24 +164,135 @@ std::string describe_unmet(const UnmetRequirement& u, const StudyCase& study) {
 
 namespace {
 
-void print_header(std::ostream& out, const StudyCase& study, const OptimiseResult& r) {
-  print_study_header(out, study,
-                     std::string("design optimisation (method ") + to_string(r.method) + ")");
+// The facts behind the answer: what was tried, what was left out and how it was settled.
+void print_design_space(std::ostream& out, const StudyCase& study, const OptimiseResult& r) {
   fmt::print(out,
-             "Search space: {} profiles, DoD ladder {:g} to {:g} step {:g}, 1 to {} strings; "
+             "  design space  {} profiles, DoD ladder {:g} to {:g} step {:g}, 1 to {} strings; "
              "{} admissible designs\n",
              study.profiles.size(), study.search.dod_from, study.search.dod_to,
              study.search.dod_step, study.search.max_strings_parallel, r.admissible_designs);
   for (const ProfileNote& note : r.notes) {
-    fmt::print(out, "Note: {}\n", describe_note(note, study));
+    fmt::print(out, "  left out      {}\n", describe_note(note, study));
   }
-  out << "\n";
+}
+
+std::string confidence_text(const OptimiseResult& r) {
+  switch (r.status) {
+    case Optimality::Proven:
+      return "proven optimal: every other design was evaluated exactly or is ruled out by the "
+             "cost bound";
+    case Optimality::VerifiedByEstimate:
+      return fmt::format(
+          "verified by estimate, not proven: {} designs were passed over on the model's "
+          "estimate rather than ruled out by the cost bound; run without --skip-proof to settle "
+          "them",
+          r.designs_unsettled);
+    case Optimality::TimeLimited:
+      return "NOT PROVEN OPTIMAL: the time limit was reached; this is the best found so far";
+  }
+  return "?";
+}
+
+// The decision first: what to build, what it costs, by how much it wins and how sure that is.
+void print_decision(std::ostream& out, const StudyCase& study, const OptimiseResult& r) {
+  const DesignResult& best = r.best();
+  const std::string& cur = study.economics.currency;
+  fmt::print(out, "DECISION  {} at DoD {:.2f} with {} string{} ({} kWh nameplate)\n",
+             best.profile_id, best.dod_setpoint, best.bank.strings_parallel,
+             best.bank.strings_parallel == 1 ? "" : "s", format_amount(best.bank.nameplate_kwh, 1));
+  fmt::print(out, "  cost          {} {} net present cost of serving the site; LCOS {}{}\n",
+             format_amount(best.npc), cur, lcos_cell(best, best.lcos_per_kwh),
+             best.delivers_energy() ? " " + cur + "/kWh" : std::string());
+  if (r.ranking.size() > 1) {
+    const DesignResult& next = r.ranking[1];
+    const double margin = next.npc - best.npc;
+    fmt::print(out, "  margin        {} {} ({:.1f} % of its cost) below the next profile, {}{}\n",
+               format_amount(margin), cur, best.npc != 0 ? 100 * margin / std::fabs(best.npc) : 0.0,
+               next.profile_id,
+               r.method != SearchMethod::Exhaustive
+                   ? " (its design is the best met on the way, so its own best may be closer)"
+                   : "");
+  } else {
+    out << "  margin        no other profile has an admissible design\n";
+  }
+  fmt::print(out, "  confidence    {}\n", confidence_text(r));
+}
+
+void print_alternatives(std::ostream& out, const StudyCase& study, const OptimiseResult& r) {
+  const DesignResult& best = r.best();
+  const std::string& cur = study.economics.currency;
+  out << "Every profile's cheapest design found, cheapest first\n";
+  fmt::print(out, "{:>4}  {:<28}{:>5}{:>9}{:>11}{:>13}{:>13}{:>14}{:>16}\n", "rank", "profile",
+             "DoD", "strings", "kWh", "LCOS " + cur, "Schmidt " + cur, "NPC " + cur,
+             "above choice");
+  for (std::size_t i = 0; i < r.ranking.size(); ++i) {
+    const DesignResult& d = r.ranking[i];
+    fmt::print(out, "{:>4}  {:<28}{:>5.2f}{:>9}{:>11}{:>13}{:>13}{:>14}{:>16}\n", i + 1,
+               d.profile_id, d.dod_setpoint, d.bank.strings_parallel,
+               format_amount(d.bank.nameplate_kwh, 1), lcos_cell(d, d.lcos_per_kwh),
+               lcos_cell(d, d.lcos_schmidt_per_kwh), format_amount(d.npc),
+               i == 0 ? std::string("(the choice)") : format_signed_amount(d.npc - best.npc));
+  }
+  if (r.ranking.size() < 2) return;
+  fmt::print(out,
+             "\nWhere each alternative's money goes otherwise than the choice's (present value, "
+             "{}; + spends more, largest first):\n",
+             cur);
+  for (std::size_t i = 1; i < r.ranking.size(); ++i) {
+    const DesignResult& d = r.ranking[i];
+    fmt::print(out, "  {:<28}", d.profile_id);
+    bool first = true;
+    for (const CostDifference& item : cost_differences(d.present_value, best.present_value)) {
+      fmt::print(out, "{}{} {}", first ? "" : ", ", item.line->label,
+                 format_signed_amount(item.amount));
+      first = false;
+    }
+    out << "\n";
+  }
+}
+
+void print_how_found(std::ostream& out, const StudyCase& study, const OptimiseResult& r) {
+  const DesignResult& best = r.best();
+  const std::string& cur = study.economics.currency;
+  out << "How the answer was found\n";
+  print_design_space(out, study, r);
+  if (r.method == SearchMethod::Milp) {
+    fmt::print(out,
+               "  method        milp: {} sub-models solved, {} (profile, DoD) pairs pruned by the "
+               "cost bound and {} by the calibrated model estimate; {} of {} designs evaluated "
+               "exactly ({} of them to prove the answer) in {:.2f} s\n",
+               r.submodels_solved, r.pairs_pruned_by_bound, r.pairs_pruned_by_estimate,
+               r.designs_evaluated_exactly, r.admissible_designs, r.designs_evaluated_for_proof,
+               r.solve_seconds);
+  } else {
+    fmt::print(out, "  method        {}: {} of {} designs evaluated exactly in {:.2f} s\n",
+               to_string(r.method), r.designs_evaluated_exactly, r.admissible_designs,
+               r.solve_seconds);
+  }
+  if (r.designs_stopped_early > 0) {
+    fmt::print(out,
+               "                {} of them stopped early, once their cost so far, less the most "
+               "they could still earn back, passed their profile's best\n",
+               r.designs_stopped_early);
+  }
+  if (std::isfinite(r.model_estimate_npc)) {
+    const std::string lcos = std::isfinite(r.model_estimate_per_kwh)
+                                 ? fmt::format("{:.4f} {}/kWh", r.model_estimate_per_kwh, cur)
+                                 : std::string("n/a (no discharge planned)");
+    fmt::print(out,
+               "  model check   Model estimate of this design: NPC {} {}, LCOS {}; exact NPC {} "
+               "{}, LCOS {} {}/kWh (gap {:+.2f} % of the exact NPC)\n",
+               format_amount(r.model_estimate_npc), cur, lcos, format_amount(best.npc), cur,
+               lcos_cell(best, best.lcos_per_kwh), cur, 100 * r.gap);
+  }
 }
 
 }  // namespace
 
 void write_optimise_text(std::ostream& out, const StudyCase& study, const OptimiseResult& r) {
-  print_header(out, study, r);
+  print_study_header(out, study,
+                     std::string("design optimisation (method ") + to_string(r.method) + ")");
+  out << "\n";
   if (!r.feasible()) {
     if (r.time_limit_reached) {
       fmt::print(out, "No feasible design found before the time limit ({:.1f} s).\n",
@@ -191,90 +302,18 @@ void write_optimise_text(std::ostream& out, const StudyCase& study, const Optimi
     }
     for (const UnmetRequirement& u : r.unmet)
       fmt::print(out, "  {}: {}\n", requirement_key(u), describe_unmet(u, study));
+    print_design_space(out, study, r);
     out << "\n";
     print_safety_notice(out);
     return;
   }
-  const DesignResult& best = r.best();
-  const std::string& cur = study.economics.currency;
-  switch (r.status) {
-    case Optimality::Proven:
-      out << "Best design (proven optimal: every other design was evaluated exactly or is ruled "
-             "out by the cost bound):\n";
-      break;
-    case Optimality::VerifiedByEstimate:
-      fmt::print(out,
-                 "Best design (verified by estimate, not proven: {} designs were passed over on "
-                 "the model's estimate rather than ruled out by the cost bound; run without "
-                 "--skip-proof to settle them):\n",
-                 r.designs_unsettled);
-      break;
-    case Optimality::TimeLimited:
-      out << "Best design found so far -- NOT PROVEN OPTIMAL (time limit reached):\n";
-      break;
-  }
-  print_design_table(out, best);
+  print_decision(out, study, r);
+  out << "\nThe chosen design\n";
+  print_design_table(out, r.best());
   out << "\n";
-  if (std::isfinite(r.model_estimate_npc)) {
-    const std::string lcos = std::isfinite(r.model_estimate_per_kwh)
-                                 ? fmt::format("{:.4f} {}/kWh", r.model_estimate_per_kwh, cur)
-                                 : std::string("n/a (no discharge planned)");
-    fmt::print(out,
-               "Model estimate of this design: NPC {} {}, LCOS {}; exact NPC {} {}, LCOS "
-               "{} {}/kWh (gap {:+.2f} % of the exact NPC)\n",
-               format_amount(r.model_estimate_npc), cur, lcos, format_amount(best.npc), cur,
-               lcos_cell(best, best.lcos_per_kwh), cur, 100 * r.gap);
-  }
-  if (r.method == SearchMethod::Milp) {
-    fmt::print(out,
-               "Search: {} sub-models solved, {} (profile, DoD) pairs pruned by the cost bound "
-               "and {} by the calibrated model estimate; {} of {} designs evaluated exactly "
-               "({} of them to prove the answer) in {:.2f} s\n",
-               r.submodels_solved, r.pairs_pruned_by_bound, r.pairs_pruned_by_estimate,
-               r.designs_evaluated_exactly, r.admissible_designs, r.designs_evaluated_for_proof,
-               r.solve_seconds);
-  } else {
-    fmt::print(out, "Search: {} of {} designs evaluated exactly in {:.2f} s\n",
-               r.designs_evaluated_exactly, r.admissible_designs, r.solve_seconds);
-  }
-  if (r.designs_stopped_early > 0) {
-    fmt::print(out,
-               "        {} of them stopped early, once their cost so far, less the most they "
-               "could still earn back, passed their profile's best\n",
-               r.designs_stopped_early);
-  }
+  print_alternatives(out, study, r);
   out << "\n";
-
-  out << "Best design of each profile, by net present cost of serving the site\n";
-  fmt::print(out, "{:>4}  {:<28}{:>5}{:>9}{:>11}{:>13}{:>13}{:>14}{:>14}\n", "rank", "profile",
-             "DoD", "strings", "kWh", "LCOS " + cur, "Schmidt " + cur, "NPC " + cur, "vs best");
-  for (std::size_t i = 0; i < r.ranking.size(); ++i) {
-    const DesignResult& d = r.ranking[i];
-    fmt::print(out, "{:>4}  {:<28}{:>5.2f}{:>9}{:>11}{:>13}{:>13}{:>14}{:>14}\n", i + 1,
-               d.profile_id, d.dod_setpoint, d.bank.strings_parallel,
-               format_amount(d.bank.nameplate_kwh, 1), lcos_cell(d, d.lcos_per_kwh),
-               lcos_cell(d, d.lcos_schmidt_per_kwh), format_amount(d.npc),
-               i == 0 ? std::string("-") : format_signed_amount(d.npc - best.npc));
-  }
-  if (r.ranking.size() > 1) {
-    out << "\nWhy each loses against " << best.profile_id << " (present-value difference, " << cur
-        << ", biggest first):\n";
-    for (std::size_t i = 1; i < r.ranking.size(); ++i) {
-      const DesignResult& d = r.ranking[i];
-      fmt::print(out, "  {:<28}", d.profile_id);
-      bool first = true;
-      for (const CostDifference& item : cost_differences(d.present_value, best.present_value)) {
-        fmt::print(out, "{}{} {}", first ? "" : ", ", item.line->label,
-                   format_signed_amount(item.amount));
-        first = false;
-      }
-      out << "\n";
-    }
-  }
-  if (r.method != SearchMethod::Exhaustive && r.ranking.size() > 1) {
-    out << "(Other profiles show the best design found on the way; only the winner is searched "
-           "to the end.)\n";
-  }
+  print_how_found(out, study, r);
   out << "\n";
   print_safety_notice(out);
 }

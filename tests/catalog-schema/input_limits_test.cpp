@@ -79,7 +79,7 @@ TEST_CASE("the DoD ladder may have 101 setpoints and no more", "[catalog][limits
       0.005);
   const InputError e = expect_input_error(
       [&] { study_with(ladder, "dod_ladder: {from: 0.25, to: 0.755, step: 0.005}"); }, "study.yaml",
-      testing::line_of(text, ladder), "study.search.dod_ladder.step");
+      testing::line_of(text, ladder), "study.design_space.dod_ladder.step");
   CHECK_THAT(e.message(), Catch::Contains("gives 102 setpoints"));
 }
 

@@ -41,7 +41,7 @@ TEST_CASE("check reports the problems of the study and of every file it names in
   using Row = std::tuple<std::string, int, std::string>;
   const std::vector<Row> want{
       {"study.yaml", 13, "study.economics.real_discount_rat"},
-      {"study.yaml", 15, "study.serch"},
+      {"study.yaml", 15, "study.design_spce"},
       {"site.yaml", 6, "site.autonomy_days"},
       {"hourly.csv", 5, "load_kw"},
       {"study.yaml", 8, "study.profiles[1]"},
@@ -53,7 +53,7 @@ TEST_CASE("check reports the problems of the study and of every file it names in
   // The near misses carry their suggestion.
   REQUIRE(check.problems.size() == want.size());
   CHECK_THAT(check.problems[0].message(), Catch::Contains("did you mean 'real_discount_rate'?"));
-  CHECK_THAT(check.problems[1].message(), Catch::Contains("did you mean 'search'?"));
+  CHECK_THAT(check.problems[1].message(), Catch::Contains("did you mean 'design_space'?"));
 }
 
 TEST_CASE("check of a valid study returns the study the loader loads", "[catalog][check]") {

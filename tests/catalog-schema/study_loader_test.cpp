@@ -33,7 +33,7 @@ std::string study_error(const std::string& text, const std::string& line_needle,
       .message();
 }
 
-TEST_CASE("a study loads its site, profiles, designs and search space", "[catalog][study]") {
+TEST_CASE("a study loads its site, profiles, designs and design space", "[catalog][study]") {
   const LoadedStudy loaded = load_study_details_file(fixture_path("study.yaml"));
   const StudyCase& s = loaded.study;
   CHECK(s.title == "Loader test study");
@@ -128,15 +128,15 @@ TEST_CASE("the profiles must price in the study's currency", "[catalog][study][b
 TEST_CASE("search limits are checked against the profiles", "[catalog][study][bad]") {
   const std::string mass = replace_once(study_text(), "    budget: 50000\n",
                                         "    budget: 50000\n    max_mass_kg: 900\n");
-  CHECK_THAT(study_error(mass, "max_mass_kg", "study.search.max_mass_kg"),
+  CHECK_THAT(study_error(mass, "max_mass_kg", "study.design_space.max_mass_kg"),
              Catch::Contains("lead-test"));
   const std::string ladder =
       replace_once(study_text(), "{from: 0.3, to: 0.9", "{from: 0.9, to: 0.3");
-  CHECK_THAT(study_error(ladder, "dod_ladder", "study.search.dod_ladder.from"),
+  CHECK_THAT(study_error(ladder, "dod_ladder", "study.design_space.dod_ladder.from"),
              Catch::Contains("must not exceed dod_ladder.to"));
   const std::string strings =
       replace_once(study_text(), "max_strings_parallel: 12", "max_strings_parallel: 0");
-  study_error(strings, "max_strings_parallel", "study.search.max_strings_parallel");
+  study_error(strings, "max_strings_parallel", "study.design_space.max_strings_parallel");
 }
 
 TEST_CASE("errors inside referenced files name those files", "[catalog][study][bad]") {

@@ -57,7 +57,7 @@ TEST_CASE("the three forms and the distributions are read as written", "[catalog
       "    - path: site.hourly.temp_c_offset\n"
       "      values: [4, -4, 0]\n"
       "      distribution: {kind: discrete, weights: [1, 1, 2]}\n"
-      "    - path: search.max_strings_parallel\n"
+      "    - path: design_space.max_strings_parallel\n"
       "      values: [8, 12, 16]\n"
       "    - path: profiles.lead-test.ageing.cycle_life_scale\n"
       "      low: 0.5\n"

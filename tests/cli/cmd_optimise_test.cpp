@@ -59,7 +59,7 @@ std::string write_too_small_study(const fs::path& dir) {
     << STOWAGE_SOURCE_DIR << "/studies/tarnbeck-saddle/site.yaml\n"
     << "  profiles:\n    - " << STOWAGE_SOURCE_DIR << "/catalog-schema/profiles/lfp.yaml\n"
     << "  economics: {project_years: 20, real_discount_rate: 0.06, currency: EUR}\n"
-       "  search:\n"
+       "  design_space:\n"
        "    dod_ladder: {from: 0.20, to: 1.00, step: 0.05}\n"
        "    max_strings_parallel: 2\n";
   return path.string();
@@ -82,8 +82,20 @@ TEST_CASE("optimise ranks profiles, explains the losses and ends with the safety
           "[optimiser][cli]") {
   const RunOutput r = run_optimise({demo("sandglass-mast")});
   REQUIRE(r.exit_code == stowage::cli::kExitOk);
-  CHECK_THAT(r.out, Catch::Contains("Best design of each profile"));
-  CHECK_THAT(r.out, Catch::Contains("Why each loses against"));
+  // The screen leads with the decision, its margin and its confidence, before any table.
+  const std::size_t decision = r.out.find("DECISION  ");
+  REQUIRE(decision != std::string::npos);
+  CHECK(decision < r.out.find("  margin        "));
+  CHECK(r.out.find("  margin        ") < r.out.find("  confidence    proven optimal"));
+  CHECK(r.out.find("  confidence    ") < r.out.find("Every profile's cheapest design found"));
+  CHECK_THAT(r.out, Catch::Contains("Where each alternative's money goes otherwise"));
+  CHECK_THAT(r.out, !Catch::Contains("Why each loses"));
+  CHECK_THAT(r.out, !Catch::Contains("earch space"));
+  // Cost lines are grouped under the LCOS terms, in the published order.
+  const std::size_t investment = r.out.find("    investment          investment (year 0)");
+  REQUIRE(investment != std::string::npos);
+  CHECK(investment < r.out.find("    O&M                 fixed O&M"));
+  CHECK(r.out.find("    O&M ") < r.out.find("    charging  "));
   CHECK_THAT(r.out, Catch::Contains("Model estimate of this design"));
   CHECK_THAT(r.out, Catch::Contains("planning estimate"));
 }

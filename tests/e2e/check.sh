@@ -16,7 +16,7 @@ expect_exit 2 -- "$STOWAGE" check "$many" && {
   for file in study.yaml site.yaml hourly.csv two-schema-problems.yaml dod-default-outside.yaml; do
     grep -q "/$file:" "$WORK/err" || fail "no problem reported in $file"
   done
-  grep -qF "did you mean 'search'?" "$WORK/err" || fail "no suggestion for the key 'serch'"
+  grep -qF "did you mean 'design_space'?" "$WORK/err" || fail "no suggestion for the key 'design_spce'"
 }
 
 # JSON: the documented shape, problems with 1-based positions, summary null.
@@ -30,7 +30,7 @@ assert len(d["problems"]) == 8, len(d["problems"])
 for p in d["problems"]:
     assert set(p) == {"file", "line", "column", "field", "message"}, p
     assert isinstance(p["line"], int) and p["line"] >= 1 and p["column"] >= 1, p
-assert d["problems"][1]["field"] == "study.serch" and "did you mean 'search'?" in d["problems"][1]["message"]
+assert d["problems"][1]["field"] == "study.design_spce" and "did you mean 'design_space'?" in d["problems"][1]["message"]
 PY
 
 # A valid study: text summary on stdout, JSON with valid true and the summary.

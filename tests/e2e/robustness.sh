@@ -29,7 +29,7 @@ with_designs() {  # with_designs IN OUT: adds the held designs to a study copy
   $PY - "$1" "$2" "$designs" <<'PY'
 import sys
 text = open(sys.argv[1]).read()
-text = text.replace("  search:\n", "  designs:\n" + sys.argv[3] + "\n  search:\n", 1)
+text = text.replace("  design_space:\n", "  designs:\n" + sys.argv[3] + "\n  design_space:\n", 1)
 open(sys.argv[2], "w").write(text)
 PY
 }
