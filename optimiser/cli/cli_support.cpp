@@ -3,11 +3,13 @@
 
 #include <iostream>
 #include <sstream>
+#include <utility>
 
 #include "catalog-schema/input_error.h"
 #include "catalog-schema/study_loader.h"
 #include "model/invalid_value.h"
 #include "optimiser/cli/command.h"
+#include "optimiser/report/check_report.h"
 #include "optimiser/report/messages.h"
 #include "optimiser/report/output_set.h"
 
@@ -71,6 +73,10 @@ int optimise_exit_code(const OptimiseResult& result) {
   return result.time_limit_reached ? kExitTimeLimitNoDesign : kExitInfeasible;
 }
 
-StudyCase load_study_for_cli(const std::string& path) { return load_study_file(path); }
+StudyCase load_study_for_cli(const std::string& path) {
+  LoadedStudy loaded = load_study_details_file(path);
+  report::write_check_notes_text(std::cerr, loaded.notes);  // the notes check shows, on stderr
+  return std::move(loaded.study);
+}
 
 }  // namespace stowage::cli

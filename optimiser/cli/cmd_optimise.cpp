@@ -17,6 +17,7 @@
 #include "optimiser/cli/cli_support.h"
 #include "optimiser/cli/command.h"
 #include "optimiser/optimise.h"
+#include "optimiser/report/check_report.h"
 #include "optimiser/report/design_report.h"
 #include "optimiser/report/optimise_report.h"
 #include "optimiser/report/output_set.h"
@@ -134,6 +135,7 @@ void register_optimise(CLI::App& app, int& exit_code) {
       std::optional<report::OutputFile> model_file;
       if (args->export_model_given) model_file.emplace("--export-model", args->export_model);
       const LoadedStudy loaded = load_study_details_file(args->study_path);
+      report::write_check_notes_text(std::cerr, loaded.notes);  // as check shows them
       const StudyCase& study = loaded.study;
       if (model_file) {
         if (build_design_space(study).admissible_choices() == 0) {

@@ -58,4 +58,26 @@ expect_exit 2 -- "$STOWAGE" check "$SRC/tests/catalog-schema/bad-inputs/75-desig
 expect_exit 2 -- "$STOWAGE" check --format json "$WORK/missing.yaml" &&
   "$PY" -c 'import json,sys; d=json.load(open(sys.argv[1])); assert len(d["problems"]) == 1 and d["problems"][0]["field"] == "study"' "$WORK/out" ||
   fail "missing study in JSON"
+
+# evaluate and optimise show the loader's notes on stderr as check does (issue 8, item 4):
+# an extra column in the hourly CSV is ignored with a note, not silently.
+mkdir -p "$WORK/notes" && cp "$SRC"/tests/catalog-schema/fixtures/*.yaml "$WORK/notes/" &&
+  "$PY" - "$SRC/tests/catalog-schema/fixtures/hourly.csv" "$WORK/notes/hourly.csv" <<'PY'
+import sys
+rows = open(sys.argv[1]).read().splitlines()
+out = []
+header_done = False
+for r in rows:
+    if r.startswith("#") or not r.strip():
+        out.append(r)
+    elif not header_done:
+        out.append(r + ",irradiance_w_m2"); header_done = True
+    else:
+        out.append(r + ",0")
+open(sys.argv[2], "w").write("\n".join(out) + "\n")
+PY
+for cmd in evaluate optimise; do
+  expect_exit 0 -- "$STOWAGE" $cmd "$WORK/notes/study.yaml" &&
+    { grep -q 'irradiance_w_m2' "$WORK/err" || fail "$cmd shows no note for the ignored column: $(head -c 300 "$WORK/err")"; }
+done
 finish
