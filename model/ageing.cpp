@@ -16,9 +16,67 @@ AccelerationSeries acceleration_series(const ChemistryProfile& profile,
     a.calendar_per_hour[h] = profile.temperature.calendar_acceleration(temp_c[h]);
     sum += a.calendar_per_hour[h];
   }
+  const double per_hour_life = 1.0 / (profile.calendar_life_years * kHoursPerYear);
   a.calendar_damage_per_year =
       sum / (profile.calendar_life_years * static_cast<double>(kHoursPerYear));
+  const std::size_t month_hours = static_cast<std::size_t>(kHoursPerMonth);
+  for (std::size_t first = 0; first + month_hours <= a.calendar_per_hour.size();
+       first += month_hours) {
+    double month = 0;
+    for (std::size_t h = first; h < first + month_hours; ++h) month += a.calendar_per_hour[h];
+    a.calendar_damage_per_month.push_back(month * per_hour_life);
+  }
   return a;
+}
+
+void CycleDamageMeter::start(const ChemistryProfile& profile,
+                             const AccelerationSeries& acceleration, const double* soc_trace,
+                             std::size_t first) {
+  profile_ = &profile;
+  stream_.reset(soc_trace, acceleration.per_hour.data(), first);
+  closed_ = 0;
+}
+
+void CycleDamageMeter::extend(std::size_t end) {
+  const CycleLifeCurve& curve = profile_->cycle_life;
+  stream_.extend(end, [&](const RainflowCycle& c) {
+    closed_ += c.count * c.leg_weight * curve.damage_per_cycle(c.depth);
+  });
+}
+
+double CycleDamageMeter::provisional() {
+  const CycleLifeCurve& curve = profile_->cycle_life;
+  double d = closed_;
+  stream_.emit_residue([&](const RainflowCycle& c) {
+    d += c.count * c.leg_weight * curve.damage_per_cycle(c.depth);
+  });
+  return d;
+}
+
+double CycleDamageMeter::close() {
+  const CycleLifeCurve& curve = profile_->cycle_life;
+  stream_.close([&](const RainflowCycle& c) {
+    closed_ += c.count * c.leg_weight * curve.damage_per_cycle(c.depth);
+  });
+  return closed_;
+}
+
+double calendar_damage(const ChemistryProfile& profile, const AccelerationSeries& acceleration,
+                       const double* soc_trace, std::size_t first, std::size_t end) {
+  const double per_hour_life = 1.0 / (profile.calendar_life_years * kHoursPerYear);
+  const double* a = acceleration.calendar_per_hour.data();
+  double sum = 0;
+  if (profile.calendar_soc_stress) {
+    const CalendarSocStress& stress = *profile.calendar_soc_stress;
+    for (std::size_t h = first; h < end; ++h)
+      sum += a[h] * stress.multiplier(0.5 * (soc_trace[h] + soc_trace[h + 1]));
+  } else {
+    const std::size_t month_hours = static_cast<std::size_t>(kHoursPerMonth);
+    if (first % month_hours == 0 && end == first + month_hours)
+      return acceleration.calendar_damage_per_month[first / month_hours];
+    for (std::size_t h = first; h < end; ++h) sum += a[h];
+  }
+  return sum * per_hour_life;
 }
 
 YearDamage year_damage(const ChemistryProfile& profile, const AccelerationSeries& acceleration,

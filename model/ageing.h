@@ -37,9 +37,39 @@ struct AccelerationSeries {
   // sum calendar_per_hour / (calendar_life_years x 8760): the year's calendar damage at the
   // reference SOC (the whole of it when the profile has no SOC stress).
   double calendar_damage_per_year = 0;
+  // The same sum over each 730-hour month of the year, 12 values.
+  std::vector<double> calendar_damage_per_month;
 };
 AccelerationSeries acceleration_series(const ChemistryProfile& profile,
                                        const std::vector<double>& temp_c);
+
+// Cycle damage of one bank's SOC history within a year as the history grows (month by month):
+// the rainflow cycles closed so far are booked as they close, and provisional() adds the
+// residue's half cycles, so at the end of the history it equals the cycle damage year_damage()
+// gives for the whole trace. Trace index h is the state at the start of hour h of the year (the
+// weight of step h is the acceleration of hour h); the trace buffer must outlive the history.
+class CycleDamageMeter {
+ public:
+  // A new history starting at soc_trace[first]; the profile and series must outlive it.
+  void start(const ChemistryProfile& profile, const AccelerationSeries& acceleration,
+             const double* soc_trace, std::size_t first);
+  // The trace now holds the points up to (not including) index end.
+  void extend(std::size_t end);
+  // Damage of the cycles closed so far plus the residue counted as half cycles.
+  double provisional();
+  // The history's final cycle damage (as provisional()); ends the history.
+  double close();
+
+ private:
+  const ChemistryProfile* profile_ = nullptr;
+  RainflowStream stream_;
+  double closed_ = 0;
+};
+
+// Calendar damage of the hours [first, end) of a year with the SOC trace `soc_trace` (index h:
+// the state at the start of hour h): the calendar term of the header, over those hours.
+double calendar_damage(const ChemistryProfile& profile, const AccelerationSeries& acceleration,
+                       const double* soc_trace, std::size_t first, std::size_t end);
 
 // `soc_trace` has 8761 points (start of year and after each hour, as from dispatch_year).
 YearDamage year_damage(const ChemistryProfile& profile, const AccelerationSeries& acceleration,

@@ -65,8 +65,45 @@ double largest_feasible_current(Room&& room, double lo, double hi) {
 
 }  // namespace
 
-YearDispatch dispatch_year(const DispatchInputs& in, DispatchState& state,
+void YearDispatch::add(const YearDispatch& o) {
+  demand_kwh += o.demand_kwh;
+  source_to_load_kwh += o.source_to_load_kwh;
+  charge_source_kwh += o.charge_source_kwh;
+  charge_cost += o.charge_cost;
+  charged_terminal_kwh += o.charged_terminal_kwh;
+  discharged_terminal_kwh += o.discharged_terminal_kwh;
+  delivered_kwh += o.delivered_kwh;
+  backup_kwh += o.backup_kwh;
+  unserved_kwh += o.unserved_kwh;
+  curtailed_kwh += o.curtailed_kwh;
+  equivalent_full_cycles += o.equivalent_full_cycles;
+  partial_charge_excess_days += o.partial_charge_excess_days;
+  charge_blocked_by_temperature_hours += o.charge_blocked_by_temperature_hours;
+  discharge_blocked_by_temperature_hours += o.discharge_blocked_by_temperature_hours;
+  auxiliary_kwh += o.auxiliary_kwh;
+  auxiliary_source_kwh += o.auxiliary_source_kwh;
+  auxiliary_bank_kwh += o.auxiliary_bank_kwh;
+  auxiliary_unmet_kwh += o.auxiliary_unmet_kwh;
+}
+
+YearDispatch dispatch_year(const DispatchInputs& given, DispatchState& state,
                            std::vector<double>& soc_trace) {
+  DispatchInputs in = given;
+  HourlyFactors local;
+  if (in.factors == nullptr) {
+    local = hourly_factors(*in.profile, *in.site);
+    in.factors = &local;
+  }
+  soc_trace.resize(static_cast<std::size_t>(kHoursPerYear) + 1);
+  YearDispatch y =
+      dispatch_hours(in, state, soc_trace.data(), 0, static_cast<std::size_t>(kHoursPerYear));
+  y.demand_kwh = in.factors->demand_kwh;
+  y.source_to_load_kwh = in.factors->source_to_load_kwh;
+  return y;
+}
+
+YearDispatch dispatch_hours(const DispatchInputs& in, DispatchState& state, double* soc_trace,
+                            std::size_t first, std::size_t end) {
   const ChemistryProfile& p = *in.profile;
   const SiteConditions& site = *in.site;
   HourlyFactors local;
@@ -114,19 +151,18 @@ YearDispatch dispatch_year(const DispatchInputs& in, DispatchState& state,
   const double aux_amps_per_kwh = 1000.0 / v_discharge;
   const double aux_floor_ah = (1.0 - dod) * q_ah;
 
-  soc_trace.resize(static_cast<std::size_t>(kHoursPerYear) + 1);
-  double* trace = soc_trace.data();
+  double* trace = soc_trace;
   double soc = state.soc;
   double hours_since_full = state.hours_since_full_charge;
   double excess_hours = 0;
-  trace[0] = soc;
+  trace[first] = soc;
   // Running sums kept in registers, stored once at the end.
   double charge_source = 0, charge_cost = 0, charged_terminal = 0, discharged_terminal = 0;
   double charge_blocked_hours = 0, discharge_blocked_hours = 0;
   double delivered_sum = 0, backup = 0, unserved = 0, curtailed = 0, full_cycles = 0;
   double aux_sum = 0, aux_source = 0, aux_bank = 0, aux_unmet = 0;
 
-  for (std::size_t h = 0; h < static_cast<std::size_t>(kHoursPerYear); ++h) {
+  for (std::size_t h = first; h < end; ++h) {
     soc *= keep_per_hour;
     const double surplus = balance[h].surplus_kwh;
     const double deficit = balance[h].deficit_kwh;
@@ -222,8 +258,6 @@ YearDispatch dispatch_year(const DispatchInputs& in, DispatchState& state,
   }
 
   YearDispatch y;
-  y.demand_kwh = hf.demand_kwh;
-  y.source_to_load_kwh = hf.source_to_load_kwh;
   y.charge_source_kwh = charge_source;
   y.charge_cost = charge_cost;
   y.charged_terminal_kwh = charged_terminal;

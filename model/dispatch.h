@@ -73,6 +73,8 @@ struct YearDispatch {
   // unmet; kWh.
   double auxiliary_kwh = 0, auxiliary_source_kwh = 0, auxiliary_bank_kwh = 0,
          auxiliary_unmet_kwh = 0;
+  // Adds the sums of `o` (hours that follow or precede these) to these.
+  void add(const YearDispatch& o);
   double temperature_idle_hours() const {
     return charge_blocked_by_temperature_hours + discharge_blocked_by_temperature_hours;
   }
@@ -107,5 +109,13 @@ struct DispatchInputs {
 // `state` is read as the start and updated to the end of the year.
 YearDispatch dispatch_year(const DispatchInputs& in, DispatchState& state,
                            std::vector<double>& soc_trace);
+
+// Dispatches the hours [first, end) of the year (end <= 8760), as dispatch_year does for all of
+// them: sets soc_trace[first] = state.soc and soc_trace[h + 1] to the SOC after hour h, which
+// the buffer must hold; updates `state`. Returns the sums over these hours, except demand_kwh
+// and source_to_load_kwh, which stay 0 (the year's are in HourlyFactors). dispatch_year's
+// result equals the add() of consecutive ranges covering the year, to the rounding of the sums.
+YearDispatch dispatch_hours(const DispatchInputs& in, DispatchState& state, double* soc_trace,
+                            std::size_t first, std::size_t end);
 
 }  // namespace stowage

@@ -17,6 +17,7 @@ namespace {
 constexpr double kEndOfLifeTolerance = 1e-9;
 // Guards the integer count of banks replaced in one year against absurd inputs.
 constexpr double kMaxReplacementsPerYear = 1e6;
+constexpr int kMonthsPerYear = 12;
 }  // namespace
 
 double DesignResult::mean_discharged_kwh_per_year() const {
@@ -49,14 +50,79 @@ LifecycleEvaluator::LifecycleEvaluator(const ChemistryProfile& profile, const Si
       acceleration_(acceleration_series(profile, site.temp_c)),
       factors_(hourly_factors(profile, site)) {}
 
-DesignResult LifecycleEvaluator::evaluate(double dod_setpoint, int strings_parallel) {
-  constexpr double kNoLimit = std::numeric_limits<double>::infinity();
-  return std::move(*evaluate_unless_above(dod_setpoint, strings_parallel, kNoLimit).result);
+void LifecycleEvaluator::operate_year(DispatchInputs& in, bool last_year, const DesignCosts& costs,
+                                      DesignResult& r, YearRecord& rec, DispatchState& state,
+                                      Bank& bank) {
+  const ChemistryProfile& p = *profile_;
+  const std::size_t month_hours = static_cast<std::size_t>(kHoursPerMonth);
+  const double damage_per_extra_day = p.partial_charge ? p.partial_charge->damage_per_extra_day : 0;
+  double* trace = soc_trace_.data();
+  // The damage the bank in service had when its history within this year began, and that
+  // history's calendar and partial-charge damage so far.
+  double base = bank.damage, calendar = 0, partial = 0;
+  trace[0] = state.soc;
+  meter_.start(p, acceleration_, trace, 0);
+  auto book_history = [&](double cycle) {
+    rec.damage_cycle += cycle;
+    rec.damage_calendar += calendar;
+    rec.damage_partial_charge += partial;
+  };
+  for (int month = 1; month <= kMonthsPerYear; ++month) {
+    const std::size_t first = static_cast<std::size_t>(month - 1) * month_hours;
+    const std::size_t end = first + month_hours;
+    in.health = health_from_damage(p, bank.damage);
+    const YearDispatch m = dispatch_hours(in, state, trace, first, end);
+    rec.dispatch.add(m);
+    meter_.extend(end + 1);
+    calendar += calendar_damage(p, acceleration_, trace, first, end);
+    partial += m.partial_charge_excess_days * damage_per_extra_day;
+    bank.age_hours += kHoursPerMonth;
+    const double cycle = meter_.provisional();
+    bank.damage = base + cycle + calendar + partial;
+    rec.damage_peak = std::max(rec.damage_peak, bank.damage);
+
+    const bool worn_out = bank.damage >= 1.0 - kEndOfLifeTolerance;
+    const bool too_old =
+        p.max_service_years &&
+        bank.age_hours >= *p.max_service_years * kHoursPerYear - kEndOfLifeTolerance;
+    const bool project_ends = last_year && month == kMonthsPerYear;
+    if (!(worn_out || too_old) || project_ends) continue;
+    // Replaced at the end of this month. A bank that wears out several times over in one month
+    // (damage 2.4, say) was replaced twice during it; the wear of the bank that went in last is
+    // carried into the new one.
+    book_history(meter_.close());
+    const double whole = std::floor(bank.damage + kEndOfLifeTolerance);
+    const int banks = worn_out ? static_cast<int>(std::min(whole, kMaxReplacementsPerYear)) : 1;
+    rec.replacements += banks;
+    rec.replaced_worn_out = rec.replaced_worn_out || worn_out;
+    rec.replacement += banks * costs.replacement_price(r.investment, rec.year);
+    rec.end_of_life += banks * costs.replacement_end_of_life(r.bank.nameplate_kwh);
+    for (int i = 0; i < banks; ++i) {
+      r.replacement_years.push_back(rec.year);
+      r.replacement_months.push_back(month);
+      rec.replacement_months.push_back(month);
+    }
+    bank.damage = worn_out ? std::max(0.0, bank.damage - banks) : 0.0;
+    bank.age_hours = 0;
+    state = DispatchState{};
+    base = bank.damage;
+    calendar = partial = 0;
+    trace[end] = state.soc;
+    meter_.start(p, acceleration_, trace, end);
+  }
+  book_history(meter_.close());
 }
 
-LifecycleEvaluator::Bounded LifecycleEvaluator::evaluate_unless_above(double dod_setpoint,
-                                                                      int strings_parallel,
-                                                                      double npc_limit) {
+DesignResult LifecycleEvaluator::evaluate(double dod_setpoint, int strings_parallel,
+                                          std::vector<double>* first_year_soc) {
+  constexpr double kNoLimit = std::numeric_limits<double>::infinity();
+  return std::move(
+      *evaluate_unless_above(dod_setpoint, strings_parallel, kNoLimit, first_year_soc).result);
+}
+
+LifecycleEvaluator::Bounded LifecycleEvaluator::evaluate_unless_above(
+    double dod_setpoint, int strings_parallel, double npc_limit,
+    std::vector<double>* first_year_soc) {
   require_dod_setpoint(dod_setpoint);
   const ChemistryProfile& p = *profile_;
   const SiteConditions& site = *site_;
@@ -82,18 +148,18 @@ LifecycleEvaluator::Bounded LifecycleEvaluator::evaluate_unless_above(double dod
   in.factors = &factors_;
 
   DispatchState state;
-  double damage = 0;                             // of the bank in service
-  int age_years = 0;                             // of the bank in service
+  Bank bank;                                     // the bank in service
   double final_year = econ.project_years + 1.0;  // when the last bank's end-of-life flow falls
   CostBreakdown& pv = r.present_value;
   pv.investment = r.investment;
   r.years.reserve(static_cast<std::size_t>(econ.project_years));
+  soc_trace_.resize(static_cast<std::size_t>(kHoursPerYear) + 1);
 
   // Early stop (lifecycle.h): the credits still to come, and whether a replacement can be one.
-  // The price path is monotone, so its least over the replacement years 1 .. N-1 is at an end.
+  // The price path is monotone, so its least over the replacement years 1 .. N is at an end.
   const double least_replacement_price =
       std::min(costs.replacement_price(r.investment, 1.0),
-               costs.replacement_price(r.investment, econ.project_years - 1.0));
+               costs.replacement_price(r.investment, econ.project_years));
   const bool may_stop = npc_limit < std::numeric_limits<double>::infinity() &&
                         least_replacement_price + replacement_end_of_life_cost >= 0;
   const double credits_to_come =
@@ -106,17 +172,12 @@ LifecycleEvaluator::Bounded LifecycleEvaluator::evaluate_unless_above(double dod
   for (int year = 1; year <= econ.project_years; ++year) {
     YearRecord rec;
     rec.year = year;
-    rec.health_start = health_from_damage(p, damage);
-    in.health = rec.health_start;
-    rec.dispatch = dispatch_year(in, state, soc_trace_);
-    const YearDamage d = year_damage(p, acceleration_, soc_trace_,
-                                     rec.dispatch.partial_charge_excess_days, scratch_);
-    rec.damage_cycle = d.cycle;
-    rec.damage_calendar = d.calendar;
-    rec.damage_partial_charge = d.partial_charge;
-    damage += d.total();
-    age_years += 1;
-    rec.damage_end = damage;
+    rec.health_start = health_from_damage(p, bank.damage);
+    operate_year(in, year == econ.project_years, costs, r, rec, state, bank);
+    if (year == 1 && first_year_soc != nullptr) *first_year_soc = soc_trace_;
+    rec.dispatch.demand_kwh = factors_.demand_kwh;
+    rec.dispatch.source_to_load_kwh = factors_.source_to_load_kwh;
+    rec.damage_end = bank.damage;
 
     rec.fixed_om = costs.fixed_om_per_year(nameplate);
     rec.variable_om = costs.variable_om(rec.dispatch.discharged_terminal_kwh);
@@ -125,27 +186,9 @@ LifecycleEvaluator::Bounded LifecycleEvaluator::evaluate_unless_above(double dod
         site.backup_price_per_kwh ? rec.dispatch.backup_kwh * *site.backup_price_per_kwh : 0.0;
     rec.unserved_penalty = rec.dispatch.unserved_kwh * site.unserved_penalty_per_kwh;
 
-    const bool worn_out = damage >= 1.0 - kEndOfLifeTolerance;
-    const bool too_old = p.max_service_years && static_cast<double>(age_years) >=
-                                                    *p.max_service_years - kEndOfLifeTolerance;
-    if ((worn_out || too_old) && year < econ.project_years) {
-      // A bank that wears out several times over in one year (damage 2.4, say) was replaced
-      // twice during it; the wear of the bank that went in last is carried into next year.
-      const double whole = std::floor(damage + kEndOfLifeTolerance);
-      const int banks = worn_out ? static_cast<int>(std::min(whole, kMaxReplacementsPerYear)) : 1;
-      const double price = costs.replacement_price(r.investment, year);
-      rec.replaced_at_end = true;
-      rec.replacements = banks;
-      rec.replacement = banks * price;
-      rec.end_of_life = banks * replacement_end_of_life_cost;
-      for (int i = 0; i < banks; ++i) r.replacement_years.push_back(year);
-      damage = worn_out ? std::max(0.0, damage - banks) : 0.0;
-      age_years = 0;
-      state = DispatchState{};
-    }
-
     if (year == econ.project_years) {
-      double used = std::min(1.0, damage);
+      const double age_years = bank.age_hours / kHoursPerYear;
+      double used = std::min(1.0, bank.damage);
       if (p.max_service_years) used = std::max(used, age_years / *p.max_service_years);
       const double remaining = 1.0 - used;
       if (remaining > 0) {

@@ -34,6 +34,7 @@
 #include "model/ageing.h"
 #include "model/bank.h"
 #include "model/chemistry_profile.h"
+#include "model/costs.h"
 #include "model/dispatch.h"
 #include "model/economics.h"
 #include "model/site.h"
@@ -63,12 +64,17 @@ struct CostBreakdown {
 // plus the year-0 investment and the year N+1 end-of-life flow in the result.
 struct YearRecord {
   int year = 0;
-  double health_start = 1;  // capacity fraction during the year
+  double health_start = 1;  // capacity fraction at the start of the year (of its first month)
+  // Damage done in the year, summed over the banks that served in it.
   double damage_cycle = 0, damage_calendar = 0, damage_partial_charge = 0;
-  double damage_end = 0;  // accumulated damage of the bank in service at year end
-  bool replaced_at_end = false;
-  int replacements = 0;  // banks replaced at the end of this year (more than 1 when the
-                         // bank wears out several times over within the year)
+  double damage_end = 0;   // accumulated damage of the bank that serves on after the year
+  double damage_peak = 0;  // most damage a bank reached at a month end of the year (before a
+                           // replacement then): the year's lowest health
+  int replacements = 0;    // banks replaced in the year (several when the bank wears out more
+                           // than once within it)
+  std::vector<int> replacement_months;  // the month (1-12) of each, in order
+  bool replaced_worn_out = false;       // one of them was worn out (not only too old)
+  bool replaced() const { return replacements > 0; }
   YearDispatch dispatch;
   double fixed_om = 0, variable_om = 0, charging = 0, backup = 0, unserved_penalty = 0;
   double replacement = 0, end_of_life = 0, residual_value = 0;
@@ -84,7 +90,8 @@ struct DesignResult {
   double dod_setpoint = 0;
   BankGeometry bank;
   std::string currency;
-  std::vector<int> replacement_years;
+  std::vector<int> replacement_years;   // project year of each replacement, in order
+  std::vector<int> replacement_months;  // its month within that year, 1-12 (parallel list)
   std::vector<YearRecord> years;
   double investment = 0;                   // year 0
   double final_end_of_life = 0;            // end-of-life flow of the last bank, undiscounted
@@ -130,8 +137,12 @@ class LifecycleEvaluator {
   LifecycleEvaluator(const ChemistryProfile& profile, const SiteConditions& site,
                      const Economics& economics);
 
-  // Throws ContractViolation for a DoD setpoint outside (0, 1] or strings < 1.
-  DesignResult evaluate(double dod_setpoint, int strings_parallel);
+  // Throws ContractViolation for a DoD setpoint outside (0, 1] or strings < 1. When
+  // `first_year_soc` is given it receives the SOC trace of project year 1 (8761 points: the
+  // start and the end of each hour; a replacement within the year shows as the new bank's
+  // full start at the end of that month).
+  DesignResult evaluate(double dod_setpoint, int strings_parallel,
+                        std::vector<double>* first_year_soc = nullptr);
 
   // The design's exact result, unless its NPC must exceed `npc_limit`: then the simulation
   // stops at the first year-end where
@@ -146,19 +157,32 @@ class LifecycleEvaluator {
     double npc_lower_bound = 0;          // the exact NPC when `result` is set
     int years_simulated = 0;
   };
-  Bounded evaluate_unless_above(double dod_setpoint, int strings_parallel, double npc_limit);
+  Bounded evaluate_unless_above(double dod_setpoint, int strings_parallel, double npc_limit,
+                                std::vector<double>* first_year_soc = nullptr);
 
   const ChemistryProfile& profile() const { return *profile_; }
   const AccelerationSeries& acceleration() const { return acceleration_; }
 
  private:
+  // The bank in service: damage accumulated (Miner's sum) and hours in service.
+  struct Bank {
+    double damage = 0;
+    double age_hours = 0;
+  };
+  // Runs one year month by month (12 x 730 h): each month dispatches at the health the bank
+  // has at its start, ages the bank, and replaces it at the month's end when it is worn out or
+  // too old (not at the very end of the project). Fills the dispatch, damage and replacement
+  // fields of `rec`, appends replacements to `r`, updates `state` and `bank`.
+  void operate_year(DispatchInputs& in, bool last_year, const DesignCosts& costs, DesignResult& r,
+                    YearRecord& rec, DispatchState& state, Bank& bank);
+
   const ChemistryProfile* profile_;
   const SiteConditions* site_;
   const Economics* economics_;
   AccelerationSeries acceleration_;
   HourlyFactors factors_;
   std::vector<double> soc_trace_;
-  RainflowScratch scratch_;
+  CycleDamageMeter meter_;
 };
 
 }  // namespace stowage

@@ -54,18 +54,58 @@ struct RainflowLeg {
   std::size_t head = 0;
 };
 
-// Working memory for count_cycles(), reused across calls so hot loops do not allocate.
-struct RainflowScratch {
-  std::vector<std::size_t> reversals;
-  std::vector<std::size_t> stack;
-  // Leg attribution: legs[j] is the pool entry holding the leg between stack[j] and
-  // stack[j + 1]; `spare` lists pool entries free for reuse; weighted_prefix[i] is the sum of
-  // w_k |x_{k+1} - x_k| over the steps k < i.
-  std::vector<std::size_t> legs;
-  std::vector<RainflowLeg> pool;
-  std::vector<std::size_t> spare;
-  std::vector<double> weighted_prefix;
+// Rainflow counting of a history that grows point by point, as when a bank's SOC trace is
+// produced month by month: extend() takes the points now present and emits every cycle they
+// close; emit_residue() emits what closing the history at its latest point would add (the
+// residue's half cycles) without changing the stream; close() emits it and ends the history.
+// reset(x, w, start); extend(n); close() counts x[start..n) exactly as count_cycles() does, and
+// after extend(m) the cycles emitted so far plus emit_residue() are what count_cycles() gives
+// for the history up to m. The stream reads the points (and weights) from the caller's buffers:
+// x[start..end) and, with weights, w[start..end - 1) must stay valid and unchanged while the
+// history runs. Reuse one stream across histories: its memory is kept.
+class RainflowStream {
+ public:
+  // Starts a history at x[start]; `w` is null (no leg attribution) or the step weights, w[i]
+  // the weight of step i -> i+1.
+  void reset(const double* x, const double* w, std::size_t start);
+  // The history now holds x[start..end), end > start; emits the cycles this closes.
+  template <typename Sink>
+  void extend(std::size_t end, Sink&& sink);
+  // Emits the cycles closing the history now would add; the stream is unchanged.
+  template <typename Sink>
+  void emit_residue(Sink&& sink);
+  // Emits the residue and ends the history (reset() starts the next one).
+  template <typename Sink>
+  void close(Sink&& sink);
+
+  // The stack and legs of the counting, copied whole by emit_residue().
+  struct State {
+    std::vector<std::size_t> stack;  // reversals not yet closed; stack[0] is the start point S
+    // legs[j]: the pool entry of the leg between stack[j] and stack[j + 1]; `spare` lists
+    // pool entries free for reuse.
+    std::vector<std::size_t> legs;
+    std::vector<RainflowLeg> pool;
+    std::vector<std::size_t> spare;
+  };
+
+ private:
+  template <typename Sink>
+  void push_reversal(State& s, std::size_t r, Sink& sink) const;
+  template <typename Sink>
+  void finish(State& s, Sink& sink) const;
+
+  const double* x_ = nullptr;
+  const double* w_ = nullptr;
+  std::size_t next_ = 0;         // first point not yet taken
+  std::size_t last_ = 0;         // latest point that differs from its predecessor
+  std::size_t last_pushed_ = 0;  // latest reversal pushed onto the stack
+  int direction_ = 0;            // +1 rising, -1 falling, 0 not yet known
+  std::vector<double> prefix_;   // prefix_[i]: sum of w_k |x_{k+1} - x_k| over start <= k < i
+  State state_, shadow_;
 };
+
+// Working memory for count_cycles(), reused across calls so hot loops do not allocate.
+using RainflowScratch = RainflowStream;
 
 // Counts the cycles of `series[0..n)` and calls `sink(const RainflowCycle&)` for each, in the
 // order they are closed. `step_weight` is null (no leg attribution) or has n - 1 values, the

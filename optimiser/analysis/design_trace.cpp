@@ -11,15 +11,13 @@ DesignTrace trace_first_year(const Study& study, const DesignResult& design) {
   if (design.years.empty()) throw ContractViolation("design.years", "must not be empty");
   const ChemistryProfile& profile = study.profiles[*index];
 
-  DispatchInputs in;
-  in.profile = &profile;
-  in.site = &study.site;
-  in.bank = design.bank;
-  in.dod_setpoint = design.dod_setpoint;
-  in.health = design.years.front().health_start;
-  DispatchState state;  // year 1 starts full, as the lifecycle's does
+  // The lifecycle itself re-run for this design: its first year, month by month at the health
+  // of each month, is the year that was priced.
+  LifecycleEvaluator evaluator(profile, study.site, study.economics);
   DesignTrace trace;
-  trace.first_year = dispatch_year(in, state, trace.soc);
+  const DesignResult again =
+      evaluator.evaluate(design.dod_setpoint, design.bank.strings_parallel, &trace.soc);
+  trace.first_year = again.years.front().dispatch;
   // 20 bins: a 5 %-of-capacity resolution of depth.
   trace.cycles = summarise_cycles(trace.soc, 20);
   trace.temp_c = study.site.temp_c;

@@ -2,8 +2,9 @@
 // trace_first_year(): the hour-by-hour picture of one evaluated design in its first project
 // year, for the report's charts (SOC heat map, rainflow depth histogram, temperature effects).
 // DesignResult keeps only yearly figures, so this re-runs the model's public API with the
-// design's own choices and nothing else: dispatch_year (model/dispatch.h) at the design's
-// bank, setpoint and first-year health from a full bank, the rainflow count of that SOC trace
+// design's own choices and nothing else: the lifecycle evaluation (model/lifecycle.h) of the
+// design's bank and setpoint, which hands back its first year's SOC trace (dispatched month by
+// month at each month's health), the rainflow count of that SOC trace
 // (model/duty_cycles.h, ASTM E1049-85), and the profile's available-capacity factor and
 // ageing acceleration at each hour's site temperature (model/temperature_behaviour.h).
 // The year's totals equal DesignResult::years.front().dispatch (a test checks this), so the

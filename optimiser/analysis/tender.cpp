@@ -43,8 +43,8 @@ void apply_replacement_warranty(BidResult& b) {
   DesignResult& r = b.design;
   CostBreakdown& pv = r.present_value;
   for (YearRecord& rec : r.years) {
-    if (!rec.replaced_at_end) continue;
-    const bool worn = rec.damage_end >= 1.0 - 1e-9;
+    if (!rec.replaced()) continue;
+    const bool worn = rec.replaced_worn_out;
     const bool covered = worn && within(rec.year, b.warranty.years);
     (covered ? b.supplier_paid_years : b.buyer_paid_years).push_back(rec.year);
     if (!covered) continue;
@@ -80,7 +80,7 @@ void apply_availability(BidResult& b, double availability, double backup_price_p
 std::vector<double> health_at_year_ends(const DesignResult& r, const ChemistryProfile& profile) {
   std::vector<double> health;
   for (const YearRecord& rec : r.years)
-    health.push_back(health_from_damage(profile, rec.damage_end));
+    health.push_back(health_from_damage(profile, rec.damage_peak));
   return health;
 }
 
@@ -91,7 +91,7 @@ void check_requirements(BidResult& b, const Bid& bid, const ChemistryProfile& pr
   b.least_usable_kwh = kInf;
   int worst_year = 0;
   for (const YearRecord& rec : r.years) {
-    double health = health_from_damage(profile, rec.damage_end);
+    double health = health_from_damage(profile, rec.damage_peak);
     if (top_up && within(rec.year, b.warranty.years)) {
       health = std::max(health, warranted_capacity(bid.warranty, rec.year));
     }

@@ -11,6 +11,7 @@
 
 #include "optimiser/report/cost_lines.h"
 #include "optimiser/report/number_format.h"
+#include "optimiser/report/report_document.h"
 #include "stowage_version.h"
 
 namespace stowage::report {
@@ -56,6 +57,9 @@ void write_design_json(JsonWriter& json, const DesignResult& d, const Requiremen
   json.field("currency", d.currency);
   json.key("replacement_years").begin_array();
   for (int y : d.replacement_years) json.value(y);
+  json.end_array();
+  json.key("replacement_months").begin_array();
+  for (int m : d.replacement_months) json.value(m);
   json.end_array();
   json.field("discharged_kwh_per_year", d.mean_discharged_kwh_per_year());
   json.field("discharged_kwh_first_year", d.discharged_kwh_first_year());
@@ -138,8 +142,9 @@ void print_design_table(std::ostream& out, const DesignResult& d, const Requirem
                format_amount(check->peak_kw, 1), format_amount(check->power_kw, 1),
                check->peak_strings);
   fmt::print(out, "  replacements  {}\n",
-             d.replacement_years.empty() ? std::string("none within the project")
-                                         : "end of year " + years_text(d.replacement_years, ", "));
+             d.replacement_years.empty()
+                 ? std::string("none within the project")
+                 : "end of " + replacement_times(d.replacement_years, d.replacement_months));
   if (!d.meets_unserved_limit)
     fmt::print(
         out, "  WARNING       unserved energy reaches {:.3f} % of demand, above the site's limit\n",
@@ -230,24 +235,24 @@ void write_designs_csv(std::ostream& out, const std::vector<DesignResult>& desig
 
 void write_cash_flows_csv(std::ostream& out, const std::vector<DesignResult>& designs) {
   out << "profile,dod_setpoint,strings_parallel,year,row,discount_time_years,health_start,"
-         "damage_cycle,damage_calendar,damage_partial_charge,damage_end,replaced_at_end,"
+         "damage_cycle,damage_calendar,damage_partial_charge,damage_end,replacements,"
          "discharged_kwh,charge_source_kwh,backup_kwh,unserved_kwh,curtailed_kwh,investment,"
          "replacement,fixed_om,variable_om,charging,backup,unserved_penalty,end_of_life,"
          "residual_value,total,discount_factor,present_value,auxiliary_kwh,auxiliary_source_kwh,"
-         "auxiliary_bank_kwh,auxiliary_unmet_kwh\n";
+         "auxiliary_bank_kwh,auxiliary_unmet_kwh,damage_peak,replacement_months\n";
   for (const auto& d : designs) {
     const std::string id = d.profile_id + ',' + csv_number(d.dod_setpoint) + ',' +
                            std::to_string(d.bank.strings_parallel);
     // Year 0: the investment.
     out << id << ",0,investment,0,,,,,,,,,,,," << csv_number(d.investment) << ",,,,,,,,,"
-        << csv_number(d.investment) << ",1," << csv_number(d.investment) << ",,,,\n";
+        << csv_number(d.investment) << ",1," << csv_number(d.investment) << ",,,,,,\n";
     for (const auto& y : d.years) {
       out << id << ',' << y.year << ",operation," << y.year << ',' << csv_number(y.health_start)
           << ',' << csv_number(y.damage_cycle) << ',' << csv_number(y.damage_calendar) << ','
           << csv_number(y.damage_partial_charge) << ',' << csv_number(y.damage_end) << ','
-          << csv_bool(y.replaced_at_end) << ',' << csv_number(y.dispatch.discharged_terminal_kwh)
-          << ',' << csv_number(y.dispatch.charge_source_kwh) << ','
-          << csv_number(y.dispatch.backup_kwh) << ',' << csv_number(y.dispatch.unserved_kwh) << ','
+          << y.replacements << ',' << csv_number(y.dispatch.discharged_terminal_kwh) << ','
+          << csv_number(y.dispatch.charge_source_kwh) << ',' << csv_number(y.dispatch.backup_kwh)
+          << ',' << csv_number(y.dispatch.unserved_kwh) << ','
           << csv_number(y.dispatch.curtailed_kwh) << ",0," << csv_number(y.replacement) << ','
           << csv_number(y.fixed_om) << ',' << csv_number(y.variable_om) << ','
           << csv_number(y.charging) << ',' << csv_number(y.backup) << ','
@@ -257,7 +262,8 @@ void write_cash_flows_csv(std::ostream& out, const std::vector<DesignResult>& de
           << ',' << csv_number(y.dispatch.auxiliary_kwh) << ','
           << csv_number(y.dispatch.auxiliary_source_kwh) << ','
           << csv_number(y.dispatch.auxiliary_bank_kwh) << ','
-          << csv_number(y.dispatch.auxiliary_unmet_kwh) << "\n";
+          << csv_number(y.dispatch.auxiliary_unmet_kwh) << ',' << csv_number(y.damage_peak) << ','
+          << csv_year_list(y.replacement_months) << "\n";
     }
     // The last bank's end of life, discounted at N + 1 or later when that bank has life left
     // (docs/method.md): `year` is the whole year it falls in, the exact time has its column.
@@ -266,7 +272,7 @@ void write_cash_flows_csv(std::ostream& out, const std::vector<DesignResult>& de
     out << id << ',' << static_cast<long>(std::ceil(t_final - 1e-9)) << ",end_of_life,"
         << csv_number(t_final) << ",,,,,,,,,,,,0,0,0,0,0,0,0," << csv_number(d.final_end_of_life)
         << ",0," << csv_number(d.final_end_of_life) << ',' << csv_number(df_last) << ','
-        << csv_number(d.final_end_of_life * df_last) << ",,,,\n";
+        << csv_number(d.final_end_of_life * df_last) << ",,,,,,\n";
   }
 }
 

@@ -281,7 +281,8 @@ ReportFigure rainflow_histogram(const DesignResult& design, const DesignTrace& t
 ReportFigure life_chart(const DesignResult& design, const ChemistryProfile& profile) {
   Canvas canvas("fig-life", 760, 520, "Capacity and damage over the project",
                 "Two panels over the project years of " + design_name(design) +
-                    ": capacity at the start of each year, and accumulated damage at its end, "
+                    ": capacity at the start of each year, and the most accumulated damage a bank "
+                    "reached in it, "
                     "with the replacements marked.");
   const int n = static_cast<int>(design.years.size());
   std::vector<double> years, health, damage;
@@ -289,9 +290,9 @@ ReportFigure life_chart(const DesignResult& design, const ChemistryProfile& prof
   for (const YearRecord& y : design.years) {
     years.push_back(y.year);
     health.push_back(100 * y.health_start);
-    damage.push_back(y.damage_end);
+    damage.push_back(y.damage_peak);
     lowest = std::min(lowest, 100 * y.health_start);
-    most = std::max(most, y.damage_end);
+    most = std::max(most, y.damage_peak);
   }
   const double eol = 100 * profile.eol_capacity_fraction;
   Axis x;
@@ -309,25 +310,30 @@ ReportFigure life_chart(const DesignResult& design, const ChemistryProfile& prof
   upper.hline(eol, "end of life " + format_general(eol, 3) + " %");
   upper.line(years, health, 0, "capacity", 1);
   Plot lower(canvas, 90, 286, 560, 170, x, bottom);
-  lower.draw_axes("accumulated damage at the end of each year");
+  lower.draw_axes("most accumulated damage in each year");
   lower.hline(1, "end of life (damage 1)");
   lower.line(years, damage, 3, "damage", 1);
   for (std::size_t i = 0; i < design.replacement_years.size(); ++i) {
     const int yr = design.replacement_years[i];
-    if (i > 0 && design.replacement_years[i - 1] == yr) continue;  // several in one year
-    upper.vline(yr, "replaced end of year " + std::to_string(yr), false);
-    lower.vline(yr, "replaced", true);
+    const int month = design.replacement_months[i];
+    if (i > 0 && design.replacement_years[i - 1] == yr && design.replacement_months[i - 1] == month)
+      continue;  // several in one month
+    // Project time at the end of that month: year yr ends at yr.
+    const double at = yr - 1 + month / 12.0;
+    upper.vline(at, "replaced year " + std::to_string(yr) + " month " + std::to_string(month),
+                false);
+    lower.vline(at, "replaced", true);
   }
   canvas.legend(665, 60, {{0, "capacity", false}}, 18);
   canvas.legend(665, 310, {{3, "damage", false}}, 18);
   ReportFigure f;
   f.id = "fig-life";
   f.caption =
-      "Capacity of the bank in service at the start of each project year and its "
-      "accumulated damage at the year's end, " +
+      "Capacity of the bank in service at the start of each project year and the most "
+      "accumulated damage a bank reached in the year, " +
       design_name(design) + "; dashed vertical lines mark the replacements " +
       (design.replacement_years.empty() ? std::string("(none within the project)")
-                                        : std::string("at the end of the year named")) +
+                                        : std::string("at the end of the month named")) +
       ".";
   f.svg = canvas.str();
   return f;

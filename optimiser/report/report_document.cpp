@@ -25,6 +25,16 @@ std::string years_list(const std::vector<int>& years) {
   return out;
 }
 
+std::string replacement_times(const std::vector<int>& years, const std::vector<int>& months) {
+  if (years.empty()) return "none";
+  std::string out;
+  for (std::size_t i = 0; i < years.size(); ++i) {
+    out += (out.empty() ? "year " : ", year ") + std::to_string(years[i]);
+    if (i < months.size()) out += " (month " + std::to_string(months[i]) + ")";
+  }
+  return out;
+}
+
 ReportSection& ReportSection::paragraph(std::string text) {
   ReportBlock b;
   b.kind = ReportBlock::Kind::Paragraph;

@@ -152,8 +152,9 @@ ReportSection decision_section(const StudyCase& study, const OptimiseResult& r) 
     add("investment, year 0 (" + cur + ")", [&](std::size_t i) {
       return tagged(format_amount(R[i].investment), design_key(i) + ".investment", R[i].investment);
     });
-    add("replacements (end of project year)",
-        [&](std::size_t i) { return plain(years_list(R[i].replacement_years)); });
+    add("replacements (at the end of the month named)", [&](std::size_t i) {
+      return plain(replacement_times(R[i].replacement_years, R[i].replacement_months));
+    });
     add("equivalent full cycles, first year", [&](std::size_t i) {
       return tagged(format_fixed(R[i].equivalent_full_cycles_first_year(), 1),
                     design_key(i) + ".equivalent_full_cycles_first_year",
@@ -347,8 +348,8 @@ ReportSection recommended_section(const StudyCase& study, const OptimiseResult& 
   const YearDispatch& y1 = best.years.front().dispatch;
   s.paragraph(
       "Energy of the first project year, from the hourly simulation the lifecycle "
-      "priced (docs/method.md section 4). Replacements at the end of project year: " +
-      years_list(best.replacement_years) + ".");
+      "priced (docs/method.md section 4). Replacements, each at the end of the month named: " +
+      replacement_times(best.replacement_years, best.replacement_months) + ".");
   ReportTable t;
   t.caption = "First-year energy of " + best.profile_id;
   t.header = {"quantity", "kWh"};

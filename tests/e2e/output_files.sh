@@ -60,13 +60,26 @@ for row in flows:
     assert re.fullmatch(r"[0-9]+", row["year"]), "year is not a whole number: " + row["year"]
     t = float(row["discount_time_years"])
     assert math.isclose(float(row["discount_factor"]), (1 + r) ** -t, rel_tol=1e-8), row
-    assert row["replaced_at_end"] in ("true", "false", ""), row["replaced_at_end"]
+    assert row["replacements"] == "" or int(row["replacements"]) >= 0, row["replacements"]
     key = (row["profile"], row["dod_setpoint"], row["strings_parallel"])
     kinds.setdefault(key, []).append(row["row"])
     if row["row"] == "end_of_life":
         assert int(row["year"]) == math.ceil(t - 1e-9) and t >= n + 1 - 1e-9, row
     else:
         assert float(row["year"]) == t, row
+# Replacements: the yearly counts and months add up to the design's lists in the JSON.
+months_by_design = {}
+for row in flows:
+    if row["row"] == "operation":
+        key = (row["profile"], float(row["dod_setpoint"]), int(row["strings_parallel"]))
+        months = json.loads(row["replacement_months"])
+        assert len(months) == int(row["replacements"]), row
+        assert all(1 <= m <= 12 for m in months), row
+        months_by_design.setdefault(key, []).extend(months)
+for js in report["designs"]:
+    key = (js["profile"], js["dod_setpoint"], js["strings_parallel"])
+    assert months_by_design[key] == js["replacement_months"], (key, js["replacement_months"])
+    assert len(js["replacement_months"]) == len(js["replacement_years"]), key
 for key, seq in kinds.items():
     assert seq == ["investment"] + ["operation"] * n + ["end_of_life"], (key, seq)
 PY

@@ -83,11 +83,15 @@ TEST_CASE("the service-age limit replaces a bank that is not worn out", "[model]
   CHECK(r.final_end_of_life_year == Approx(16.0));
 }
 
-TEST_CASE("a bank that wears out several times within a year is replaced that often",
+TEST_CASE("a bank that wears out several times within a year is replaced in those months",
           "[model][lifecycle]") {
-  // 365 cycles a year at DoD 0.5 against a cycle life of 100: damage 3.65 a year. Year 1 ends
-  // at 3.65 -> 3 replacements, 0.65 carried; year 2 at 4.30 -> 4, 0.30 carried; year 3 at 3.95
-  // -> 3 (0.95 carried) and so on.
+  // 365 cycles a year at DoD 0.5 against a cycle life of 100: damage 3.65 a year, about 0.30 a
+  // month (arithmetic of this test). Health is updated monthly and a worn bank is replaced at
+  // the end of the month its damage reaches 1, the wear beyond 1 carried into the new bank:
+  // cumulative wear 1.22, 2.13, 3.04 at the ends of months 4, 7 and 10 of year 1 (3 banks, 0.65
+  // carried into year 2); year 2 takes the sum from 3.65 to 7.30 (4 banks), year 3 to 10.95
+  // (3), year 4 to 14.6 (4: 14 is passed in month 11; the last month ends the project and
+  // replaces nothing).
   DailyCycle c;
   c.profile.cycle_life = CycleLifeCurve({{0.5, 100}, {1.0, 50}});
   c.economics.project_years = 4;
@@ -95,11 +99,20 @@ TEST_CASE("a bank that wears out several times within a year is replaced that of
   const DesignResult r = ev.evaluate(0.5, 10);
   REQUIRE(r.years.size() == 4);
   CHECK(r.years[0].replacements == 3);
+  CHECK(r.years[0].replacement_months == std::vector<int>{4, 7, 10});
   CHECK(r.years[1].replacements == 4);
   CHECK(r.years[2].replacements == 3);
-  CHECK(r.years[3].replacements == 0);  // no replacement in the last year
-  CHECK(r.replacement_years.size() == 10);
-  CHECK(r.years[1].health_start == Approx(1 - 0.2 * 0.65).epsilon(1e-6));
+  CHECK(r.years[3].replacements == 4);
+  CHECK(r.years[3].replacement_months.back() < 12);  // none at the project's end
+  CHECK(r.replacement_years.size() == 14);
+  CHECK(r.replacement_months.size() == r.replacement_years.size());
+  // Year 2 starts with the wear of year 1 beyond its three banks, 3.65 - 3, to within one half
+  // cycle (0.5 / 100 = 0.005): a new bank starts full, so its rainflow history differs from
+  // the old bank's by the leg that was under way at the replacement.
+  CHECK(r.years[1].health_start == Approx(1 - 0.2 * 0.65).margin(0.2 * 0.005 + 1e-9));
+  // A replaced year's lowest health is at the end of life: damage_peak reaches 1.
+  CHECK(r.years[0].damage_peak >= 1.0 - 1e-9);
+  CHECK(r.years[0].replaced_worn_out);
 }
 
 TEST_CASE("a bank left without a full charge ages by the partial-charge stress",

@@ -18,8 +18,12 @@ TEST_CASE("a constant daily cycle ages, is replaced and priced as derived by han
   // - Cycle life 3650 at DoD 0.5: 365 cycles/yr x 2 / 3650 = 0.20 damage per year.
   // - Calendar life 40 yr at 25 degC -> 20 yr at 35 degC: 0.05 per year. Total 0.25 per year,
   //   so each bank lasts exactly 4 years: replacements at the end of years 4, 8, 12, 16 of 20.
-  // - Capacity fades linearly to 80 % at damage 1: health 1, 0.95, 0.90, 0.85 in the bank's
-  //   years 1..4, and each day discharges 0.5 x 1000 Ah x health at 48 V.
+  // - Capacity fades linearly to 80 % at damage 1 and health is updated monthly (12 x 730 h,
+  //   docs/method.md 6): each month runs at the health its bank had at the month's start. Every
+  //   discharge (hour 2 of a day) and charge (hour 8) completes within its hour, so rainflow
+  //   counts each as a half cycle of depth 0.5 (damage 0.5 x 2 / 3650) and every month ends on
+  //   a plateau: the damage at a month's end is the legs so far x 1 / 3650 + 0.05 / 12 a month.
+  //   Each discharge takes 0.5 x 1000 Ah x health at 48 V, each charge puts it back.
   ChemistryProfile p = ideal_cell(100);
   p.mean_charge_v = 2.0 / 0.9;  // voltaic efficiency 0.9
   p.coulombic_efficiency = 0.95;
@@ -53,19 +57,30 @@ TEST_CASE("a constant daily cycle ages, is replaced and priced as derived by han
   const DesignResult r = evaluator.evaluate(0.5, 10);
 
   CHECK(r.bank.nameplate_kwh == Approx(48.0));
+  // The damage reaches 1 at the end of each bank's 48th month.
   CHECK(r.replacement_years == std::vector<int>{4, 8, 12, 16});
+  CHECK(r.replacement_months == std::vector<int>{12, 12, 12, 12});
 
   // Hand derivation of every cash flow.
   const double nameplate = 48.0;
   const double i0 = 300 * nameplate + 100 * 10 + 2000;
-  double pv_storage = i0, pv_backup = 0, pv_energy = 0;
+  double pv_storage = i0, pv_backup = 0, pv_energy = 0, damage = 0;
   for (int y = 1; y <= 20; ++y) {
     const double df = std::pow(1.06, -y);
-    const int bank_year = (y - 1) % 4;  // 0..3 within each bank's life
-    const double health = 1.0 - 0.2 * 0.25 * bank_year;
-    const double ah_per_day = 0.5 * 1000 * health;
-    const double discharged = 365 * ah_per_day * 48.0 / 1000.0;  // kWh at the terminals
-    const double charged_terminal = 365 * ah_per_day / 0.95 * (24 * 2.0 / 0.9) / 1000.0;
+    double discharged = 0, charged_terminal = 0;  // kWh at the terminals
+    for (int m = 0; m < 12; ++m) {
+      const double health = 1.0 - 0.2 * damage;
+      int legs = 0;
+      for (int t = 730 * m; t < 730 * (m + 1); ++t) {
+        const int hour_of_day = t % 24;
+        if (hour_of_day == 2) discharged += 0.5 * 1000 * health * 48.0 / 1000.0;
+        if (hour_of_day == 8)
+          charged_terminal += 0.5 * 1000 * health / 0.95 * (24 * 2.0 / 0.9) / 1000.0;
+        if (hour_of_day == 2 || hour_of_day == 8) ++legs;
+      }
+      damage += legs / 3650.0 + 0.05 / 12;
+      if (damage >= 1 - 1e-9 && !(y == 20 && m == 11)) damage = 0;
+    }
     const double drawn = charged_terminal / 0.96;
     const double backup = 365 * 400.0 - discharged * 0.94;
     double flows = 5 * nameplate + 10 * discharged / 1000.0 + 0.05 * drawn;
@@ -76,6 +91,8 @@ TEST_CASE("a constant daily cycle ages, is replaced and priced as derived by han
     INFO("year " << y);
     CHECK(r.years[static_cast<std::size_t>(y - 1)].dispatch.discharged_terminal_kwh ==
           Approx(discharged).epsilon(1e-6));
+    CHECK(r.years[static_cast<std::size_t>(y - 1)].dispatch.charged_terminal_kwh ==
+          Approx(charged_terminal).epsilon(1e-6));
   }
   pv_storage += 10 * nameplate * std::pow(1.06, -21);  // end of life of the last bank, N + 1
   // The last bank ends year 20 exactly worn out: no residual value.
