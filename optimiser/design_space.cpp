@@ -39,14 +39,15 @@ double npc_lower_bound(const ChemistryProfile& profile, const Study& study, int 
   const double nameplate = bank_geometry(profile, bus_v, strings).nameplate_kwh;
   const double i0 = costs.investment(nameplate, strings);
 
-  // The net cost of a replacement at the end of year y: the new bank plus the end of life of
-  // the one removed. If it can be negative (a salvage above the price of a new bank), more
-  // replacements lower the NPC without limit and no finite bound holds.
+  // The net cost of a replacement booked in year y (made at the end of one of its months,
+  // docs/method.md 6): the new bank plus the end of life of the one removed. If it can be
+  // negative (a salvage above the price of a new bank), more replacements lower the NPC without
+  // limit and no finite bound holds. Replacements may fall in any year 1..N.
   auto replacement_pv = [&](double y) {
     return (costs.replacement_price(i0, y) + costs.replacement_end_of_life(nameplate)) *
            present_worth_factor(i, y);
   };
-  for (int y = 1; y < n_years; ++y) {
+  for (int y = 1; y <= n_years; ++y) {
     if (replacement_pv(y) < 0) return kUnbounded;
   }
 
@@ -83,8 +84,10 @@ double npc_lower_bound(const ChemistryProfile& profile, const Study& study, int 
     bound += final_eol * present_worth_factor(i, n_years + std::max(1.0, longest));
   }
 
-  // Forced replacements: the k-th comes no later than year kY, at some year y in [1, kY]; its
-  // net cost is at least the least present value over those years.
+  // Forced replacements: the k-th comes no later than kY years into the project (each bank,
+  // whenever in a year it went in, lasts at most Y years), so it is booked in some year y in
+  // [1, kY]; its net cost is at least the least present value over those years. Only those with
+  // kY < N are counted (fewer is still a lower bound).
   double least_so_far = std::numeric_limits<double>::infinity();
   long priced_to = 0;
   for (long year = life; year < n_years; year += life) {

@@ -150,11 +150,14 @@ double bank_investment(const ChemistryProfile& profile, double bus_voltage_v, in
 //     life left: 1 / calendar damage per year or max_service_years), 0 when neither is known;
 //     a salvage credit (< 0) at its earliest, N + 1;
 //   + the replacements that calendar ageing or max_service_years alone force: each bank lasts
-//     at most Y whole years, so the k-th replacement falls in some year y <= kY (kY < N) and
-//     costs at least min over y in [1, kY] of (P(y) + end of life at a replacement) x P/F(y).
+//     at most Y whole years whenever in a year it went in (replacements are made at month ends,
+//     docs/method.md 6), so the k-th replacement is booked in some year y <= kY (counted while
+//     kY < N) and costs at least min over y in [1, kY] of (P(y) + end of life at a replacement)
+//     x P/F(y).
 // Every other item (variable O&M, charging, back-up, penalty, cycle wear) is >= 0 and left
-// out. When a replacement could have a negative net cost (a salvage above the price of a new
-// bank) more replacements lower the NPC without limit: the bound is then -infinity.
+// out. When a replacement in any year 1..N could have a negative net cost (a salvage above the
+// price of a new bank) more replacements lower the NPC without limit: the bound is then
+// -infinity.
 // `calendar_damage_per_year`: the site's exact calendar damage
 // (AccelerationSeries::calendar_damage_per_year); 0 when unknown (a weaker bound).
 double npc_lower_bound(const ChemistryProfile& profile, const Study& study, int strings,

@@ -29,7 +29,9 @@ double time_to_reach(double cap, const std::vector<double>& per_year) {
 
 // The years until the chemistry model first retires the bank.
 double modelled_life(const DesignResult& r) {
-  if (!r.replacement_years.empty()) return r.replacement_years.front();
+  // The end of the month of the first replacement, in project years.
+  if (!r.replacement_years.empty())
+    return r.replacement_years.front() - 1 + r.replacement_months.front() / 12.0;
   const YearRecord& last = r.years.back();
   return last.damage_end > 0 ? last.year / last.damage_end : kInf;
 }
