@@ -60,4 +60,27 @@ assert float(year1["auxiliary_kwh"]) > 0 and float(year1["auxiliary_bank_kwh"]) 
 assert [r for r in recs if r["year"] == "0"][0]["auxiliary_kwh"] == ""
 PY
 fi
+# The study report shows the recommended design's auxiliary energy, tagged with its JSON key, and
+# says how long its temperature limits kept the bank idle.
+if expect_exit 0 -- "$STOWAGE" report "$WORK/aux.yaml" --out "$WORK/report"; then
+  "$PY" - "$WORK/report" <<'PY' || fail "report: auxiliary energy and idle hours"
+import json, re, sys
+d = sys.argv[1]
+best = json.load(open(d + "/result.json"))["best"]
+html = open(d + "/report.html").read()
+md = open(d + "/report.md").read()
+for key in ("auxiliary_kwh_first_year", "auxiliary_source_kwh_first_year",
+            "auxiliary_bank_kwh_first_year", "auxiliary_unmet_kwh_first_year"):
+    m = re.search(r'data-key="best\.' + key + r'" data-value="([^"]+)"', html)
+    assert m, key
+    assert abs(float(m.group(1)) - best[key]) <= 1e-9 * max(1.0, abs(best[key])), (key, m.group(1))
+assert "auxiliary loads (battery management, climate, pumps)" in md
+idle = (best["charge_blocked_by_temperature_hours_first_year"]
+        + best["discharge_blocked_by_temperature_hours_first_year"])
+if idle > 0:
+    assert "kept the bank idle for" in md, "idle hours missing"
+else:
+    assert "never kept the bank idle" in md
+PY
+fi
 finish
