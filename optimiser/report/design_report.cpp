@@ -144,7 +144,7 @@ void print_design_table(std::ostream& out, const DesignResult& d, const Requirem
   fmt::print(out, "  replacements  {}\n",
              d.replacement_years.empty()
                  ? std::string("none within the project")
-                 : "end of " + replacement_times(d.replacement_years, d.replacement_months));
+                 : "at the end of " + replacement_times(d.replacement_years, d.replacement_months));
   if (!d.meets_unserved_limit)
     fmt::print(
         out, "  WARNING       unserved energy reaches {:.3f} % of demand, above the site's limit\n",

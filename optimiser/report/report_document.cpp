@@ -29,8 +29,9 @@ std::string replacement_times(const std::vector<int>& years, const std::vector<i
   if (years.empty()) return "none";
   std::string out;
   for (std::size_t i = 0; i < years.size(); ++i) {
-    out += (out.empty() ? "year " : ", year ") + std::to_string(years[i]);
-    if (i < months.size()) out += " (month " + std::to_string(months[i]) + ")";
+    if (!out.empty()) out += ", ";
+    if (i < months.size()) out += "month " + std::to_string(months[i]) + " of ";
+    out += "year " + std::to_string(years[i]);
   }
   return out;
 }

@@ -26,7 +26,7 @@ ReportCell tagged(std::string text, std::string key, double value);
 ReportCell tagged_text(std::string text, std::string key);
 // "4, 8, 12", or "none" for an empty list: project years as a report sentence gives them.
 std::string years_list(const std::vector<int>& years);
-// "year 6 (month 4), year 12 (month 12)", or "none": when each replacement happened, from
+// "month 4 of year 6, month 12 of year 12", or "none": when each replacement happened, from
 // the parallel lists of project years and months (1-12) of a lifecycle result.
 std::string replacement_times(const std::vector<int>& years, const std::vector<int>& months);
 
