@@ -381,21 +381,20 @@ ReportSection recommended_section(const StudyCase& study, const OptimiseResult& 
         {"  of which from the bank", {"best.auxiliary_bank_kwh_first_year", y1.auxiliary_bank_kwh}},
         {"  of which unmet", {"best.auxiliary_unmet_kwh_first_year", y1.auxiliary_unmet_kwh}}};
     for (const auto& [label, value] : aux)
-      t.rows.push_back({plain(label), tagged(format_amount(value.second, 1), value.first,
-                                             value.second)});
+      t.rows.push_back(
+          {plain(label), tagged(format_amount(value.second, 1), value.first, value.second)});
   }
   s.table(t);
   const double idle_hours = y1.temperature_idle_hours();
-  s.paragraph(
-      idle_hours > 0
-          ? "Its temperature limits kept the bank idle for " + format_amount(idle_hours) +
-                " hours of the first year: " +
-                format_amount(y1.charge_blocked_by_temperature_hours) +
-                " hours with surplus it could not take outside its charging range and " +
-                format_amount(y1.discharge_blocked_by_temperature_hours) +
-                " hours with demand it could not serve outside its operating range (that "
-                "surplus was curtailed, that demand went to back-up or unserved)."
-          : "Its temperature limits never kept the bank idle in the first year.");
+  s.paragraph(idle_hours > 0
+                  ? "Its temperature limits kept the bank idle for " + format_amount(idle_hours) +
+                        " hours of the first year: " +
+                        format_amount(y1.charge_blocked_by_temperature_hours) +
+                        " hours with surplus it could not take outside its charging range and " +
+                        format_amount(y1.discharge_blocked_by_temperature_hours) +
+                        " hours with demand it could not serve outside its operating range (that "
+                        "surplus was curtailed, that demand went to back-up or unserved)."
+                  : "Its temperature limits never kept the bank idle in the first year.");
   s.figure(soc_heat_map(best, trace));
   s.figure(rainflow_histogram(best, trace));
   s.figure(life_chart(best, profile));
