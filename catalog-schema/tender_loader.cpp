@@ -212,6 +212,7 @@ TenderCase load_tender_file(const std::string& path) {
     }
     tender.bids.push_back(std::move(bid));
   }
+  tender.variations = read_tender_variations(doc, tender);
   return tender;
 }
 
