@@ -95,7 +95,8 @@ struct TenderCase {
   TenderScoring scoring;
   std::vector<Bid> bids;
   // tender.variations: what an uncertainty of the ranking draws (docs/tender.md,
-  // "Variations"); paths are the tender's (parameter_paths.h). Empty when absent.
+  // "Variations"); paths are the tender's (parameter_paths.h); every entry has a
+  // distribution (error at tender.variations[i].distribution). Empty when absent.
   std::vector<Variation> variations;
 };
 

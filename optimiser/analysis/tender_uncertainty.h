@@ -41,7 +41,7 @@
 namespace stowage {
 
 struct TenderUncertaintyOptions {
-  std::size_t samples = 200;  // >= 2
+  std::size_t samples = 1000;  // >= 2
   std::uint64_t seed = 1;
   int threads = 0;
   DoneCallback progress;  // after each sample (parallel.h); may be empty

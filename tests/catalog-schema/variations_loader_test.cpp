@@ -269,7 +269,9 @@ TEST_CASE("a tender reads its variations with the tender's paths and the bids' v
                                                                 "    - path: site.backup.price_"
                                                                 "per_kwh\n"
                                                                 "      low: 0.20\n"
-                                                                "      high: 0.40\n"));
+                                                                "      high: 0.40\n"
+                                                                "      distribution: {kind: "
+                                                                "uniform}\n"));
   const TenderCase tender = load_tender_file(path);
   REQUIRE(tender.variations.size() == 2);
   const Variation& life = tender.variations[0];
@@ -321,6 +323,11 @@ TEST_CASE("a tender refuses a variation the tender cannot take, at its file, lin
       "  variations:\n    - path: bids.Bid B.costs.capital_per_kwh\n      low: 1\n"
       "      high: 2\n",
       "Bid B.costs", "tender.variations[0].path", "is fixed by the bid");
+  // A tender only draws its variations, so each needs a distribution.
+  refused(
+      "  variations:\n    - path: economics.real_discount_rate\n      low: 0.02\n"
+      "      high: 0.1\n",
+      "- path: economics", "tender.variations[0].distribution", "is required in a tender");
   // The same path twice is refused at the second entry (its path, the line above low).
   refused(
       "  variations:\n    - path: economics.real_discount_rate\n      low: 0.02\n"
