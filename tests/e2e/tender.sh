@@ -73,6 +73,43 @@ PY
 expect_exit 0 -- "$STOWAGE" tender "$varied" --samples 20 --quiet --out "$WORK/vset" || fail "varied --out run"
 head -1 "$WORK/vset/bid-uncertainty.csv" | grep -q "^bid,samples,npc_mean" || fail "bid-uncertainty.csv"
 [ "$(wc -l <"$WORK/vset/bid-uncertainty.csv")" -eq 5 ] || fail "bid-uncertainty.csv rows"
+# Two near-equal bids (Bid A and a copy at 0.9 % more capex) with Bid A's variable O&M drawn
+# from 0..2 EUR/MWh: Bid A leads at its base value 0, but the copy does at least as well in
+# most samples, so the samples call a near tie, on screen and in the JSON.
+demo="$SRC/studies/pier-nine-tender"
+sed -e 's/label: Bid A/label: Bid E/' -e 's/capex: 490680/capex: 495000/' \
+    -e "s|profile: bid-a.yaml|profile: $demo/bid-a.yaml|" "$demo/offer-a.yaml" >"$WORK/offer-e.yaml"
+cat >"$WORK/tie.yaml" <<EOF
+tender:
+  title: Two near-equal bids
+  site: $demo/site.yaml
+  economics: {project_years: 15, real_discount_rate: 0.07, currency: EUR}
+  scoring: {price_weight: 0.7, criteria: {safety: 0.2, service: 0.1}}
+  bids:
+    - $demo/offer-a.yaml
+    - offer-e.yaml
+  variations:
+    - path: bids.Bid A.costs.variable_om_per_mwh
+      low: 0
+      high: 2
+      distribution: {kind: uniform}
+EOF
+expect_exit 0 -- "$STOWAGE" tender "$WORK/tie.yaml" --samples 40 --quiet || fail "tie run"
+grep -q "^NEAR TIE from 40 samples of the tender's variations: Bid E does at least as well as Bid A" "$WORK/out" ||
+  fail "sampled near tie not called: $(grep -i 'tie' "$WORK/out" | head -2)"
+expect_exit 0 -- "$STOWAGE" tender "$WORK/tie.yaml" --samples 40 --quiet --format json || fail "tie json"
+python3 - "$WORK/out" <<'PY' || fail "tie json content"
+import json, sys
+doc = json.load(open(sys.argv[1]))
+u = doc["uncertainty"]
+assert doc["near_tie"] is True and doc["near_tie_rule"] == "samples"
+assert u["near_tie_by_margins"] is True  # 0.2 points apart: the margins agree here
+wins = {b["label"]: b["win_probability"] for b in u["bids"]}
+assert abs(sum(wins.values()) - 1) <= 1e-12, wins
+# Equal totals rank Bid A first but count for the runner-up, so q >= Bid E's win probability.
+assert u["runner_up_at_least_as_good_share"] >= wins["Bid E"] > 0.1, (u, wins)
+assert u["margin_p10"] < 0 < u["margin_p90"], u  # the margin's P10..P90 interval spans zero
+PY
 # A tender whose requirement no bid meets: exit 3.
 demo="$SRC/studies/pier-nine-tender"
 sed -e 's/min_usable_kwh: 1200 .*/min_usable_kwh: 99999/' -e "s|site: site.yaml|site: $demo/site.yaml|" \
