@@ -330,4 +330,133 @@ void apply_parameter(StudyCase& study, std::string_view path, double value) {
   study = std::move(changed);
 }
 
+namespace {
+
+// The profile entries a tender lets vary per bid (parameter_paths.h says why the rest do not).
+constexpr std::string_view kBidKeys[] = {"ageing.calendar_life_years", "ageing.cycle_life_scale",
+                                         "cell.coulombic_efficiency",  "temperature.charging_c.min",
+                                         "costs.variable_om_per_mwh",  "costs.end_of_life_per_kwh"};
+
+bool tender_case_key(std::string_view key) {
+  return key.rfind("site.", 0) == 0 || key.rfind("economics.", 0) == 0;
+}
+
+// The tender as a study the entries can act on: its site and economics, one profile per bid
+// with the bid's label as id (labels are unique, profile ids need not be).
+StudyCase study_view(const TenderCase& tender) {
+  StudyCase s;
+  s.title = tender.title;
+  s.site = tender.site;
+  s.economics = tender.economics;
+  for (const Bid& b : tender.bids) {
+    s.profiles.push_back(b.profile);
+    s.profiles.back().id = b.label;
+  }
+  return s;
+}
+
+// The study path of the view that a tender path names, or nothing when it names none.
+std::optional<std::string> view_path(const TenderCase& tender, std::string_view path) {
+  for (const Bid& b : tender.bids) {
+    const std::string prefix = "bids." + b.label + ".";
+    if (path.rfind(prefix, 0) != 0) continue;
+    const std::string_view key = path.substr(prefix.size());
+    for (std::string_view allowed : kBidKeys) {
+      if (key == allowed) return "profiles." + b.label + "." + std::string(key);
+    }
+  }
+  for (const Entry& e : entries()) {
+    if (e.scope == Scope::Case && tender_case_key(e.key) && path == e.key) return e.key;
+  }
+  return std::nullopt;
+}
+
+// A field of the view ("profiles.<label>...") spelt as the tender's ("bids.<label>...").
+std::string tender_field(const TenderCase& tender, const std::string& field) {
+  for (const Bid& b : tender.bids) {
+    const std::string prefix = "profiles." + b.label;
+    if (field.rfind(prefix, 0) == 0 &&
+        (field.size() == prefix.size() || field[prefix.size()] == '.')) {
+      return "bids." + b.label + field.substr(prefix.size());
+    }
+  }
+  return field;
+}
+
+std::string tender_text(const TenderCase& tender, std::string text) {
+  for (const Bid& b : tender.bids) {
+    const std::string from = "profiles." + b.label + ".", to = "bids." + b.label + ".";
+    for (std::size_t at = text.find(from); at != std::string::npos;
+         at = text.find(from, at + to.size())) {
+      text.replace(at, from.size(), to);
+    }
+  }
+  return text;
+}
+
+}  // namespace
+
+std::vector<ParameterInfo> parameter_paths(const TenderCase& tender) {
+  const StudyCase view = study_view(tender);
+  std::vector<ParameterInfo> out;
+  for (const Bid& b : tender.bids) {
+    for (std::string_view key : kBidKeys) {
+      ParameterInfo info = find_parameter(view, "profiles." + b.label + "." + std::string(key));
+      info.path = "bids." + b.label + "." + std::string(key);
+      out.push_back(std::move(info));
+    }
+  }
+  for (const Entry& e : entries()) {
+    if (e.scope == Scope::Case && tender_case_key(e.key)) {
+      out.push_back(describe(e, view, 0, e.key));
+    }
+  }
+  return out;
+}
+
+ParameterInfo find_parameter(const TenderCase& tender, std::string_view path) {
+  const std::optional<std::string> mapped = view_path(tender, path);
+  if (!mapped) {
+    for (const Bid& b : tender.bids) {
+      const std::string prefix = "bids." + b.label + ".";
+      if (path.rfind(prefix, 0) != 0) continue;
+      for (const Entry& e : entries()) {
+        if (e.scope == Scope::Profile && path.substr(prefix.size()) == e.key) {
+          throw InvalidValue(std::string(path),
+                             "is fixed by the bid (its offered price, or a cost a bid does not "
+                             "vary), so a tender does not vary it; docs/tender.md lists the "
+                             "paths a tender varies");
+        }
+      }
+    }
+    std::vector<std::string> all;
+    for (const ParameterInfo& info : parameter_paths(tender)) all.push_back(info.path);
+    std::string rule = "is not a parameter path of this tender";
+    const std::string hint = closest_match(std::string(path), all);
+    if (!hint.empty()) rule += " (did you mean '" + hint + "'?)";
+    rule += "; docs/tender.md lists the paths";
+    throw InvalidValue(std::string(path), rule);
+  }
+  ParameterInfo info = find_parameter(study_view(tender), *mapped);
+  info.path = std::string(path);
+  return info;
+}
+
+void apply_parameter(TenderCase& tender, std::string_view path, double value) {
+  find_parameter(tender, path);  // refuses a path that is not the tender's
+  StudyCase view = study_view(tender);
+  try {
+    apply_parameter(view, *view_path(tender, path), value);
+  } catch (const InvalidValue& e) {
+    throw InvalidValue(tender_field(tender, e.field()), tender_text(tender, e.rule()));
+  }
+  tender.site = std::move(view.site);
+  tender.economics = view.economics;
+  for (std::size_t i = 0; i < tender.bids.size(); ++i) {
+    const std::string id = tender.bids[i].profile.id;
+    tender.bids[i].profile = std::move(view.profiles[i]);
+    tender.bids[i].profile.id = id;
+  }
+}
+
 }  // namespace stowage

@@ -20,6 +20,18 @@
 // case (its base value is 0 or 1). Values outside the range are refused with InvalidValue
 // naming the path; so is a value the re-validation refuses (for example a charging minimum
 // above the charging maximum), with the path of the rule it breaks.
+//
+// A tender (tender_loader.h) has its own set, the same entries addressed per bid
+// (docs/tender.md, "Variations"):
+//   bids.<label>.ageing.calendar_life_years, bids.<label>.ageing.cycle_life_scale,
+//   bids.<label>.cell.coulombic_efficiency, bids.<label>.temperature.charging_c.min,
+//   bids.<label>.costs.variable_om_per_mwh, bids.<label>.costs.end_of_life_per_kwh
+//     the chemistry of the bid's profile and the two costs its price lines may leave open
+//   site.* and economics.*                       as in a study
+// The bid's own prices (capex, installation, annual service, replacement share: the
+// profile's capital, installation, fixed O&M and replacement entries) are the offer, fixed by
+// the bid, and are not tender paths; nor are price_decline_per_year (0 for a bid) and
+// design_space.* (a tender has no search).
 #pragma once
 
 #include <string>
@@ -27,6 +39,7 @@
 #include <vector>
 
 #include "catalog-schema/study_case.h"
+#include "catalog-schema/tender_loader.h"
 
 namespace stowage {
 
@@ -52,5 +65,12 @@ ParameterInfo find_parameter(const StudyCase& study, std::string_view path);
 // (Scale), then validates the changed part again. Throws InvalidValue naming the path;
 // the case is left unchanged when it throws.
 void apply_parameter(StudyCase& study, std::string_view path, double value);
+
+// The same for a tender's paths (above): every path in a stable order (bids in tender order,
+// then site and economics), one path's description, and the setter, which re-validates the
+// changed bid profile, site or economics and names the tender path in its InvalidValue.
+std::vector<ParameterInfo> parameter_paths(const TenderCase& tender);
+ParameterInfo find_parameter(const TenderCase& tender, std::string_view path);
+void apply_parameter(TenderCase& tender, std::string_view path, double value);
 
 }  // namespace stowage

@@ -212,6 +212,16 @@ TenderCase load_tender_file(const std::string& path) {
     }
     tender.bids.push_back(std::move(bid));
   }
+  tender.variations = read_tender_variations(doc, tender);
+  for (std::size_t i = 0; i < tender.variations.size(); ++i) {
+    if (!tender.variations[i].distribution) {
+      // A tender only samples its variations (there is no sweep of a tender), so an entry
+      // without a distribution would silently do nothing.
+      throw doc.error_at(t["variations"][i], indexed("tender.variations", i) + ".distribution",
+                         "is required in a tender: its variations are drawn to see how sure "
+                         "the ranking is, and an entry without a distribution is never drawn");
+    }
+  }
   return tender;
 }
 

@@ -27,6 +27,7 @@
 #include <vector>
 
 #include "catalog-schema/input_error.h"  // what the readers throw
+#include "catalog-schema/variations_loader.h"
 #include "model/chemistry_profile.h"
 #include "model/economics.h"
 #include "model/site.h"
@@ -93,6 +94,10 @@ struct TenderCase {
   TenderRequirements requirements;
   TenderScoring scoring;
   std::vector<Bid> bids;
+  // tender.variations: what an uncertainty of the ranking draws (docs/tender.md,
+  // "Variations"); paths are the tender's (parameter_paths.h); every entry has a
+  // distribution (error at tender.variations[i].distribution). Empty when absent.
+  std::vector<Variation> variations;
 };
 
 TenderCase load_tender_file(const std::string& path);

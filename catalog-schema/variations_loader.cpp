@@ -4,6 +4,7 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdlib>
+#include <functional>
 #include <limits>
 
 #include "catalog-schema/decimal_text.h"
@@ -32,20 +33,36 @@ namespace {
 
 double number(const YAML::Node& node) { return *scalar_number(node); }
 
-constexpr const char* kNotSet =
-    "is not set in this study (or varies hour by hour), so it has no single value to vary; set "
-    "it in the study first";
+std::string not_set(const std::string& whole) {
+  return "is not set in this " + whole + " (or varies hour by hour), so it has no single value " +
+         "to vary; set it in the " + whole + " first";
+}
 
-// Why `value` cannot be applied to the study at `path`, or "" when it can. Applying to a copy
+// Why `value` cannot be applied to the case at `path`, or "" when it can. Applying to a copy
 // runs exactly the checks a sweep point would run, cross-field rules included.
-std::string refusal(const StudyCase& study, const std::string& path, double value) {
-  StudyCase copy = study;
+template <typename Case>
+std::string refusal(const Case& whole, const std::string& path, double value) {
+  Case copy = whole;
   try {
     apply_parameter(copy, path, value);
   } catch (const InvalidValue& e) {
     return e.field() == path ? e.rule() : e.field() + ": " + e.rule();
   }
   return "";
+}
+
+// What a reader needs of the case a block belongs to: a study or a tender, each with its own
+// parameter paths (parameter_paths.h).
+struct PathSpace {
+  std::string whole;  // "study" or "tender": the name of the file's top-level key
+  std::function<ParameterInfo(const std::string&)> find;
+  std::function<std::string(const std::string&, double)> refusal;
+};
+
+template <typename Case>
+PathSpace path_space(const Case& whole, const std::string& name) {
+  return {name, [&whole](const std::string& path) { return find_parameter(whole, path); },
+          [&whole](const std::string& path, double value) { return refusal(whole, path, value); }};
 }
 
 DistributionKind kind_from(const std::string& text) {
@@ -58,7 +75,7 @@ DistributionKind kind_from(const std::string& text) {
 
 class Reader {
  public:
-  Reader(const YamlDocument& doc, const StudyCase& study) : doc_(doc), study_(study) {}
+  Reader(const YamlDocument& doc, PathSpace space) : doc_(doc), space_(std::move(space)) {}
 
   Variation read(const YAML::Node& node, const std::string& field) {
     Variation v;
@@ -66,12 +83,12 @@ class Reader {
     v.path = path_node.Scalar();
     ParameterInfo info;
     try {
-      info = find_parameter(study_, v.path);
+      info = space_.find(v.path);
     } catch (const InvalidValue& e) {
       throw doc_.error_at(path_node, field + ".path", "'" + v.path + "' " + e.rule());
     }
     if (!info.present) {
-      throw doc_.error_at(path_node, field + ".path", "'" + v.path + "' " + kNotSet);
+      throw doc_.error_at(path_node, field + ".path", "'" + v.path + "' " + not_set(space_.whole));
     }
     v.unit = info.unit;
     v.whole_number = info.whole_number;
@@ -145,8 +162,9 @@ class Reader {
       const YAML::Node at = node["base"] ? node["base"] : node;
       throw doc_.error_at(at, field + ".base",
                           "base " + number_text(v.base) +
-                              (node["base"] ? "" : " (the study's value)") + " must lie within [" +
-                              number_text(v.low) + ", " + number_text(v.high) + "]");
+                              (node["base"] ? "" : " (the " + space_.whole + "'s value)") +
+                              " must lie within [" + number_text(v.low) + ", " +
+                              number_text(v.high) + "]");
     }
     if (const YAML::Node d = node["distribution"]) {
       v.distribution = distribution(d, field + ".distribution", v, info, node);
@@ -159,7 +177,7 @@ class Reader {
  private:
   double checked(const YAML::Node& node, const std::string& field, const Variation& v) {
     const double x = number(node);
-    const std::string why = refusal(study_, v.path, x);
+    const std::string why = space_.refusal(v.path, x);
     if (!why.empty()) throw doc_.error_at(node, field, why);
     return x;
   }
@@ -266,7 +284,7 @@ class Reader {
   }
 
   const YamlDocument& doc_;
-  const StudyCase& study_;
+  PathSpace space_;
 };
 
 bool parse_number(const std::string& text, double& out) {
@@ -276,21 +294,20 @@ bool parse_number(const std::string& text, double& out) {
   return end == text.c_str() + text.size() && std::isfinite(out);
 }
 
-}  // namespace
-
-std::vector<Variation> read_variations(const YamlDocument& doc, const StudyCase& study) {
+// The `<whole>.variations` block of the document, read against the case's paths.
+std::vector<Variation> read_block(const YamlDocument& doc, const PathSpace& space) {
   std::vector<Variation> out;
-  const YAML::Node list = doc.root()["study"]["variations"];
+  const YAML::Node list = doc.root()[space.whole]["variations"];
   if (!list) return out;
-  Reader reader(doc, study);
+  const std::string block = space.whole + ".variations";
+  Reader reader(doc, space);
   for (std::size_t i = 0; i < list.size(); ++i) {
-    const std::string field = join_index("study.variations", i);
+    const std::string field = join_index(block, i);
     Variation v = reader.read(list[i], field);
     for (std::size_t j = 0; j < out.size(); ++j) {
       if (out[j].path == v.path) {
-        throw doc.error_at(
-            list[i]["path"], field + ".path",
-            "'" + v.path + "' is already varied by study.variations[" + std::to_string(j) + "]");
+        throw doc.error_at(list[i]["path"], field + ".path",
+                           "'" + v.path + "' is already varied by " + join_index(block, j));
       }
     }
     for (double& x : v.points) {
@@ -301,6 +318,16 @@ std::vector<Variation> read_variations(const YamlDocument& doc, const StudyCase&
     out.push_back(std::move(v));
   }
   return out;
+}
+
+}  // namespace
+
+std::vector<Variation> read_variations(const YamlDocument& doc, const StudyCase& study) {
+  return read_block(doc, path_space(study, "study"));
+}
+
+std::vector<Variation> read_tender_variations(const YamlDocument& doc, const TenderCase& tender) {
+  return read_block(doc, path_space(tender, "tender"));
 }
 
 Variation parse_vary_option(const std::string& text, const StudyCase& study) {
@@ -324,7 +351,7 @@ Variation parse_vary_option(const std::string& text, const StudyCase& study) {
   } catch (const InvalidValue& e) {
     throw InvalidValue(field, "'" + v.path + "' " + e.rule());
   }
-  if (!info.present) throw InvalidValue(field, "'" + v.path + "' " + kNotSet);
+  if (!info.present) throw InvalidValue(field, "'" + v.path + "' " + not_set("study"));
   if (!(low < high)) {
     throw InvalidValue(field, v.path + ": LOW (" + number_text(low) + ") must be below HIGH (" +
                                   number_text(high) + ")");

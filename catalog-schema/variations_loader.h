@@ -1,7 +1,7 @@
 // SPDX-License-Identifier: MIT
 // Variations: the inputs a study lets sweeps, break-even searches and uncertainty runs vary,
-// from the study file's `study.variations` block (schema: schemas/study.schema.json, format:
-// docs/input-format.md) or from a `--vary PATH=LOW:HIGH` option.
+// from the study file's `study.variations` block (or a tender file's `tender.variations`) (schema:
+// schemas/study.schema.json, format: docs/input-format.md) or from a `--vary PATH=LOW:HIGH` option.
 //
 // Each variation names one parameter path (parameter_paths.h) and gives exactly one of
 //   low/high (with an optional base)     the tornado's ends; grids use `steps` points between
@@ -62,9 +62,14 @@ struct Variation {
   SourcePosition at;  // where it is defined; file "--vary" for the option
 };
 
+struct TenderCase;  // tender_loader.h
+
 // Reads study.variations (empty when absent). `study` is the validated case the block belongs
 // to. A path given twice is refused at the second entry.
 std::vector<Variation> read_variations(const YamlDocument& doc, const StudyCase& study);
+// Reads tender.variations the same way, against the tender's paths (parameter_paths.h);
+// `tender` is the loaded tender with its bids. Errors name tender.variations[i]....
+std::vector<Variation> read_tender_variations(const YamlDocument& doc, const TenderCase& tender);
 
 // Parses "PATH=LOW:HIGH" (base: the study's value, no distribution); throws InvalidValue with
 // field "--vary" naming the text and the rule broken.

@@ -39,6 +39,7 @@ ReportCell years_cell(double years, const std::string& key) {
 struct Ctx {
   const TenderCase& tender;
   const TenderResult& result;
+  const TenderUncertainty* uncertainty;  // may be null
   const std::string& cur() const { return tender.economics.currency; }
 };
 
@@ -86,7 +87,13 @@ ReportSection decision_section(const Ctx& c) {
               " per kWh delivered (" + format_fixed(best.lcos_schmidt_per_kwh, 4) +
               " under Schmidt et al. 2019 conventions), the buyer's costs with the warranty "
               "applied.");
-  if (r.near_tie) {
+  if (c.uncertainty && c.uncertainty->tie.called) {
+    s.notice(sampled_tie_sentence(c.tender, *c.uncertainty) +
+             (c.uncertainty->tie.near_tie
+                  ? " Treat the two as equal on this evidence and decide on clarification or the "
+                    "criteria the scoring does not hold."
+                  : ""));
+  } else if (r.near_tie) {
     s.notice("Near tie: the two best bids lie within " +
              format_general(c.tender.scoring.near_tie_points) + " points of total score or " +
              format_general(100 * c.tender.scoring.near_tie_npc_share) +
@@ -236,6 +243,46 @@ ReportFigure bids_chart(const Ctx& c) {
     in.values.push_back(values);
   }
   return stacked_bars_chart(in);
+}
+
+ReportSection uncertainty_section(const Ctx& c) {
+  const TenderUncertainty& u = *c.uncertainty;
+  ReportSection s;
+  s.id = "uncertainty";
+  s.title = "Uncertainty of the ranking";
+  std::string drawn;
+  for (const Variation& v : u.drawn) {
+    drawn += (drawn.empty() ? "" : ", ") + v.label + " (" + to_string(v.distribution->kind) +
+             (v.source.empty() ? std::string() : "; " + v.source) + ")";
+  }
+  s.paragraph("The tender's variations were drawn " + std::to_string(u.samples) + " times (seed " +
+              std::to_string(u.seed) + "): " + drawn +
+              ". Every bid went through the same evaluation on each sample: simulated, its "
+              "warranty applied, checked against the requirements and scored.");
+  ReportTable t;
+  t.caption = "Sampled net present cost and LCOS by bid, and how often each ranks first";
+  t.header = {"bid",        "NPC P10 (" + c.cur() + ")",
+              "NPC P50",    "NPC P90",
+              "LCOS P10",   "LCOS P50",
+              "LCOS P90",   "compliant",
+              "ranks first"};
+  t.numeric = {false, true, true, true, true, true, true, true, true};
+  for (std::size_t i = 0; i < u.bids.size(); ++i) {
+    const BidUncertainty& b = u.bids[i];
+    const std::string key = "uncertainty.bids[" + std::to_string(i) + "]";
+    t.rows.push_back({tagged_text(b.label, key + ".label"),
+                      tagged(format_amount(b.npc.p10), key + ".npc.p10", b.npc.p10),
+                      tagged(format_amount(b.npc.p50), key + ".npc.p50", b.npc.p50),
+                      tagged(format_amount(b.npc.p90), key + ".npc.p90", b.npc.p90),
+                      tagged(format_fixed(b.lcos.p10, 4), key + ".lcos_per_kwh.p10", b.lcos.p10),
+                      tagged(format_fixed(b.lcos.p50, 4), key + ".lcos_per_kwh.p50", b.lcos.p50),
+                      tagged(format_fixed(b.lcos.p90, 4), key + ".lcos_per_kwh.p90", b.lcos.p90),
+                      plain(format_fixed(100 * b.compliant_share, 1) + " %"),
+                      plain(share_text(b.win_probability, b.win_probability_se))});
+  }
+  s.table(t);
+  if (u.tie.called) s.paragraph(sampled_tie_sentence(c.tender, u));
+  return s;
 }
 
 ReportSection breakdown_section(const Ctx& c) {
@@ -620,7 +667,7 @@ ReportDocument build_tender_report(const TenderReportInputs& in) {
   if (!in.result) throw ContractViolation("TenderReportInputs::result", "must be set");
   if (in.result->bids.size() != in.tender->bids.size())
     throw ContractViolation("TenderReportInputs::result", "must hold one result per bid");
-  const Ctx c{*in.tender, *in.result};
+  const Ctx c{*in.tender, *in.result, in.uncertainty};
   const TenderCase& tender = *in.tender;
   ReportDocument doc;
   doc.title = tender.title.empty() ? "Tender evaluation" : tender.title;
@@ -632,6 +679,7 @@ ReportDocument build_tender_report(const TenderReportInputs& in) {
   doc.generated_line = "Generated " + in.generated_at + " by stowage " + STOWAGE_VERSION_STRING;
   doc.sections.push_back(decision_section(c));
   doc.sections.push_back(scoring_section(c));
+  if (in.uncertainty) doc.sections.push_back(uncertainty_section(c));
   doc.sections.push_back(breakdown_section(c));
   doc.sections.push_back(warranty_section(c));
   doc.sections.push_back(compliance_section(c));
@@ -647,10 +695,16 @@ void add_tender_report_files(OutputSet& set, const TenderReportInputs& in) {
   add_document_files(set, std::make_shared<const ReportDocument>(build_tender_report(in)));
   const TenderCase* tender = in.tender;
   const TenderResult* result = in.result;
+  const TenderUncertainty* uncertainty = in.uncertainty;
   auto designs = std::make_shared<std::vector<DesignResult>>();
   for (const BidResult& b : result->bids) designs->push_back(b.design);
-  set.add("tender.json",
-          [tender, result](std::ostream& out) { write_tender_json(out, *tender, *result); });
+  set.add("tender.json", [tender, result, uncertainty](std::ostream& out) {
+    write_tender_json(out, *tender, *result, uncertainty);
+  });
+  if (uncertainty) {
+    set.add("bid-uncertainty.csv",
+            [uncertainty](std::ostream& out) { write_tender_uncertainty_csv(out, *uncertainty); });
+  }
   set.add("bids.csv",
           [tender, result](std::ostream& out) { write_tender_csv(out, *tender, *result); });
   set.add("designs.csv", [designs](std::ostream& out) { write_designs_csv(out, *designs); });

@@ -7,7 +7,8 @@
 // bids.csv, designs.csv and cash-flows.csv (as `tender --out` writes them).
 //
 // Content, in order: the decision (recommended bid, NPC, LCOS in both conventions, runner-up
-// and margin, where the difference comes from, a near-tie call-out); the scoring table; the
+// and margin, where the difference comes from, a near-tie call-out); the scoring table; with
+// variations, the sampled NPC and LCOS percentiles and win probabilities; the
 // present-value cost breakdown per bid (table and stacked chart); each bid's warranty against
 // its modelled life and the claims to question in clarification; the non-compliant bids with
 // their shortfalls; the inputs (basis, requirements, weights, site, each bid's offer, prices
@@ -25,6 +26,7 @@
 
 #include "catalog-schema/tender_loader.h"
 #include "optimiser/analysis/tender.h"
+#include "optimiser/analysis/tender_uncertainty.h"
 #include "optimiser/report/output_set.h"
 #include "optimiser/report/report_document.h"
 
@@ -34,6 +36,10 @@ struct TenderReportInputs {
   const TenderCase* tender = nullptr;    // required
   const TenderResult* result = nullptr;  // required, evaluate_tender(*tender)
   std::string generated_at;              // UTC time stamp, e.g. from report_timestamp()
+  // Optional: run_tender_uncertainty() on the tender's variations. When given, the decision's
+  // near-tie call is the samples' and an Uncertainty section follows the scoring, and
+  // tender.json carries the same "uncertainty" object as `tender --format json`.
+  const TenderUncertainty* uncertainty = nullptr;
 };
 
 // Throws ContractViolation when a required input is missing; an InputError when an input

@@ -67,9 +67,133 @@ void write_capacity_claims_text(std::ostream& out, const TenderCase& tender,
   }
 }
 
+std::string percent(double share) { return format_fixed(100 * share, 1) + " %"; }
+
+std::string drawn_list(const TenderUncertainty& u) {
+  std::string text;
+  for (const Variation& v : u.drawn) {
+    if (!text.empty()) text += ", ";
+    text += v.label + " (" + to_string(v.distribution->kind) + ")";
+  }
+  return text;
+}
+
+void write_uncertainty_text(std::ostream& out, const TenderCase& tender,
+                            const TenderUncertainty& u) {
+  const std::string& cur = tender.economics.currency;
+  fmt::print(out,
+             "\nUncertainty over {} samples of the tender's variations (seed {}; every bid "
+             "through the same evaluation)\n  drawn: {}\n",
+             u.samples, u.seed, drawn_list(u));
+  fmt::print(out, "  {:<10}{:>13}{:>13}{:>13}{:>9}{:>9}{:>9}{:>11}{:>20}\n", "bid", "NPC P10",
+             "NPC P50", "NPC P90", "LCOS P10", "P50", "P90", "compliant", "ranks first");
+  for (const BidUncertainty& b : u.bids) {
+    fmt::print(out, "  {:<10}{:>13}{:>13}{:>13}{:>9}{:>9}{:>9}{:>11}{:>20}\n", b.label,
+               format_amount(b.npc.p10), format_amount(b.npc.p50), format_amount(b.npc.p90),
+               format_fixed(b.lcos.p10, 4), format_fixed(b.lcos.p50, 4),
+               format_fixed(b.lcos.p90, 4), percent(b.compliant_share),
+               percent(b.win_probability) + " +- " + percent(b.win_probability_se));
+  }
+  fmt::print(out, "  (NPC in {}, LCOS ours in {}/kWh; +- one standard error)\n", cur, cur);
+  if (u.no_winner_probability > 0) {
+    fmt::print(out, "  No bid compliant in {} of the samples.\n", percent(u.no_winner_probability));
+  }
+  if (u.tie.called && u.tie.margin_samples > 0) {
+    fmt::print(out,
+               "  Score margin of {} over {}: P10 {}, P50 {}, P90 {} points ({} samples with "
+               "both compliant)\n",
+               tender.bids[u.tie.leader].label, tender.bids[u.tie.runner_up].label,
+               format_fixed(u.tie.margin_p10, 1), format_fixed(u.tie.margin_p50, 1),
+               format_fixed(u.tie.margin_p90, 1), u.tie.margin_samples);
+  }
+}
+
+void write_stats_json(JsonWriter& json, const char* key, const SampleStatistics& s) {
+  json.key(key).begin_object();
+  json.field("mean", s.mean);
+  json.field("standard_error", s.standard_error);
+  json.field("p10", s.p10);
+  json.field("p50", s.p50);
+  json.field("p90", s.p90);
+  json.end_object();
+}
+
+void write_uncertainty_json(JsonWriter& json, const TenderCase& tender, const TenderResult& result,
+                            const TenderUncertainty& u) {
+  json.key("uncertainty").begin_object();
+  json.field("samples", static_cast<long>(u.samples));
+  json.field("seed", std::to_string(u.seed));
+  json.key("drawn").begin_array();
+  for (const Variation& v : u.drawn) {
+    json.begin_object();
+    json.field("path", v.path);
+    json.field("label", v.label);
+    json.field("unit", v.unit);
+    json.field("distribution", to_string(v.distribution->kind));
+    json.end_object();
+  }
+  json.end_array();
+  json.field("near_tie_by_margins", result.near_tie);
+  json.key("leader");
+  if (u.tie.called) {
+    json.value(tender.bids[u.tie.leader].label);
+  } else {
+    json.null();
+  }
+  json.key("runner_up");
+  if (u.tie.called) {
+    json.value(tender.bids[u.tie.runner_up].label);
+  } else {
+    json.null();
+  }
+  const double nan = std::nan("");
+  json.field("runner_up_at_least_as_good_share", u.tie.called ? u.tie.runner_up_share : nan);
+  json.field("runner_up_at_least_as_good_share_se", u.tie.called ? u.tie.runner_up_share_se : nan);
+  json.field("near_tie_share", kNearTieShare);
+  json.field("near_tie_standard_errors", kNearTieStandardErrors);
+  const bool margin = u.tie.called && u.tie.margin_samples > 0;
+  json.field("margin_samples", static_cast<long>(u.tie.margin_samples));
+  json.field("margin_p10", margin ? u.tie.margin_p10 : nan);
+  json.field("margin_p50", margin ? u.tie.margin_p50 : nan);
+  json.field("margin_p90", margin ? u.tie.margin_p90 : nan);
+  json.field("no_winner_probability", u.no_winner_probability);
+  json.key("bids").begin_array();
+  for (const BidUncertainty& b : u.bids) {
+    json.begin_object();
+    json.field("label", b.label);
+    write_stats_json(json, "npc", b.npc);
+    write_stats_json(json, "lcos_per_kwh", b.lcos);
+    json.field("compliant_share", b.compliant_share);
+    json.field("win_probability", b.win_probability);
+    json.field("win_probability_se", b.win_probability_se);
+    json.end_object();
+  }
+  json.end_array();
+  json.end_object();
+}
+
 }  // namespace
 
-void write_tender_text(std::ostream& out, const TenderCase& tender, const TenderResult& result) {
+std::string share_text(double share, double standard_error) {
+  return percent(share) + " (standard error " + percent(standard_error) + ")";
+}
+
+std::string sampled_tie_sentence(const TenderCase& tender, const TenderUncertainty& u) {
+  const std::string& leader = tender.bids[u.tie.leader].label;
+  const std::string& runner = tender.bids[u.tie.runner_up].label;
+  const std::string finding =
+      " from " + std::to_string(u.samples) + " samples of the tender's variations: " + runner +
+      " does at least as well as " + leader + " in " + percent(u.tie.runner_up_share) +
+      " of them (standard error " + percent(u.tie.runner_up_share_se) +
+      "); the rule from the samples calls a near tie when this share plus " +
+      format_general(kNearTieStandardErrors) + " standard errors reaches " +
+      percent(kNearTieShare) + " (docs/tender.md)";
+  return u.tie.near_tie ? "NEAR TIE" + finding + "; the ranking may turn on the inputs varied."
+                        : "No near tie" + finding + ".";
+}
+
+void write_tender_text(std::ostream& out, const TenderCase& tender, const TenderResult& result,
+                       const TenderUncertainty* uncertainty) {
   const std::string& cur = tender.economics.currency;
   fmt::print(out, "stowage {}: tender evaluation\n", STOWAGE_VERSION_STRING);
   fmt::print(out, "Tender: {}\nDuty:   {} ({} kWh demand a year)\n", tender.title, tender.site.name,
@@ -93,7 +217,9 @@ void write_tender_text(std::ostream& out, const TenderCase& tender, const Tender
                  best.total_score - second.total_score, format_signed_amount(second.npc - best.npc),
                  cur);
     }
-    if (result.near_tie) {
+    if (uncertainty && uncertainty->tie.called) {
+      out << sampled_tie_sentence(tender, *uncertainty) << "\n";
+    } else if (result.near_tie) {
       fmt::print(out,
                  "NEAR TIE: the two best bids are within {} points of total score or {} % of "
                  "NPC (the tender's margins); the ranking may turn on inputs the evaluation "
@@ -115,6 +241,7 @@ void write_tender_text(std::ostream& out, const TenderCase& tender, const Tender
                format_fixed(b.lcos_schmidt_per_kwh, 4), b.price_score, b.technical_score,
                b.total_score);
   }
+  if (uncertainty) write_uncertainty_text(out, tender, *uncertainty);
   out << "\nWarranty against the chemistry's own ageing model\n";
   out << "  (replacements at the end of the years shown)\n";
   fmt::print(out, "  {:<10}{:>15}{:>12}{:>16}{:>20}{:>18}\n", "bid", "warranty ends", "by",
@@ -169,7 +296,8 @@ void write_tender_text(std::ostream& out, const TenderCase& tender, const Tender
   print_safety_notice(out);
 }
 
-void write_tender_json(std::ostream& out, const TenderCase& tender, const TenderResult& result) {
+void write_tender_json(std::ostream& out, const TenderCase& tender, const TenderResult& result,
+                       const TenderUncertainty* uncertainty) {
   JsonWriter json;
   json.begin_object();
   json.field("stowage_version", STOWAGE_VERSION_STRING);
@@ -184,7 +312,13 @@ void write_tender_json(std::ostream& out, const TenderCase& tender, const Tender
   } else {
     json.value(result.bids[result.order.front()].label);
   }
-  json.field("near_tie", result.near_tie);
+  if (uncertainty) {
+    // The call is the samples' (near_tie_by_margins in "uncertainty" keeps the margins' call).
+    json.field("near_tie", uncertainty->tie.near_tie);
+    json.field("near_tie_rule", "samples");
+  } else {
+    json.field("near_tie", result.near_tie);
+  }
   json.field("near_tie_points", tender.scoring.near_tie_points);
   json.field("near_tie_npc_share", tender.scoring.near_tie_npc_share);
   json.key("bids").begin_array();
@@ -251,6 +385,7 @@ void write_tender_json(std::ostream& out, const TenderCase& tender, const Tender
     json.end_object();
   }
   json.end_array();
+  if (uncertainty) write_uncertainty_json(json, tender, result, *uncertainty);
   json.field("notice",
              "Planning estimate only; follow local codes, the manufacturer's instructions and "
              "licensed practice.");
@@ -277,6 +412,19 @@ void write_tender_csv(std::ostream& out, const TenderCase&, const TenderResult& 
         << format_machine(b.power_kw) << ',' << format_machine(b.top_up_kwh) << ','
         << format_machine(b.liquidated_damages_pv) << ',' << format_machine(b.availability_pv)
         << "\n";
+  }
+}
+
+void write_tender_uncertainty_csv(std::ostream& out, const TenderUncertainty& u) {
+  out << "bid,samples,npc_mean,npc_se,npc_p10,npc_p50,npc_p90,lcos_p10,lcos_p50,lcos_p90,"
+         "compliant_share,win_probability,win_probability_se\n";
+  for (const BidUncertainty& b : u.bids) {
+    out << b.label << ',' << u.samples << ',' << format_machine(b.npc.mean) << ','
+        << format_machine(b.npc.standard_error) << ',' << format_machine(b.npc.p10) << ','
+        << format_machine(b.npc.p50) << ',' << format_machine(b.npc.p90) << ','
+        << format_machine(b.lcos.p10) << ',' << format_machine(b.lcos.p50) << ','
+        << format_machine(b.lcos.p90) << ',' << format_machine(b.compliant_share) << ','
+        << format_machine(b.win_probability) << ',' << format_machine(b.win_probability_se) << "\n";
   }
 }
 

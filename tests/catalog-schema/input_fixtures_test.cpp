@@ -1,5 +1,6 @@
 // SPDX-License-Identifier: MIT
-// The file fixtures: every bad-inputs/NN-name/study.yaml fails with an InputError whose text
+// The file fixtures: every bad-inputs/NN-name/study.yaml (or tender.yaml, loaded as a tender)
+// fails with an InputError whose text
 // holds each line of its expect.txt (the same check the end-to-end run of `stowage check` makes
 // on stderr), and the shipped profiles and demo studies load.
 #include <algorithm>
@@ -10,6 +11,7 @@
 
 #include "catalog-schema/profile_loader.h"
 #include "catalog-schema/study_loader.h"
+#include "catalog-schema/tender_loader.h"
 #include "catalog-schema/yaml_document.h"
 #include "catalog_test_support.h"
 
@@ -52,7 +54,11 @@ TEST_CASE("every bad-input fixture fails with the expected file, line and field"
     CHECK(expected.front().find(':') != std::string::npos);
     bool threw = false;
     try {
-      load_study_details_file((dir / "study.yaml").string());
+      if (fs::exists(dir / "tender.yaml")) {
+        load_tender_file((dir / "tender.yaml").string());
+      } else {
+        load_study_details_file((dir / "study.yaml").string());
+      }
     } catch (const InputError& e) {
       threw = true;
       const std::string what = e.what();

@@ -7,6 +7,7 @@
 #include <string>
 
 #include "catalog-schema/study_loader.h"
+#include "catalog-schema/tender_loader.h"
 #include "model/invalid_value.h"
 #include "test_paths.h"
 
@@ -81,4 +82,56 @@ TEST_CASE("a value out of range or breaking a rule is refused and changes nothin
     CHECK_THAT(e.rule(), Catch::Contains("after setting profiles.lfp.temperature.charging_c.min"));
   }
   CHECK(s.profiles[lfp].temperature.spec().charge_min_c == charge_min);
+}
+
+namespace {
+
+TenderCase tender_demo() {
+  return load_tender_file(std::string(STOWAGE_SOURCE_DIR) +
+                          "/studies/pier-nine-tender/tender.yaml");
+}
+
+}  // namespace
+
+TEST_CASE("a tender's paths are each bid's chemistry and open costs, the site and the economics",
+          "[catalog][paths][tender]") {
+  const TenderCase t = tender_demo();
+  const std::vector<ParameterInfo> paths = parameter_paths(t);
+  std::size_t per_bid = 0, site = 0, economics = 0;
+  for (const ParameterInfo& p : paths) {
+    INFO(p.path);
+    if (p.path.rfind("bids.Bid A.", 0) == 0) ++per_bid;
+    if (p.path.rfind("site.", 0) == 0) ++site;
+    if (p.path.rfind("economics.", 0) == 0) ++economics;
+    CHECK(p.path.rfind("design_space.", 0) == std::string::npos);
+    CHECK(p.path.find("capital_per_kwh") == std::string::npos);
+    CHECK(p.path.find("fixed_om_per_kwh_year") == std::string::npos);
+    CHECK(p.path.find("replacement_share") == std::string::npos);
+    CHECK(find_parameter(t, p.path).path == p.path);  // every listed path is found
+  }
+  CHECK(per_bid == 6);  // parameter_paths.h lists six per bid
+  CHECK(paths.size() == 6 * t.bids.size() + site + economics);
+  CHECK(economics == 2);
+  // A bid's value is its own profile's.
+  const ParameterInfo life = find_parameter(t, "bids.Bid B.ageing.calendar_life_years");
+  CHECK(life.base == t.bids[1].profile.calendar_life_years);
+  CHECK(life.unit == "years");
+}
+
+TEST_CASE("a tender's refused value names the tender's path, not the study view's",
+          "[catalog][paths][tender]") {
+  TenderCase t = tender_demo();
+  const double before = t.bids[0].profile.temperature.spec().charge_min_c;
+  try {
+    // Above the profile's charging maximum (45 degC in bid-a.yaml): the profile refuses it.
+    apply_parameter(t, "bids.Bid A.temperature.charging_c.min", 50);
+    FAIL("expected InvalidValue");
+  } catch (const InvalidValue& e) {
+    CHECK(e.field().rfind("bids.Bid A.temperature", 0) == 0);
+    CHECK_THAT(e.rule(), Catch::Contains("after setting bids.Bid A.temperature.charging_c.min"));
+    CHECK(e.rule().find("profiles.") == std::string::npos);
+  }
+  CHECK(t.bids[0].profile.temperature.spec().charge_min_c == before);  // left unchanged
+  CHECK_THROWS_AS(apply_parameter(t, "bids.Bid A.costs.capital_per_kwh", 100), InvalidValue);
+  CHECK_THROWS_AS(apply_parameter(t, "economics.real_discount_rate", 1.0), InvalidValue);
 }

@@ -85,6 +85,31 @@ TEST_CASE("every schema field has a description and is in docs/input-format.md",
   CHECK(fields > 80);
 }
 
+// Emitted as text, so two schema nodes compare by content.
+std::string emitted(const YAML::Node& node) {
+  YAML::Emitter out;
+  out << node;
+  return out.c_str();
+}
+
+TEST_CASE("a tender's variation entries are the study's, but for the example of a path",
+          "[catalog][schema][tender]") {
+  // The tender schema carries its own copy of the variation and distribution definitions
+  // (the validator resolves only local references); this keeps the two from drifting apart.
+  YAML::Node study = YAML::Clone(SchemaValidator::embedded("study").schema()["$defs"]);
+  YAML::Node tender = YAML::Clone(SchemaValidator::embedded("tender").schema()["$defs"]);
+  REQUIRE(tender["variation"]);
+  REQUIRE(tender["distribution"]);
+  CHECK(emitted(tender["distribution"]) == emitted(study["distribution"]));
+  CHECK_THAT(tender["variation"]["properties"]["path"]["description"].Scalar(),
+             Catch::Contains("bids."));
+  YAML::Node study_path = study["variation"]["properties"]["path"];
+  study_path.remove("description");
+  YAML::Node tender_path = tender["variation"]["properties"]["path"];
+  tender_path.remove("description");
+  CHECK(emitted(tender["variation"]) == emitted(study["variation"]));
+}
+
 double schema_default(const std::string& schema_name, const std::string& path) {
   const SchemaValidator& v = SchemaValidator::embedded(schema_name);
   double value = std::numeric_limits<double>::quiet_NaN();

@@ -9,6 +9,7 @@
 
 #include "catalog-schema/parameter_paths.h"
 #include "catalog-schema/study_loader.h"
+#include "catalog-schema/tender_loader.h"
 #include "catalog_test_support.h"
 #include "model/invalid_value.h"
 
@@ -229,6 +230,110 @@ TEST_CASE("every parameter path is listed in docs/input-format.md", "[catalog][v
       CHECK(docs.find("`" + path + "`") != std::string::npos);
     }
   }
+}
+
+}  // namespace
+}  // namespace stowage
+
+namespace stowage {
+namespace {
+
+// A tender on the Pier Nine demo's site and two of its bids, with `block` appended.
+std::string tender_text(const std::string& block) {
+  const std::string demo = testing::source_path("studies/pier-nine-tender/");
+  return "tender:\n"
+         "  title: Variations of a tender\n"
+         "  site: " +
+         demo +
+         "site.yaml\n"
+         "  economics: {project_years: 15, real_discount_rate: 0.07, currency: EUR}\n"
+         "  scoring: {price_weight: 0.7, criteria: {safety: 0.2, service: 0.1}}\n"
+         "  bids:\n"
+         "    - " +
+         demo +
+         "offer-a.yaml\n"
+         "    - " +
+         demo + "offer-b.yaml\n" + block;
+}
+
+TEST_CASE("a tender reads its variations with the tender's paths and the bids' values",
+          "[catalog][variations][tender]") {
+  const testing::TempDir dir;
+  const std::string path = dir.write("tender.yaml", tender_text("  variations:\n"
+                                                                "    - path: bids.Bid A.ageing."
+                                                                "calendar_life_years\n"
+                                                                "      low: 12\n"
+                                                                "      high: 18\n"
+                                                                "      distribution: {kind: "
+                                                                "triangular}\n"
+                                                                "    - path: site.backup.price_"
+                                                                "per_kwh\n"
+                                                                "      low: 0.20\n"
+                                                                "      high: 0.40\n"
+                                                                "      distribution: {kind: "
+                                                                "uniform}\n"));
+  const TenderCase tender = load_tender_file(path);
+  REQUIRE(tender.variations.size() == 2);
+  const Variation& life = tender.variations[0];
+  CHECK(life.path == "bids.Bid A.ageing.calendar_life_years");
+  CHECK(life.unit == "years");
+  // The base is the bid's profile as loaded (studies/pier-nine-tender/bid-a.yaml: 15 years).
+  CHECK(life.base == tender.bids[0].profile.calendar_life_years);
+  REQUIRE(life.distribution.has_value());
+  CHECK(life.distribution->mode == life.base);
+  CHECK(tender.variations[1].unit == "EUR/kWh");
+  CHECK(tender.variations[1].at.line == line_of(read_text(path), "- path: site.backup"));
+
+  // The setter changes only the bid it names and keeps the bid's profile id.
+  TenderCase changed = tender;
+  apply_parameter(changed, "bids.Bid A.ageing.calendar_life_years", 12);
+  CHECK(changed.bids[0].profile.calendar_life_years == 12);
+  CHECK(changed.bids[0].profile.id == tender.bids[0].profile.id);
+  CHECK(changed.bids[1].profile.calendar_life_years == tender.bids[1].profile.calendar_life_years);
+  apply_parameter(changed, "economics.real_discount_rate", 0.05);
+  CHECK(changed.economics.real_discount_rate == 0.05);
+}
+
+TEST_CASE("a tender refuses a variation the tender cannot take, at its file, line and field",
+          "[catalog][variations][tender]") {
+  const testing::TempDir dir;
+  const auto refused = [&](const std::string& block, const std::string& needle,
+                           const std::string& field, const std::string& words, int above = 0) {
+    const std::string text = tender_text(block);
+    const std::string path = dir.write("tender.yaml", text);
+    const InputError e = expect_input_error([&] { load_tender_file(path); }, path,
+                                            line_of(text, needle) - above, field);
+    CHECK_THAT(e.message(), Catch::Matchers::Contains(words));
+  };
+  // A discount rate of 1.2 lies outside [0, 1) (the tender schema's own range).
+  refused(
+      "  variations:\n    - path: economics.real_discount_rate\n      low: 0.02\n"
+      "      high: 1.2\n",
+      "high: 1.2", "tender.variations[0].high", "must lie in [0, 1)");
+  // A study-only path (the search) and a bid that is not in the tender.
+  refused("  variations:\n    - path: design_space.budget\n      low: 1\n      high: 2\n",
+          "design_space.budget", "tender.variations[0].path",
+          "not a parameter path of this tender");
+  refused(
+      "  variations:\n    - path: bids.Bid Z.ageing.calendar_life_years\n      low: 1\n"
+      "      high: 2\n",
+      "Bid Z", "tender.variations[0].path", "not a parameter path of this tender");
+  // The offered price is the bid's, not a tender parameter.
+  refused(
+      "  variations:\n    - path: bids.Bid B.costs.capital_per_kwh\n      low: 1\n"
+      "      high: 2\n",
+      "Bid B.costs", "tender.variations[0].path", "is fixed by the bid");
+  // A tender only draws its variations, so each needs a distribution.
+  refused(
+      "  variations:\n    - path: economics.real_discount_rate\n      low: 0.02\n"
+      "      high: 0.1\n",
+      "- path: economics", "tender.variations[0].distribution", "is required in a tender");
+  // The same path twice is refused at the second entry (its path, the line above low).
+  refused(
+      "  variations:\n    - path: economics.real_discount_rate\n      low: 0.02\n"
+      "      high: 0.1\n    - path: economics.real_discount_rate\n      low: 0.03\n"
+      "      high: 0.09\n",
+      "low: 0.03", "tender.variations[1].path", "already varied by tender.variations[0]", 1);
 }
 
 }  // namespace

@@ -25,6 +25,18 @@ grep -q "| Bid D | min\\\\_usable\\\\_kwh | 1,200 | 960 | 240 kWh | 4 |" "$WORK/
 # The report's tender.json is the JSON the command prints: the same result object.
 expect_exit 0 -- "$STOWAGE" tender --format json "$tender" &&
   { cmp -s "$WORK/out" "$WORK/r1/tender.json" || fail "tender.json differs from --format json"; }
+# With variations: the report gains the sampled section (its numbers tagged and checked against
+# tender.json by report_check.py), the call names the samples' rule, and tender.json is again
+# what --format json prints for the same samples.
+varied="$demo/tender-variations.yaml"
+expect_exit 0 -- "$STOWAGE" tender "$varied" --samples 24 --quiet --report "$WORK/rv" || fail "varied report run"
+"$PY" "$CHECK" "$WORK/rv" --tender || fail "report_check on the report with variations"
+grep -q "^## Uncertainty of the ranking" "$WORK/rv/report.md" || fail "no uncertainty section"
+grep -qi "near tie from 24 samples of the tender's variations" "$WORK/rv/report.md" || fail "sampled call not named"
+grep -q 'data-key="uncertainty.bids\[0\].npc.p10"' "$WORK/rv/report.html" || fail "sampled numbers not tagged"
+[ -s "$WORK/rv/bid-uncertainty.csv" ] || fail "bid-uncertainty.csv missing from the report set"
+expect_exit 0 -- "$STOWAGE" tender "$varied" --samples 24 --quiet --format json &&
+  { cmp -s "$WORK/out" "$WORK/rv/tender.json" || fail "varied tender.json differs from --format json"; }
 
 # The margins quoted in prose are the differences of the JSON's numbers, to the digits shown.
 "$PY" - "$WORK/r1" <<'PY' || fail "runner-up margins differ from tender.json"
