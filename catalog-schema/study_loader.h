@@ -4,13 +4,14 @@
 //
 // Paths in the study are relative to `base_dir` (the study file's directory). Errors inside a
 // referenced file name that file; a referenced file that cannot be opened is reported at the
-// study key naming it (study.site, study.profiles[i]). Rules across files, checked here:
+// study key naming it (study.site, study.profiles[i]). Rules across files, checked here; each
+// rule runs on what has loaded (a rule needing a value another rule refused is skipped), and
+// when more than one fails they come together as one InputErrors (what() is the first's):
 //   - profile ids are unique (error at the later study.profiles[i], naming the earlier file);
 //   - every profile's costs.currency equals study.economics.currency (error at the profile's
 //     costs.currency, naming the study's value and position);
 //   - a design names a loaded profile id (with a suggestion for a near miss) and its
-//     dod_setpoint lies within that profile's [dod.min, dod.max]; every design is checked and
-//     their errors come together as one InputErrors (what() is the first's);
+//     dod_setpoint lies within that profile's [dod.min, dod.max]; every design is checked;
 //   - search.dod_ladder has from <= to; search.max_mass_kg / max_volume_l need cell.mass_kg /
 //     cell.volume_l in every profile.
 //   - at most kMaxProfiles profiles and kMaxDesigns designs; strings_parallel and

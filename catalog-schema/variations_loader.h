@@ -63,7 +63,8 @@ struct Variation {
 };
 
 // Reads study.variations (empty when absent). `study` is the validated case the block belongs
-// to. A path given twice is refused at the second entry.
+// to. A path given twice is refused at the second entry. Each entry is checked on its own: more
+// than one bad entry throws InputErrors holding each one's error.
 std::vector<Variation> read_variations(const YamlDocument& doc, const StudyCase& study);
 
 // Parses "PATH=LOW:HIGH" (base: the study's value, no distribution); throws InvalidValue with
