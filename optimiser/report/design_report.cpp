@@ -181,8 +181,16 @@ const char* csv_bool(bool flag) { return flag ? "true" : "false"; }
 
 }  // namespace
 
+std::string csv_text(const std::string& text) {
+  if (text.find_first_of(",\"\r\n") == std::string::npos) return text;
+  std::string out = "\"";
+  for (char c : text) out += c == '"' ? std::string("\"\"") : std::string(1, c);
+  return out + "\"";
+}
+
 void write_designs_csv(std::ostream& out, const std::vector<DesignResult>& designs,
-                       const std::vector<RequirementCheck>* checks) {
+                       const std::vector<RequirementCheck>* checks, const CsvRunColumns& run) {
+  const std::string run_cells = ',' + csv_text(run.study) + ',' + csv_text(run.method);
   out << "rank,profile,dod_setpoint,cells_series,strings_parallel,nameplate_kwh,lcos_per_kwh,"
          "lcos_schmidt_per_kwh,npc,npc_difference_to_best,currency,investment,replacement_years,"
          "discharged_kwh_per_year,discharged_kwh_first_year,delivered_kwh_first_year,"
@@ -190,7 +198,8 @@ void write_designs_csv(std::ostream& out, const std::vector<DesignResult>& desig
          "unserved_fraction_max,meets_unserved_limit";
   for (const CostLine& item : cost_lines()) out << ",pv_" << item.key;
   out << ",delivers_energy,charge_blocked_by_temperature_hours_first_year,"
-         "discharge_blocked_by_temperature_hours_first_year,meets_autonomy,meets_peak_discharge";
+         "discharge_blocked_by_temperature_hours_first_year,meets_autonomy,meets_peak_discharge,"
+         "study,method";
   out << "\n";
   // Rank: the place by NPC among these rows (ties keep their order), as the text ranking.
   std::vector<std::size_t> order(designs.size());
@@ -224,23 +233,26 @@ void write_designs_csv(std::ostream& out, const std::vector<DesignResult>& desig
       out << csv_bool((*checks)[i].meets_autonomy) << ',' << csv_bool((*checks)[i].meets_peak);
     else
       out << ',';
-    out << "\n";
+    out << run_cells << "\n";
   }
 }
 
-void write_cash_flows_csv(std::ostream& out, const std::vector<DesignResult>& designs) {
+void write_cash_flows_csv(std::ostream& out, const std::vector<DesignResult>& designs,
+                          const CsvRunColumns& run) {
+  const std::string run_cells = ',' + csv_text(run.study) + ',' + csv_text(run.method);
   out << "profile,dod_setpoint,strings_parallel,year,row,discount_time_years,health_start,"
          "damage_cycle,damage_calendar,damage_partial_charge,damage_end,replaced_at_end,"
          "discharged_kwh,charge_source_kwh,backup_kwh,unserved_kwh,curtailed_kwh,investment,"
          "replacement,fixed_om,variable_om,charging,backup,unserved_penalty,end_of_life,"
          "residual_value,total,discount_factor,present_value,auxiliary_kwh,auxiliary_source_kwh,"
-         "auxiliary_bank_kwh,auxiliary_unmet_kwh\n";
+         "auxiliary_bank_kwh,auxiliary_unmet_kwh,study,method\n";
   for (const auto& d : designs) {
     const std::string id = d.profile_id + ',' + csv_number(d.dod_setpoint) + ',' +
                            std::to_string(d.bank.strings_parallel);
     // Year 0: the investment.
     out << id << ",0,investment,0,,,,,,,,,,,," << csv_number(d.investment) << ",,,,,,,,,"
-        << csv_number(d.investment) << ",1," << csv_number(d.investment) << ",,,,\n";
+        << csv_number(d.investment) << ",1," << csv_number(d.investment) << ",,,," << run_cells
+        << "\n";
     for (const auto& y : d.years) {
       out << id << ',' << y.year << ",operation," << y.year << ',' << csv_number(y.health_start)
           << ',' << csv_number(y.damage_cycle) << ',' << csv_number(y.damage_calendar) << ','
@@ -257,7 +269,7 @@ void write_cash_flows_csv(std::ostream& out, const std::vector<DesignResult>& de
           << ',' << csv_number(y.dispatch.auxiliary_kwh) << ','
           << csv_number(y.dispatch.auxiliary_source_kwh) << ','
           << csv_number(y.dispatch.auxiliary_bank_kwh) << ','
-          << csv_number(y.dispatch.auxiliary_unmet_kwh) << "\n";
+          << csv_number(y.dispatch.auxiliary_unmet_kwh) << run_cells << "\n";
     }
     // The last bank's end of life, discounted at N + 1 or later when that bank has life left
     // (docs/method.md): `year` is the whole year it falls in, the exact time has its column.
@@ -266,7 +278,7 @@ void write_cash_flows_csv(std::ostream& out, const std::vector<DesignResult>& de
     out << id << ',' << static_cast<long>(std::ceil(t_final - 1e-9)) << ",end_of_life,"
         << csv_number(t_final) << ",,,,,,,,,,,,0,0,0,0,0,0,0," << csv_number(d.final_end_of_life)
         << ",0," << csv_number(d.final_end_of_life) << ',' << csv_number(df_last) << ','
-        << csv_number(d.final_end_of_life * df_last) << ",,,,\n";
+        << csv_number(d.final_end_of_life * df_last) << ",,,," << run_cells << "\n";
   }
 }
 

@@ -40,14 +40,28 @@ const char* no_lcos_statement();
 // An LCOS for a table column: 4 decimals, or "none" when the design delivers no energy.
 std::string lcos_cell(const DesignResult& design, double lcos_per_kwh);
 
+// What every row of designs.csv and cash-flows.csv repeats, as the JSON reports carry it:
+// `study` the study's title and `method` the optimiser's search method ("milp", "exhaustive",
+// "bounded"; empty when no search ran, as in `evaluate`).
+struct CsvRunColumns {
+  std::string study;
+  std::string method;
+};
+
 // CSV files: one summary row per design, and the year-by-year cash flows of every design.
 // designs.csv: lcos_per_kwh and lcos_schmidt_per_kwh are empty when delivers_energy is false;
 // the first-year temperature idle hours; meets_autonomy and meets_peak_discharge from
 // `checks` (checks[i] for designs[i]), empty without them (optimise offers only designs that
-// meet both).
+// meet both); then `study` and `method` from `run`.
 void write_designs_csv(std::ostream& out, const std::vector<DesignResult>& designs,
-                       const std::vector<RequirementCheck>* checks = nullptr);
-void write_cash_flows_csv(std::ostream& out, const std::vector<DesignResult>& designs);
+                       const std::vector<RequirementCheck>* checks = nullptr,
+                       const CsvRunColumns& run = {});
+void write_cash_flows_csv(std::ostream& out, const std::vector<DesignResult>& designs,
+                          const CsvRunColumns& run = {});
+
+// A text field of a CSV row: as it is, or in double quotes (inner quotes doubled) when it holds
+// a comma, a quote or a line break (RFC 4180).
+std::string csv_text(const std::string& text);
 
 // The opening fields of a JSON report: stowage_version, study, site, project_years,
 // real_discount_rate and currency.

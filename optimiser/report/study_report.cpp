@@ -694,9 +694,12 @@ void add_report_files(OutputSet& set, const ReportInputs& in) {
   const OptimiseResult* result = in.result;
   set.add("result.json",
           [study, result](std::ostream& out) { write_optimise_json(out, *study, *result); });
-  set.add("designs.csv", [result](std::ostream& out) { write_designs_csv(out, result->ranking); });
+  const CsvRunColumns run{study->title, to_string(result->method)};
+  set.add("designs.csv", [result, run](std::ostream& out) {
+    write_designs_csv(out, result->ranking, nullptr, run);
+  });
   set.add("cash-flows.csv",
-          [result](std::ostream& out) { write_cash_flows_csv(out, result->ranking); });
+          [result, run](std::ostream& out) { write_cash_flows_csv(out, result->ranking, run); });
   if (in.tornado) {
     const TornadoResult* tornado = in.tornado;
     set.add("tornado.json",
