@@ -330,6 +330,10 @@ LoadedStudy build_study(const YamlDocument& doc, const std::string& base_dir) {
   Build b(doc, base_dir);
   LoadedStudy& loaded = b.loaded;
   loaded.path = doc.source();
+  {
+    const InputError at = doc.error_at(doc.root().begin()->first, "", "");
+    loaded.study_at = {at.file(), at.line(), at.column()};
+  }
   loaded.study.title = s["title"].Scalar();
   b.economics_read = b.check(
       [&] { loaded.study.economics = read_economics(doc, s["economics"], "study.economics"); });
@@ -367,6 +371,33 @@ LoadedStudy build_study(const YamlDocument& doc, const std::string& base_dir) {
 }
 
 }  // namespace
+
+const SocSeries& study_soc_log(const LoadedStudy& loaded) {
+  if (!loaded.soc_log) {
+    throw InputError(loaded.study_at.file, loaded.study_at.line, loaded.study_at.column,
+                     "study.soc_log",
+                     "the study names no SOC log; add `soc_log: FILE.csv` under `study`, or give "
+                     "the log to `stowage cycles` directly (stowage cycles FILE.csv)");
+  }
+  return *loaded.soc_log;
+}
+
+const ChemistryProfile& study_profile(const LoadedStudy& loaded, const std::string& id,
+                                      const std::string& field) {
+  if (const std::optional<std::size_t> k = loaded.study.find_profile(id))
+    return loaded.study.profiles[*k];
+  std::vector<std::string> ids;
+  std::string all;
+  for (const ChemistryProfile& p : loaded.study.profiles) {
+    ids.push_back(p.id);
+    all += (all.empty() ? "" : ", ") + p.id;
+  }
+  std::string message =
+      "the study " + loaded.path + " has no profile with the id '" + printable_input(id) + "'";
+  const std::string hint = closest_match(id, ids);
+  if (!hint.empty()) message += " (did you mean '" + hint + "'?)";
+  throw InvalidValue(field, message + "; its profiles are: " + all);
+}
 
 LoadedStudy load_study_details(std::istream& in, const std::string& source_name,
                                const std::string& base_dir) {
