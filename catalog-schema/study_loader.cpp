@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: MIT
 #include "catalog-schema/study_loader.h"
 
+#include <algorithm>
 #include <cmath>
 #include <fstream>
 #include <optional>
@@ -43,6 +44,7 @@ struct Build {
   std::vector<bool> sizable;            // per loaded profile: it makes the site's bus
   std::vector<std::size_t> design_at;   // per accepted design: its index in study.designs
   bool ladder_read = true;              // design_space.dod_ladder passed its rules
+  std::vector<YAML::Node> rate_keys;    // per exchange rate: its key, for notes
 
   // Runs `rule`; its InputError (or each of an InputErrors) joins `errors`. False on error.
   template <typename Rule>
@@ -58,6 +60,46 @@ struct Build {
     return false;
   }
 };
+
+// The one conversion of a profile's prices into the study's currency: every money field of
+// ProfileCosts times `rate` (study-currency units per unit of the profile's currency);
+// replacement_share and price_decline_per_year are ratios and stay as they are.
+void convert_prices(ProfileCosts& c, double rate) {
+  // A new field in ProfileCosts must be judged here: money (converted) or ratio (kept).
+  static_assert(sizeof(ProfileCosts) == 8 * sizeof(double) + sizeof(std::optional<double>),
+                "ProfileCosts changed: decide whether the new field is converted");
+  c.capital_per_kwh *= rate;
+  c.capital_per_string *= rate;
+  c.installation_fixed *= rate;
+  c.fixed_om_per_kwh_year *= rate;
+  c.variable_om_per_mwh *= rate;
+  c.end_of_life_per_kwh *= rate;
+  if (c.replacement_end_of_life_per_kwh) *c.replacement_end_of_life_per_kwh *= rate;
+}
+
+// study.economics.exchange_rates: each key a currency code other than the study's own.
+void read_exchange_rates(Build& b) {
+  const YAML::Node rates = b.doc.root()["study"]["economics"]["exchange_rates"];
+  if (!rates) return;
+  const std::string& own = b.loaded.study.economics.currency;
+  for (auto it = rates.begin(); it != rates.end(); ++it) {
+    const std::string code = it->first.Scalar();
+    const std::string field = "study.economics.exchange_rates." + printable_input(code);
+    bool valid = code.size() == 3;
+    for (char c : code) valid = valid && c >= 'A' && c <= 'Z';
+    if (!valid) {
+      b.errors.push_back(b.doc.error_at(
+          it->first, field, "use a three-letter currency code in capitals (e.g. USD) as the key"));
+    } else if (b.economics_read && code == own) {
+      b.errors.push_back(b.doc.error_at(
+          it->first, field,
+          "is the study's own currency; leave it out (its prices need no conversion)"));
+    } else {
+      b.loaded.study.exchange_rates.push_back({code, number(it->second), {}});
+      b.rate_keys.push_back(it->first);
+    }
+  }
+}
 
 // One profile's rules against the study: a unique id, the study's currency, the site's bus.
 // The profile joins the study unless its id is taken; it is sized only if it makes the bus.
@@ -87,15 +129,27 @@ void read_profile(Build& b, const YAML::Node& node, std::size_t i) {
     }
   }
   if (b.economics_read && profile.currency != loaded.study.economics.currency) {
-    const InputError currency_at =
-        doc.error_at(doc.root()["study"]["economics"]["currency"], "", "");
-    b.errors.emplace_back(profile.currency_at.file, profile.currency_at.line,
-                          profile.currency_at.column, "profile.costs.currency",
-                          "prices in " + profile.currency + " but the study is in " +
-                              loaded.study.economics.currency + " (study.economics.currency at " +
-                              currency_at.file() + ":" + std::to_string(currency_at.line()) + ":" +
-                              std::to_string(currency_at.column()) +
-                              "); convert the profile's prices or change the study's currency");
+    std::vector<ExchangeRate>& rates = loaded.study.exchange_rates;
+    const auto rate = std::find_if(rates.begin(), rates.end(), [&](const ExchangeRate& r) {
+      return r.currency == profile.currency;
+    });
+    if (rate != rates.end()) {
+      convert_prices(profile.profile.costs, rate->rate);
+      rate->profile_ids.push_back(profile.profile.id);
+    } else {
+      const std::string& own = loaded.study.economics.currency;
+      const InputError currency_at =
+          doc.error_at(doc.root()["study"]["economics"]["currency"], "", "");
+      b.errors.emplace_back(
+          profile.currency_at.file, profile.currency_at.line, profile.currency_at.column,
+          "profile.costs.currency",
+          "prices in " + profile.currency + " but the study is in " + own +
+              " (study.economics.currency at " + currency_at.file() + ":" +
+              std::to_string(currency_at.line()) + ":" + std::to_string(currency_at.column()) +
+              ") and study.economics.exchange_rates gives no rate for " + profile.currency +
+              "; add one (" + profile.currency + ": R means 1 " + profile.currency + " = R " + own +
+              "), convert the profile's prices or change the study's currency");
+    }
   }
   bool makes_bus = b.site_read;
   if (b.site_read) {
@@ -337,6 +391,7 @@ LoadedStudy build_study(const YamlDocument& doc, const std::string& base_dir) {
   loaded.study.title = s["title"].Scalar();
   b.economics_read = b.check(
       [&] { loaded.study.economics = read_economics(doc, s["economics"], "study.economics"); });
+  read_exchange_rates(b);
 
   loaded.site_path = resolve_relative(base_dir, s["site"].Scalar());
   b.site_read = b.check([&] {
@@ -348,6 +403,15 @@ LoadedStudy build_study(const YamlDocument& doc, const std::string& base_dir) {
     loaded.study.site = std::move(site.site);
   });
   read_profiles(b);
+  // A rate no profile needs is kept (it is shown) but noted: a misspelt code would hide here.
+  for (std::size_t i = 0; i < loaded.study.exchange_rates.size(); ++i) {
+    const ExchangeRate& r = loaded.study.exchange_rates[i];
+    if (!r.profile_ids.empty() || !b.profiles_read) continue;
+    const InputError at = doc.error_at(b.rate_keys[i], "", "");
+    loaded.notes.push_back({at.file(), at.line(), at.column(),
+                            "study.economics.exchange_rates." + r.currency,
+                            "no profile prices in " + r.currency + "; the rate is not used"});
+  }
   read_designs(b);
   read_search(b);
   if (b.profiles_read) check_sizing(b);

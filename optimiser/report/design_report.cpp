@@ -282,16 +282,38 @@ void write_cash_flows_csv(std::ostream& out, const std::vector<DesignResult>& de
   }
 }
 
-void write_study_json(JsonWriter& json, const Study& study) {
+std::string exchange_rate_text(const ExchangeRate& rate, const std::string& study_currency) {
+  std::string text =
+      "1 " + rate.currency + " = " + format_general(rate.rate, 10) + " " + study_currency;
+  if (rate.profile_ids.empty())
+    return text + ", not used (no profile prices in " + rate.currency + ")";
+  text += rate.profile_ids.size() == 1 ? ", applied to the prices of profile "
+                                       : ", applied to the prices of profiles ";
+  for (std::size_t i = 0; i < rate.profile_ids.size(); ++i)
+    text += (i == 0 ? "" : ", ") + rate.profile_ids[i];
+  return text;
+}
+
+void write_study_json(JsonWriter& json, const StudyCase& study) {
   json.field("stowage_version", STOWAGE_VERSION_STRING);
   json.field("study", study.title);
   json.field("site", study.site.name);
   json.field("project_years", study.economics.project_years);
   json.field("real_discount_rate", study.economics.real_discount_rate);
   json.field("currency", study.economics.currency);
+  if (!study.exchange_rates.empty()) {
+    json.key("exchange_rates").begin_array();
+    for (const ExchangeRate& r : study.exchange_rates) {
+      json.begin_object().field("currency", r.currency).field("rate", r.rate);
+      json.key("profiles").begin_array();
+      for (const std::string& id : r.profile_ids) json.value(id);
+      json.end_array().end_object();
+    }
+    json.end_array();
+  }
 }
 
-void print_study_header(std::ostream& out, const Study& study, const std::string& what) {
+void print_study_header(std::ostream& out, const StudyCase& study, const std::string& what) {
   fmt::print(out, "stowage {}: {}\n", STOWAGE_VERSION_STRING, what);
   fmt::print(out, "Study: {}\nSite:  {} ({:g} V bus, {} kWh demand a year)\n", study.title,
              study.site.name, study.site.bus_voltage_v,
@@ -299,6 +321,8 @@ void print_study_header(std::ostream& out, const Study& study, const std::string
   fmt::print(out, "Economics: {} years, {:.1f} % real discount rate, {}\n",
              study.economics.project_years, 100 * study.economics.real_discount_rate,
              study.economics.currency);
+  for (const ExchangeRate& r : study.exchange_rates)
+    fmt::print(out, "Exchange rate: {}\n", exchange_rate_text(r, study.economics.currency));
 }
 
 void print_safety_notice(std::ostream& out) {

@@ -64,11 +64,17 @@ void write_cash_flows_csv(std::ostream& out, const std::vector<DesignResult>& de
 std::string csv_text(const std::string& text);
 
 // The opening fields of a JSON report: stowage_version, study, site, project_years,
-// real_discount_rate and currency.
-void write_study_json(JsonWriter& json, const Study& study);
+// real_discount_rate and currency; then, only when the study gives exchange rates,
+// exchange_rates: [{currency, rate, profiles}] (1 currency = rate study-currency units; the
+// ids of the profiles whose prices were converted with it).
+void write_study_json(JsonWriter& json, const StudyCase& study);
 
-// The opening lines of a report: tool and version, what it does, the study, site and economics.
-void print_study_header(std::ostream& out, const Study& study, const std::string& what);
+// The opening lines of a report: tool and version, what it does, the study, site and economics
+// (with a line per exchange rate the study gives).
+void print_study_header(std::ostream& out, const StudyCase& study, const std::string& what);
+
+// "1 USD = 0.92 EUR, applied to the prices of profile lfp-usd" (or "..., not used").
+std::string exchange_rate_text(const ExchangeRate& rate, const std::string& study_currency);
 
 // The caution every report and the README carry: planning estimate, hazards, defer to codes.
 void print_safety_notice(std::ostream& out);

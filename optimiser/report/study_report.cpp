@@ -450,6 +450,9 @@ ReportSection inputs_section(const LoadedStudy& loaded) {
                     plain("fraction per year"), plain(study_src)});
   e.rows.push_back({plain("currency (real, constant prices)"), tagged_text(cur, "currency"),
                     plain(""), plain(study_src)});
+  for (const ExchangeRate& r : study.exchange_rates)
+    e.rows.push_back({plain("exchange rate (profile prices converted once, at loading)"),
+                      plain(exchange_rate_text(r, cur)), plain(""), plain(study_src)});
   const SearchSettings& sr = study.search;
   e.rows.push_back({plain("DoD ladder searched"),
                     plain(format_general(sr.dod_from, 3) + " to " + format_general(sr.dod_to, 3) +
