@@ -6,6 +6,7 @@
 #pragma once
 
 #include <optional>
+#include <string>
 #include <vector>
 
 #include "model/study.h"
@@ -22,8 +23,18 @@ struct SearchSettings {
   std::optional<double> max_volume_l;  // needs cell_volume_l in the profiles
 };
 
+// One entry of study.economics.exchange_rates: 1 unit of `currency` = `rate` units of the
+// study's currency. The prices of the profiles in `profile_ids` (those priced in `currency`)
+// were multiplied by `rate` when the study was loaded; an empty list means the rate is unused.
+struct ExchangeRate {
+  std::string currency;  // ISO 4217 code, not the study's own
+  double rate = 1;       // study-currency units per unit of `currency`, > 0
+  std::vector<std::string> profile_ids;
+};
+
 struct StudyCase : Study {
   SearchSettings search;
+  std::vector<ExchangeRate> exchange_rates;  // in the order of the study file
 };
 
 // The DoD ladder of `design_space` restricted to the profile's allowed [dod.min, dod.max]; values

@@ -11,10 +11,9 @@
 //      its syntax error or all its schema violations, and when it has none the first error of
 //      its own value rules (a profile's dod.min <= dod.default, a CSV's row, ...);
 //   3. when passes 1 and 2 found nothing: the full load (load_study_details), whose rules
-//      across files (unique profile ids, one currency, sizing for autonomy) give their first
-//      error, except the designs: each entry of study.designs is checked on its own (a loaded
-//      profile id, with a suggestion for a near miss; a setpoint in its DoD range) and all
-//      their errors are reported (the loader throws InputErrors).
+//      across files (unique profile ids, one currency, cells that make the bus, sizing for
+//      autonomy, each design, the design space's limits, each variation) are all checked and
+//      all their errors reported (the loader throws InputErrors when there are several).
 // Passes 1 and 2 are the same checks as the loaders', in the same words: a study that check
 // passes is one evaluate and optimise load, and a study they refuse gives check that error
 // among its problems. Profile warnings are emitted once, by pass 3.

@@ -301,22 +301,33 @@ std::vector<Variation> read_block(const YamlDocument& doc, const PathSpace& spac
   if (!list) return out;
   const std::string block = space.whole + ".variations";
   Reader reader(doc, space);
+  // Each entry is checked on its own and every entry's error is reported (InputErrors).
+  std::vector<InputError> errors;
+  std::vector<std::size_t> out_at;  // per entry of out: its index in the block
   for (std::size_t i = 0; i < list.size(); ++i) {
     const std::string field = join_index(block, i);
-    Variation v = reader.read(list[i], field);
-    for (std::size_t j = 0; j < out.size(); ++j) {
-      if (out[j].path == v.path) {
-        throw doc.error_at(list[i]["path"], field + ".path",
-                           "'" + v.path + "' is already varied by " + join_index(block, j));
+    try {
+      Variation v = reader.read(list[i], field);
+      for (std::size_t j = 0; j < out.size(); ++j) {
+        if (out[j].path == v.path) {
+          throw doc.error_at(list[i]["path"], field + ".path",
+                             "'" + v.path + "' is already varied by " +
+                                 join_index(block, out_at[j]));
+        }
       }
+      for (double& x : v.points) {
+        if (x == 0) x = 0;  // no negative zero in reports
+      }
+      v.points.erase(std::unique(v.points.begin(), v.points.end()), v.points.end());
+      std::sort(v.points.begin(), v.points.end());
+      out.push_back(std::move(v));
+      out_at.push_back(i);
+    } catch (const InputError& e) {
+      errors.push_back(e);
     }
-    for (double& x : v.points) {
-      if (x == 0) x = 0;  // no negative zero in reports
-    }
-    v.points.erase(std::unique(v.points.begin(), v.points.end()), v.points.end());
-    std::sort(v.points.begin(), v.points.end());
-    out.push_back(std::move(v));
   }
+  if (errors.size() == 1) throw errors.front();
+  if (!errors.empty()) throw InputErrors(std::move(errors));
   return out;
 }
 

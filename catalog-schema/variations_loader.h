@@ -65,7 +65,8 @@ struct Variation {
 struct TenderCase;  // tender_loader.h
 
 // Reads study.variations (empty when absent). `study` is the validated case the block belongs
-// to. A path given twice is refused at the second entry.
+// to. A path given twice is refused at the second entry. Each entry is checked on its own: more
+// than one bad entry throws InputErrors holding each one's error.
 std::vector<Variation> read_variations(const YamlDocument& doc, const StudyCase& study);
 // Reads tender.variations the same way, against the tender's paths (parameter_paths.h);
 // `tender` is the loaded tender with its bids. Errors name tender.variations[i]....

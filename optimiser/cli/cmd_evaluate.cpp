@@ -41,10 +41,12 @@ void register_evaluate(CLI::App& app, int& exit_code) {
       const std::vector<RequirementCheck> checks = requirement_checks(study, results);
       // Files first: a failure to write them must not follow a printed success.
       if (files) {
-        files->add("designs.csv",
-                   [&](std::ostream& out) { report::write_designs_csv(out, results, &checks); });
+        const report::CsvRunColumns run{study.title, ""};  // no search ran
+        files->add("designs.csv", [&](std::ostream& out) {
+          report::write_designs_csv(out, results, &checks, run);
+        });
         files->add("cash-flows.csv",
-                   [&](std::ostream& out) { report::write_cash_flows_csv(out, results); });
+                   [&](std::ostream& out) { report::write_cash_flows_csv(out, results, run); });
         files->commit();
       }
       if (args->format == OutputFormat::Json)

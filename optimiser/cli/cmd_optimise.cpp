@@ -160,10 +160,13 @@ void register_optimise(CLI::App& app, int& exit_code) {
       const OptimiseResult result = optimise(study, options);
       progress.finish();
       if (files && result.feasible()) {
-        files->add("designs.csv",
-                   [&](std::ostream& out) { report::write_designs_csv(out, result.ranking); });
-        files->add("cash-flows.csv",
-                   [&](std::ostream& out) { report::write_cash_flows_csv(out, result.ranking); });
+        const report::CsvRunColumns run{study.title, to_string(result.method)};
+        files->add("designs.csv", [&](std::ostream& out) {
+          report::write_designs_csv(out, result.ranking, nullptr, run);
+        });
+        files->add("cash-flows.csv", [&](std::ostream& out) {
+          report::write_cash_flows_csv(out, result.ranking, run);
+        });
         files->commit();
       }
       if (report_files) write_study_report(*report_files, loaded, result);

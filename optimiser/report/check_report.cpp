@@ -5,13 +5,14 @@
 #include <fmt/ostream.h>
 
 #include "model/sizing.h"
+#include "optimiser/report/design_report.h"
 #include "optimiser/report/json_writer.h"
 #include "optimiser/report/messages.h"
 #include "optimiser/report/number_format.h"
 
 namespace stowage::report {
 
-void write_check_text(std::ostream& out, const std::string& study_path, const Study& study) {
+void write_check_text(std::ostream& out, const std::string& study_path, const StudyCase& study) {
   const SiteConditions& site = study.site;
   fmt::print(out, "{}: valid\n", study_path);
   fmt::print(out, "  study     {}\n", study.title);
@@ -20,6 +21,8 @@ void write_check_text(std::ostream& out, const std::string& study_path, const St
              site.autonomy_days);
   fmt::print(out, "  economics {} years at {:.1f} % real, {}\n", study.economics.project_years,
              100 * study.economics.real_discount_rate, study.economics.currency);
+  for (const ExchangeRate& r : study.exchange_rates)
+    fmt::print(out, "  exchange  {}\n", exchange_rate_text(r, study.economics.currency));
   fmt::print(out, "  profiles  {}\n", study.profiles.size());
   for (const auto& p : study.profiles) {
     const auto sizing = size_for_autonomy(p, site, p.dod.default_setpoint);
@@ -66,7 +69,7 @@ void write_located(JsonWriter& json, const std::string& file, int line, int colu
       .end_object();
 }
 
-void write_summary_json(JsonWriter& json, const Study& study) {
+void write_summary_json(JsonWriter& json, const StudyCase& study) {
   const SiteConditions& site = study.site;
   json.begin_object().field("title", escape_controls(study.title));
   json.key("site")
@@ -80,8 +83,18 @@ void write_summary_json(JsonWriter& json, const Study& study) {
       .begin_object()
       .field("project_years", study.economics.project_years)
       .field("real_discount_rate", study.economics.real_discount_rate)
-      .field("currency", escape_controls(study.economics.currency))
-      .end_object();
+      .field("currency", escape_controls(study.economics.currency));
+  if (!study.exchange_rates.empty()) {
+    json.key("exchange_rates").begin_array();
+    for (const ExchangeRate& r : study.exchange_rates) {
+      json.begin_object().field("currency", r.currency).field("rate", r.rate);
+      json.key("profiles").begin_array();
+      for (const std::string& id : r.profile_ids) json.value(escape_controls(id));
+      json.end_array().end_object();
+    }
+    json.end_array();
+  }
+  json.end_object();
   json.key("profiles").begin_array();
   for (const auto& p : study.profiles) {
     const auto sizing = size_for_autonomy(p, site, p.dod.default_setpoint);
@@ -101,7 +114,7 @@ void write_summary_json(JsonWriter& json, const Study& study) {
 
 }  // namespace
 
-void write_check_json(std::ostream& out, const std::string& study_path, const Study* study,
+void write_check_json(std::ostream& out, const std::string& study_path, const StudyCase* study,
                       const std::vector<InputError>& problems,
                       const std::vector<InputNote>& notes) {
   JsonWriter json;

@@ -13,7 +13,8 @@
 // where PROBLEM is {"file", "line", "column", "field", "message"} (line and column 1-based;
 // the text fields escaped as in the text messages) and SUMMARY, null exactly when valid is
 // false, is {"title", "site": {"name", "bus_voltage_v", "annual_demand_kwh",
-// "autonomy_days"}, "economics": {"project_years", "real_discount_rate", "currency"},
+// "autonomy_days"}, "economics": {"project_years", "real_discount_rate", "currency",
+// and only when the study gives rates "exchange_rates": [{"currency", "rate", "profiles"}]},
 // "profiles": [{"id", "family", "round_trip_efficiency", "dod_min", "dod_default", "dod_max",
 // "strings_for_autonomy"}], "designs_listed"}; fractions are fractions (0.062, not 6.2).
 #pragma once
@@ -23,11 +24,11 @@
 #include <vector>
 
 #include "catalog-schema/input_error.h"
-#include "model/study.h"
+#include "catalog-schema/study_case.h"
 
 namespace stowage::report {
 
-void write_check_text(std::ostream& out, const std::string& study_path, const Study& study);
+void write_check_text(std::ostream& out, const std::string& study_path, const StudyCase& study);
 
 // Each problem as a failure line, then "stowage: N problems found in STUDY".
 void write_check_problems_text(std::ostream& err, const std::string& study_path,
@@ -37,7 +38,7 @@ void write_check_problems_text(std::ostream& err, const std::string& study_path,
 void write_check_notes_text(std::ostream& err, const std::vector<InputNote>& notes);
 
 // `study` is null exactly when `problems` is not empty.
-void write_check_json(std::ostream& out, const std::string& study_path, const Study* study,
+void write_check_json(std::ostream& out, const std::string& study_path, const StudyCase* study,
                       const std::vector<InputError>& problems, const std::vector<InputNote>& notes);
 
 }  // namespace stowage::report

@@ -186,8 +186,16 @@ const char* csv_bool(bool flag) { return flag ? "true" : "false"; }
 
 }  // namespace
 
+std::string csv_text(const std::string& text) {
+  if (text.find_first_of(",\"\r\n") == std::string::npos) return text;
+  std::string out = "\"";
+  for (char c : text) out += c == '"' ? std::string("\"\"") : std::string(1, c);
+  return out + "\"";
+}
+
 void write_designs_csv(std::ostream& out, const std::vector<DesignResult>& designs,
-                       const std::vector<RequirementCheck>* checks) {
+                       const std::vector<RequirementCheck>* checks, const CsvRunColumns& run) {
+  const std::string run_cells = ',' + csv_text(run.study) + ',' + csv_text(run.method);
   out << "rank,profile,dod_setpoint,cells_series,strings_parallel,nameplate_kwh,lcos_per_kwh,"
          "lcos_schmidt_per_kwh,npc,npc_difference_to_best,currency,investment,replacement_years,"
          "discharged_kwh_per_year,discharged_kwh_first_year,delivered_kwh_first_year,"
@@ -195,7 +203,8 @@ void write_designs_csv(std::ostream& out, const std::vector<DesignResult>& desig
          "unserved_fraction_max,meets_unserved_limit";
   for (const CostLine& item : cost_lines()) out << ",pv_" << item.key;
   out << ",delivers_energy,charge_blocked_by_temperature_hours_first_year,"
-         "discharge_blocked_by_temperature_hours_first_year,meets_autonomy,meets_peak_discharge";
+         "discharge_blocked_by_temperature_hours_first_year,meets_autonomy,meets_peak_discharge,"
+         "study,method";
   out << "\n";
   // Rank: the place by NPC among these rows (ties keep their order), as the text ranking.
   std::vector<std::size_t> order(designs.size());
@@ -229,23 +238,26 @@ void write_designs_csv(std::ostream& out, const std::vector<DesignResult>& desig
       out << csv_bool((*checks)[i].meets_autonomy) << ',' << csv_bool((*checks)[i].meets_peak);
     else
       out << ',';
-    out << "\n";
+    out << run_cells << "\n";
   }
 }
 
-void write_cash_flows_csv(std::ostream& out, const std::vector<DesignResult>& designs) {
+void write_cash_flows_csv(std::ostream& out, const std::vector<DesignResult>& designs,
+                          const CsvRunColumns& run) {
+  const std::string run_cells = ',' + csv_text(run.study) + ',' + csv_text(run.method);
   out << "profile,dod_setpoint,strings_parallel,year,row,discount_time_years,health_start,"
          "damage_cycle,damage_calendar,damage_partial_charge,damage_end,replacements,"
          "discharged_kwh,charge_source_kwh,backup_kwh,unserved_kwh,curtailed_kwh,investment,"
          "replacement,fixed_om,variable_om,charging,backup,unserved_penalty,end_of_life,"
          "residual_value,total,discount_factor,present_value,auxiliary_kwh,auxiliary_source_kwh,"
-         "auxiliary_bank_kwh,auxiliary_unmet_kwh,damage_peak,replacement_months\n";
+         "auxiliary_bank_kwh,auxiliary_unmet_kwh,damage_peak,replacement_months,study,method\n";
   for (const auto& d : designs) {
     const std::string id = d.profile_id + ',' + csv_number(d.dod_setpoint) + ',' +
                            std::to_string(d.bank.strings_parallel);
     // Year 0: the investment.
     out << id << ",0,investment,0,,,,,,,,,,,," << csv_number(d.investment) << ",,,,,,,,,"
-        << csv_number(d.investment) << ",1," << csv_number(d.investment) << ",,,,,,\n";
+        << csv_number(d.investment) << ",1," << csv_number(d.investment) << ",,,,,," << run_cells
+        << "\n";
     for (const auto& y : d.years) {
       out << id << ',' << y.year << ",operation," << y.year << ',' << csv_number(y.health_start)
           << ',' << csv_number(y.damage_cycle) << ',' << csv_number(y.damage_calendar) << ','
@@ -263,7 +275,7 @@ void write_cash_flows_csv(std::ostream& out, const std::vector<DesignResult>& de
           << csv_number(y.dispatch.auxiliary_source_kwh) << ','
           << csv_number(y.dispatch.auxiliary_bank_kwh) << ','
           << csv_number(y.dispatch.auxiliary_unmet_kwh) << ',' << csv_number(y.damage_peak) << ','
-          << csv_year_list(y.replacement_months) << "\n";
+          << csv_year_list(y.replacement_months) << run_cells << "\n";
     }
     // The last bank's end of life, discounted at N + 1 or later when that bank has life left
     // (docs/method.md): `year` is the whole year it falls in, the exact time has its column.
@@ -272,20 +284,42 @@ void write_cash_flows_csv(std::ostream& out, const std::vector<DesignResult>& de
     out << id << ',' << static_cast<long>(std::ceil(t_final - 1e-9)) << ",end_of_life,"
         << csv_number(t_final) << ",,,,,,,,,,,,0,0,0,0,0,0,0," << csv_number(d.final_end_of_life)
         << ",0," << csv_number(d.final_end_of_life) << ',' << csv_number(df_last) << ','
-        << csv_number(d.final_end_of_life * df_last) << ",,,,,,\n";
+        << csv_number(d.final_end_of_life * df_last) << ",,,,,," << run_cells << "\n";
   }
 }
 
-void write_study_json(JsonWriter& json, const Study& study) {
+std::string exchange_rate_text(const ExchangeRate& rate, const std::string& study_currency) {
+  std::string text =
+      "1 " + rate.currency + " = " + format_general(rate.rate, 10) + " " + study_currency;
+  if (rate.profile_ids.empty())
+    return text + ", not used (no profile prices in " + rate.currency + ")";
+  text += rate.profile_ids.size() == 1 ? ", applied to the prices of profile "
+                                       : ", applied to the prices of profiles ";
+  for (std::size_t i = 0; i < rate.profile_ids.size(); ++i)
+    text += (i == 0 ? "" : ", ") + rate.profile_ids[i];
+  return text;
+}
+
+void write_study_json(JsonWriter& json, const StudyCase& study) {
   json.field("stowage_version", STOWAGE_VERSION_STRING);
   json.field("study", study.title);
   json.field("site", study.site.name);
   json.field("project_years", study.economics.project_years);
   json.field("real_discount_rate", study.economics.real_discount_rate);
   json.field("currency", study.economics.currency);
+  if (!study.exchange_rates.empty()) {
+    json.key("exchange_rates").begin_array();
+    for (const ExchangeRate& r : study.exchange_rates) {
+      json.begin_object().field("currency", r.currency).field("rate", r.rate);
+      json.key("profiles").begin_array();
+      for (const std::string& id : r.profile_ids) json.value(id);
+      json.end_array().end_object();
+    }
+    json.end_array();
+  }
 }
 
-void print_study_header(std::ostream& out, const Study& study, const std::string& what) {
+void print_study_header(std::ostream& out, const StudyCase& study, const std::string& what) {
   fmt::print(out, "stowage {}: {}\n", STOWAGE_VERSION_STRING, what);
   fmt::print(out, "Study: {}\nSite:  {} ({:g} V bus, {} kWh demand a year)\n", study.title,
              study.site.name, study.site.bus_voltage_v,
@@ -293,6 +327,8 @@ void print_study_header(std::ostream& out, const Study& study, const std::string
   fmt::print(out, "Economics: {} years, {:.1f} % real discount rate, {}\n",
              study.economics.project_years, 100 * study.economics.real_discount_rate,
              study.economics.currency);
+  for (const ExchangeRate& r : study.exchange_rates)
+    fmt::print(out, "Exchange rate: {}\n", exchange_rate_text(r, study.economics.currency));
 }
 
 void print_safety_notice(std::ostream& out) {

@@ -25,7 +25,7 @@ std::string ranking_remark(const DesignResult& d, const RequirementCheck& c) {
 
 }  // namespace
 
-void write_evaluate_text(std::ostream& out, const Study& study,
+void write_evaluate_text(std::ostream& out, const StudyCase& study,
                          const std::vector<DesignResult>& results,
                          const std::vector<RequirementCheck>& checks) {
   print_study_header(out, study, "lifecycle evaluation");
@@ -67,7 +67,7 @@ void write_evaluate_text(std::ostream& out, const Study& study,
   print_safety_notice(out);
 }
 
-void write_evaluate_json(std::ostream& out, const Study& study,
+void write_evaluate_json(std::ostream& out, const StudyCase& study,
                          const std::vector<DesignResult>& results,
                          const std::vector<RequirementCheck>& checks) {
   JsonWriter json;

@@ -14,10 +14,10 @@ namespace stowage::report {
 
 // `checks[i]` is results[i]'s requirement check (requirement_checks in evaluate_all.h); designs
 // that fail one are marked in the table and the ranking, and counted in a closing line.
-void write_evaluate_text(std::ostream& out, const Study& study,
+void write_evaluate_text(std::ostream& out, const StudyCase& study,
                          const std::vector<DesignResult>& results,
                          const std::vector<RequirementCheck>& checks);
-void write_evaluate_json(std::ostream& out, const Study& study,
+void write_evaluate_json(std::ostream& out, const StudyCase& study,
                          const std::vector<DesignResult>& results,
                          const std::vector<RequirementCheck>& checks);
 

@@ -475,6 +475,9 @@ ReportSection inputs_section(const LoadedStudy& loaded) {
                     plain("fraction per year"), plain(study_src)});
   e.rows.push_back({plain("currency (real, constant prices)"), tagged_text(cur, "currency"),
                     plain(""), plain(study_src)});
+  for (const ExchangeRate& r : study.exchange_rates)
+    e.rows.push_back({plain("exchange rate (profile prices converted once, at loading)"),
+                      plain(exchange_rate_text(r, cur)), plain(""), plain(study_src)});
   const SearchSettings& sr = study.search;
   e.rows.push_back({plain("DoD ladder searched"),
                     plain(format_general(sr.dod_from, 3) + " to " + format_general(sr.dod_to, 3) +
@@ -719,9 +722,12 @@ void add_report_files(OutputSet& set, const ReportInputs& in) {
   const OptimiseResult* result = in.result;
   set.add("result.json",
           [study, result](std::ostream& out) { write_optimise_json(out, *study, *result); });
-  set.add("designs.csv", [result](std::ostream& out) { write_designs_csv(out, result->ranking); });
+  const CsvRunColumns run{study->title, to_string(result->method)};
+  set.add("designs.csv", [result, run](std::ostream& out) {
+    write_designs_csv(out, result->ranking, nullptr, run);
+  });
   set.add("cash-flows.csv",
-          [result](std::ostream& out) { write_cash_flows_csv(out, result->ranking); });
+          [result, run](std::ostream& out) { write_cash_flows_csv(out, result->ranking, run); });
   if (in.tornado) {
     const TornadoResult* tornado = in.tornado;
     set.add("tornado.json",

@@ -49,13 +49,6 @@ void write_summary_json(JsonWriter& json, const DesignSummary& d, const PointOut
   json.end_object();
 }
 
-std::string csv_text(const std::string& text) {
-  if (text.find_first_of(",\"\n") == std::string::npos) return text;
-  std::string out = "\"";
-  for (char c : text) out += c == '"' ? std::string("\"\"") : std::string(1, c);
-  return out + "\"";
-}
-
 // ",<winner>,<npc>,<lcos>,<dod>,<strings>,<kWh>" then ",<npc of each profile>".
 void write_point_csv_tail(std::ostream& out, const StudyCase& study, const PointOutcome& p) {
   const DesignSummary* w = winner_or_null(p);

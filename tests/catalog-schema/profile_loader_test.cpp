@@ -382,11 +382,29 @@ TEST_CASE("an unknown key is refused with a suggestion", "[catalog][profile][bad
              Catch::Contains("allowed here: nominal_v, capacity_ah"));
 }
 
+TEST_CASE("a profile's family is an open label: a chemistry of the user's own is accepted",
+          "[catalog][profile]") {
+  // Issue 8, item 7: no guess at one of the shipped families is needed.
+  const std::string own =
+      replace_once(full_profile(), "family: lithium-iron-phosphate", "family: lead-carbon");
+  const ChemistryProfile p = load_text(own).profile;
+  CHECK(p.family == "lead-carbon");
+  // The label changes no value the model reads: the profile loads to the same numbers.
+  const ChemistryProfile shipped = load_text(full_profile()).profile;
+  CHECK(shipped.family == "lithium-iron-phosphate");
+  CHECK(shipped.round_trip_efficiency() == p.round_trip_efficiency());
+  CHECK(shipped.costs.capital_per_kwh == p.costs.capital_per_kwh);
+  // Still a label: lower-case letters, digits and '-'.
+  const std::string spaced =
+      replace_once(full_profile(), "family: lithium-iron-phosphate", "family: Lead Carbon");
+  CHECK_THAT(profile_error(spaced, "family", "profile.family"), Catch::Contains("lower-case"));
+}
+
 TEST_CASE("enumerations and patterns are enforced with hints", "[catalog][profile][bad]") {
-  const std::string family = replace_once(full_profile(), "family: lithium-iron-phosphate",
-                                          "family: lithium-iron-phosphat");
-  CHECK_THAT(profile_error(family, "family", "profile.family"),
-             Catch::Contains("did you mean 'lithium-iron-phosphate'?"));
+  const std::string confidence = full_profile() + "  confidence:\n    cell.nominal_v: sourcd\n";
+  CHECK_THAT(
+      profile_error(confidence, "cell.nominal_v: sourcd", "profile.confidence.cell.nominal_v"),
+      Catch::Contains("did you mean 'sourced'?"));
   const std::string id = replace_once(full_profile(), "id: lfp-test", "id: LFP Test");
   CHECK_THAT(profile_error(id, "id:", "profile.id"), Catch::Contains("lower-case"));
   const std::string currency = replace_once(full_profile(), "currency: EUR", "currency: euro");

@@ -174,3 +174,35 @@ TEST_CASE("check reports every design's problem, not only the first", "[catalog]
   CHECK_THROWS_WITH(load_study_details_file(dir.path() + "/study.yaml"),
                     Catch::Contains("study.designs[0].profile"));
 }
+
+TEST_CASE("check reports every rule across files that a study breaks, not only the first",
+          "[catalog][check]") {
+  const WarningSink previous = set_warning_sink([](const std::string&) {});  // not under test
+  using Row = std::tuple<std::string, int, std::string>;
+  // bad-inputs/77: a duplicate profile id, a module that cannot make the 48 V bus, prices in
+  // another currency and cells too small for the autonomy, each in its own profile file.
+  const StudyCheck profiles = check_study_file(
+      source_path("tests/catalog-schema/bad-inputs/77-cross-file-profile-problems/study.yaml"));
+  CHECK_FALSE(profiles.study.has_value());
+  CHECK(located(profiles) == std::vector<Row>{{"study.yaml", 9, "study.profiles[1]"},
+                                              {"study.yaml", 10, "study.profiles[2]"},
+                                              {"priced-in-usd.yaml", 39, "profile.costs.currency"},
+                                              {"study.yaml", 11, "study.profiles[3]"}});
+  // bad-inputs/78: an unknown design profile, a setpoint outside its profile's range, a limit
+  // past its plausibility bound, a mass limit one profile cannot honour, two bad variations.
+  const StudyCheck study = check_study_file(
+      source_path("tests/catalog-schema/bad-inputs/78-cross-file-study-problems/study.yaml"));
+  CHECK_FALSE(study.study.has_value());
+  CHECK(located(study) ==
+        std::vector<Row>{{"study.yaml", 14, "study.designs[0].profile"},
+                         {"study.yaml", 15, "study.designs[1].dod_setpoint"},
+                         {"study.yaml", 17, "study.design_space.max_strings_parallel"},
+                         {"study.yaml", 18, "study.design_space.max_mass_kg"},
+                         {"study.yaml", 20, "study.variations[0].path"},
+                         {"study.yaml", 21, "study.variations[1].high"}});
+  // The loader (evaluate, optimise) refuses with the first of them.
+  CHECK_THROWS_WITH(load_study_details_file(source_path(
+                        "tests/catalog-schema/bad-inputs/78-cross-file-study-problems/study.yaml")),
+                    Catch::Contains("study.designs[0].profile"));
+  set_warning_sink(previous);
+}

@@ -125,6 +125,71 @@ TEST_CASE("the profiles must price in the study's currency", "[catalog][study][b
                                           std::to_string(line_of(text, "currency: USD"))));
 }
 
+TEST_CASE("a profile in another currency is converted once by the study's stated rate",
+          "[catalog][study][currency]") {
+  // A USD study whose profiles price in EUR, with 1 EUR = 1.1 USD. By hand, from the definition
+  // of an exchange rate (x EUR = 1.1 x USD), lfp-test's prices become: capital 400 -> 440
+  // USD/kWh, per string 200 -> 220, installation 1500 -> 1650, fixed O&M 2 -> 2.2, variable
+  // O&M 1.5 -> 1.65 per MWh, end of life -5 -> -5.5 and at a replacement 3 -> 3.3 per kWh;
+  // replacement_share 0.9 and price_decline_per_year 0.03 are ratios and stay.
+  std::string text =
+      replace_once(study_text(), "currency: EUR", "currency: USD\n    exchange_rates: {EUR: 1.1}");
+  const LoadedStudy loaded = load_text(text);
+  const ProfileCosts& c = loaded.study.profiles.at(0).costs;
+  CHECK(loaded.study.profiles.at(0).id == "lfp-test");
+  CHECK(c.capital_per_kwh == Approx(440).epsilon(1e-12));
+  CHECK(c.capital_per_string == Approx(220).epsilon(1e-12));
+  CHECK(c.installation_fixed == Approx(1650).epsilon(1e-12));
+  CHECK(c.fixed_om_per_kwh_year == Approx(2.2).epsilon(1e-12));
+  CHECK(c.variable_om_per_mwh == Approx(1.65).epsilon(1e-12));
+  CHECK(c.end_of_life_per_kwh == Approx(-5.5).epsilon(1e-12));
+  REQUIRE(c.replacement_end_of_life_per_kwh.has_value());
+  CHECK(*c.replacement_end_of_life_per_kwh == Approx(3.3).epsilon(1e-12));
+  CHECK(c.replacement_share == 0.9);
+  CHECK(c.price_decline_per_year == 0.03);
+  // lead-test: capital 150 EUR/kWh -> 165 USD/kWh.
+  CHECK(loaded.study.profiles.at(1).costs.capital_per_kwh == Approx(165).epsilon(1e-12));
+  // The rate and the profiles it served are kept for the reports; the source currency stays.
+  REQUIRE(loaded.study.exchange_rates.size() == 1);
+  CHECK(loaded.study.exchange_rates[0].currency == "EUR");
+  CHECK(loaded.study.exchange_rates[0].rate == 1.1);
+  CHECK(loaded.study.exchange_rates[0].profile_ids ==
+        std::vector<std::string>{"lfp-test", "lead-test"});
+  CHECK(loaded.profiles.at(0).currency == "EUR");
+  CHECK(loaded.notes.empty());
+}
+
+TEST_CASE("a profile currency without a rate is refused at the profile", "[catalog][study][bad]") {
+  const std::string text =
+      replace_once(study_text(), "currency: EUR", "currency: USD\n    exchange_rates: {GBP: 1.27}");
+  const InputError e = expect_input_error([&] { load_text(text); }, fixture_path("lfp-test.yaml"),
+                                          39, "profile.costs.currency");
+  CHECK_THAT(e.message(), Catch::Contains("exchange_rates gives no rate for EUR"));
+  CHECK_THAT(e.message(), Catch::Contains("EUR: R means 1 EUR = R USD"));
+}
+
+TEST_CASE("exchange rate keys are other currencies' codes; an unused rate is noted",
+          "[catalog][study][bad]") {
+  const std::string own =
+      replace_once(study_text(), "currency: EUR", "currency: EUR\n    exchange_rates: {EUR: 1}");
+  CHECK_THAT(study_error(own, "exchange_rates", "study.economics.exchange_rates.EUR"),
+             Catch::Contains("the study's own currency"));
+  const std::string lower =
+      replace_once(study_text(), "currency: EUR", "currency: EUR\n    exchange_rates: {usd: 1}");
+  CHECK_THAT(study_error(lower, "exchange_rates", "study.economics.exchange_rates.usd"),
+             Catch::Contains("three-letter currency code"));
+  const std::string zero =
+      replace_once(study_text(), "currency: EUR", "currency: EUR\n    exchange_rates: {USD: 0}");
+  study_error(zero, "exchange_rates", "study.economics.exchange_rates.USD");
+  const std::string unused =
+      replace_once(study_text(), "currency: EUR", "currency: EUR\n    exchange_rates: {USD: 0.92}");
+  const LoadedStudy loaded = load_text(unused);
+  REQUIRE(loaded.notes.size() == 1);
+  CHECK(loaded.notes[0].field == "study.economics.exchange_rates.USD");
+  CHECK(loaded.notes[0].message == "no profile prices in USD; the rate is not used");
+  CHECK(loaded.study.profiles.at(0).costs.capital_per_kwh == 400);  // nothing converted
+}
+
 TEST_CASE("search limits are checked against the profiles", "[catalog][study][bad]") {
   const std::string mass = replace_once(study_text(), "    budget: 50000\n",
                                         "    budget: 50000\n    max_mass_kg: 900\n");

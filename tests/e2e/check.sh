@@ -54,6 +54,19 @@ PY
 expect_exit 2 -- "$STOWAGE" check "$SRC/tests/catalog-schema/bad-inputs/75-design-profile-letters-swapped/study.yaml" &&
   { grep -qF "did you mean 'lfp'?" "$WORK/err" || fail "no suggestion for 'lpf'"; }
 
+# Rules across files are all reported too (issue 8, item 4): fixture 78 breaks six, and the
+# JSON lists each with its field.
+expect_exit 2 -- "$STOWAGE" check --format json "$SRC/tests/catalog-schema/bad-inputs/78-cross-file-study-problems/study.yaml" &&
+  "$PY" - "$WORK/out" <<'PY' || fail "check --format json of rules across files"
+import json, sys
+d = json.load(open(sys.argv[1]))
+assert d["valid"] is False and d["summary"] is None
+assert [p["field"] for p in d["problems"]] == [
+    "study.designs[0].profile", "study.designs[1].dod_setpoint",
+    "study.design_space.max_strings_parallel", "study.design_space.max_mass_kg",
+    "study.variations[0].path", "study.variations[1].high"], d["problems"]
+PY
+
 # A missing study file is one problem, in both forms.
 expect_exit 2 -- "$STOWAGE" check --format json "$WORK/missing.yaml" &&
   "$PY" -c 'import json,sys; d=json.load(open(sys.argv[1])); assert len(d["problems"]) == 1 and d["problems"][0]["field"] == "study"' "$WORK/out" ||

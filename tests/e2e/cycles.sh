@@ -62,6 +62,34 @@ expect_exit 0 -- "$STOWAGE" cycles "$WORK/soc15.csv" && grep -q "9 samples, 0.25
 # Times that go back are bad input at their line and column.
 printf 'time,soc\n0,0.5\n2,0.6\n1,0.7\n' >"$WORK/back.csv"
 expect_exit 2 -- "$STOWAGE" cycles "$WORK/back.csv" && grep -q "back.csv:4:1: time: times must increase" "$WORK/err" || fail "decreasing time"
+# --study counts the log the study names (study.soc_log) and, with --profile ID, ages it
+# against that profile of the study: the same numbers as the log and profile file given
+# directly (the ASTM example above, Miner's rule against the power-law profile).
+FIXS="$SRC/tests/catalog-schema/fixtures"
+cat >"$WORK/logged.yaml" <<EOF
+study:
+  title: Logged bank
+  site: $FIXS/site.yaml
+  profiles:
+    - $FIXS/lfp-test.yaml
+    - $profile
+  soc_log: soc.csv
+  economics: {project_years: 20, real_discount_rate: 0.06, currency: EUR}
+EOF
+expect_exit 0 -- "$STOWAGE" cycles --format json --study "$WORK/logged.yaml" && "$PY" -c "$check_json" "$WORK/out" || fail "--study count"
+expect_exit 0 -- "$STOWAGE" cycles --format json --study "$WORK/logged.yaml" --profile power-law-test &&
+  "$PY" -c "$check_json" "$WORK/out" damage && cmp -s "$WORK/out" "$WORK/hourly.json" ||
+  fail "--study with --profile ID differs from the files given directly"
+expect_exit 0 -- "$STOWAGE" cycles --study "$WORK/logged.yaml" && grep -qF "cycle count of $WORK/soc.csv" "$WORK/out" || fail "--study text names the log"
+# An id not in the study is refused with the ids and a suggestion; a study without a log is
+# refused at its study key; a file and --study together are refused.
+expect_exit 2 -- "$STOWAGE" cycles --study "$WORK/logged.yaml" --profile power-law-tset &&
+  { grep -qF "did you mean 'power-law-test'?" "$WORK/err" || fail "--study with an unknown profile id"; }
+grep -v soc_log "$WORK/logged.yaml" >"$WORK/unlogged.yaml"
+expect_exit 2 -- "$STOWAGE" cycles --study "$WORK/unlogged.yaml" &&
+  { grep -qF "unlogged.yaml:1:1: study.soc_log: the study names no SOC log" "$WORK/err" || fail "--study without soc_log: $(cat "$WORK/err")"; }
+expect_exit 2 -- "$STOWAGE" cycles --study "$WORK/logged.yaml" "$WORK/soc.csv" || fail "file and --study together"
+expect_exit 2 -- "$STOWAGE" cycles || fail "neither a file nor --study"
 # A series with a value out of range is bad input naming the file and line.
 printf 'soc\n0.5\n1.7\n' >"$WORK/bad.csv"
 expect_exit 2 -- "$STOWAGE" cycles "$WORK/bad.csv" && grep -q "bad.csv:3" "$WORK/err" || fail "out-of-range SOC"

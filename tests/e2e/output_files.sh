@@ -82,5 +82,39 @@ for js in report["designs"]:
     assert len(js["replacement_months"]) == len(js["replacement_years"]), key
 for key, seq in kinds.items():
     assert seq == ["investment"] + ["operation"] * n + ["end_of_life"], (key, seq)
+
+# Both files carry the study title of the JSON on every row; evaluate runs no search, so its
+# method is empty (no value).
+for row in designs + flows:
+    assert row["study"] == report["study"], row["study"]
+    assert row["method"] == "", row["method"]
+PY
+
+# optimise: the same two columns carry the title and the JSON's search method; a title with a
+# comma and quotes is quoted as RFC 4180 says, so the columns stay in place.
+mkdir -p "$WORK/titled" && "$PY" - "$study" "$WORK/titled/study.yaml" <<'PY' || fail "could not write the titled study"
+import os, re, sys
+src, dst = sys.argv[1], sys.argv[2]
+base = os.path.dirname(src)
+text = open(src).read()
+text = re.sub(r"(?m)^  title: .*$", '  title: "Saddle hut, \\"winter\\" case"', text, count=1)
+# Paths relative to the demo's directory, made absolute for the copy.
+text = re.sub(r"(?m)^(  site: |    - )(\S+\.yaml)$", lambda m: m.group(1) + os.path.join(base, m.group(2)), text)
+open(dst, "w").write(text)
+PY
+expect_exit 0 -- "$STOWAGE" optimise --format json --out "$WORK/opt" "$WORK/titled/study.yaml" &&
+  "$PY" - "$WORK/out" "$WORK/opt" <<'PY' || fail "optimise CSV study and method columns"
+import csv, json, sys
+report = json.load(open(sys.argv[1]))
+assert report["study"] == 'Saddle hut, "winter" case', report["study"]
+for name in ("designs.csv", "cash-flows.csv"):
+    with open(f"{sys.argv[2]}/{name}", newline="") as f:
+        rows = list(csv.reader(f))
+    header = rows[0]
+    assert header[-2:] == ["study", "method"], header[-2:]
+    for r in rows[1:]:
+        assert len(r) == len(header), (name, len(r), len(header))
+        assert r[-2] == report["study"] and r[-1] == report["method"], (name, r[-2:])
+    assert report["method"] in ("milp", "exhaustive", "bounded"), report["method"]
 PY
 finish

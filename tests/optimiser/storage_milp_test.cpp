@@ -4,6 +4,8 @@
 // against two independent solvers (COIN-OR CBC and HiGHS via SciPy).
 #include "optimiser/storage_milp.h"
 
+#include <unistd.h>
+
 #include <catch2/catch.hpp>
 #include <cmath>
 #include <cstdio>
@@ -150,9 +152,11 @@ TEST_CASE("CBC and HiGHS reach GLPK's optimum of the exported model",
   // Independent solvers: COIN-OR CBC (the cbc binary) and HiGHS through SciPy's
   // scipy.optimize.milp; tests/optimiser/check_exported_model.py parses the free MPS for SciPy.
   const StudyCase study = small_study();
+  // Named by process, so suites running side by side (other build trees) do not share files.
   const auto dir = std::filesystem::temp_directory_path();
-  const std::string mps = (dir / "stowage_export_check.mps").string();
-  const std::string lp = (dir / "stowage_export_check.lp").string();
+  const std::string stem = "stowage_export_check_" + std::to_string(::getpid());
+  const std::string mps = (dir / (stem + ".mps")).string();
+  const std::string lp = (dir / (stem + ".lp")).string();
   const double glpk = export_design_space_model(study, mps, 1, true);
   export_design_space_model(study, lp, 1, false);
   REQUIRE(std::isfinite(glpk));
