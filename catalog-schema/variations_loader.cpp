@@ -310,9 +310,9 @@ std::vector<Variation> read_block(const YamlDocument& doc, const PathSpace& spac
       Variation v = reader.read(list[i], field);
       for (std::size_t j = 0; j < out.size(); ++j) {
         if (out[j].path == v.path) {
-          throw doc.error_at(list[i]["path"], field + ".path",
-                             "'" + v.path + "' is already varied by " +
-                                 join_index(block, out_at[j]));
+          throw doc.error_at(
+              list[i]["path"], field + ".path",
+              "'" + v.path + "' is already varied by " + join_index(block, out_at[j]));
         }
       }
       for (double& x : v.points) {
