@@ -283,7 +283,10 @@ ReportSection ranking_section(const StudyCase& study, const OptimiseResult& r) {
   return s;
 }
 
-ReportSection sensitivity_section(const StudyCase& study, const TornadoResult& t) {
+}  // namespace
+
+ReportSection sensitivity_section(const StudyCase& study, const TornadoResult& t,
+                                  const std::string& json_name) {
   ReportSection s;
   s.id = "sensitivity";
   s.title = "Sensitivity of the recommendation";
@@ -293,7 +296,8 @@ ReportSection sensitivity_section(const StudyCase& study, const TornadoResult& t
       "in turn, every other input at its base value, and the study is " +
       std::string(t.hold_designs ? "evaluated with the base case's designs held fixed"
                                  : "optimised again") +
-      " (stowage sweep; the numbers are those of tornado.json). Inputs are listed by "
+      " (stowage sweep; the numbers are those of " + json_name +
+      "). Inputs are listed by "
       "the swing of the winner's net present cost, largest first.");
   ReportTable tab;
   tab.caption = "Winner and its net present cost at each end of each input (" + cur + ")";
@@ -336,6 +340,8 @@ ReportSection sensitivity_section(const StudyCase& study, const TornadoResult& t
   s.figure(tornado_chart(t, cur));
   return s;
 }
+
+namespace {
 
 ReportSection recommended_section(const StudyCase& study, const OptimiseResult& r,
                                   const DesignTrace& trace) {
@@ -558,9 +564,7 @@ ReportSection reproduce_section(const StudyHash& hash, const std::string& digest
   return s;
 }
 
-namespace {
-
-ReportSection method_section() {
+ReportSection study_method_section() {
   ReportSection s;
   s.id = "method";
   s.title = "Method and validation";
@@ -595,7 +599,7 @@ ReportSection method_section() {
   return s;
 }
 
-ReportSection limits_section() {
+ReportSection study_limits_section() {
   ReportSection s;
   s.id = "limits";
   s.title = "Assumptions and limits";
@@ -616,6 +620,8 @@ ReportSection limits_section() {
   });
   return s;
 }
+
+namespace {
 
 std::string safety_text() {
   std::ostringstream text;
@@ -668,13 +674,13 @@ ReportDocument build_study_report(const ReportInputs& in) {
   doc.sections.push_back(decision_section(study, r));
   if (r.feasible()) doc.sections.push_back(ranking_section(study, r));
   if (r.feasible() && in.tornado && in.tornado->base.feasible())
-    doc.sections.push_back(sensitivity_section(study, *in.tornado));
+    doc.sections.push_back(sensitivity_section(study, *in.tornado, "tornado.json"));
   for (const ReportSection& extra : in.analysis_sections) doc.sections.push_back(extra);
   if (r.feasible()) doc.sections.push_back(recommended_section(study, r, *in.trace));
   doc.sections.push_back(inputs_section(*in.loaded));
   doc.sections.push_back(reproduce_section(hash_study_inputs(*in.loaded), "Study"));
-  doc.sections.push_back(method_section());
-  doc.sections.push_back(limits_section());
+  doc.sections.push_back(study_method_section());
+  doc.sections.push_back(study_limits_section());
   doc.sections.push_back(safety_section());
   return doc;
 }
