@@ -20,7 +20,23 @@ using svg::Canvas;
 using svg::LegendEntry;
 using svg::Plot;
 
-constexpr int kBlack = 7;  // svg::series_style(7): black, for medians and whiskers
+// A solid black stroke between two data points (medians, whiskers): black and solid so that
+// it reads the same in colour, in greyscale and for every colour vision.
+void black_segment(Canvas& canvas, const Plot& plot, double x0, double y0, double x1, double y1,
+                   double width) {
+  canvas.raw("<line x1=\"" + svg::num(plot.px(x0)) + "\" y1=\"" + svg::num(plot.py(y0)) +
+             "\" x2=\"" + svg::num(plot.px(x1)) + "\" y2=\"" + svg::num(plot.py(y1)) +
+             "\" stroke=\"#000000\" stroke-width=\"" + svg::num(width) + "\"/>\n");
+}
+
+// A legend row for a black_segment: the stroke at (x, y) and its text.
+void black_legend_row(Canvas& canvas, double x, double y, const std::string& text, double width) {
+  canvas.raw("<g class=\"legend\">\n<line x1=\"" + svg::num(x) + "\" y1=\"" + svg::num(y - 4) +
+             "\" x2=\"" + svg::num(x + 22) + "\" y2=\"" + svg::num(y - 4) +
+             "\" stroke=\"#000000\" stroke-width=\"" + svg::num(width) + "\"/>\n");
+  canvas.text(x + 28, y, text, "legend-text");
+  canvas.raw("</g>\n");
+}
 
 // Axis limits padded to round ticks around [lo, hi].
 Axis padded_axis(std::string label, double lo, double hi) {
@@ -130,16 +146,16 @@ ReportFigure uncertainty_spread_chart(const UncertaintyResult& r, SpreadQuantity
     plot.bar(c - 0.28, c + 0.28, s.p10, s.p90, 4,
              r.profiles[i].profile_id + ": P10 " + text(s.p10) + ", P90 " + text(s.p90));
     plot.end_data();
-    plot.line({c - 0.28, c + 0.28}, {s.p50, s.p50}, kBlack, "p50 " + r.profiles[i].profile_id, 0,
-              3.5);
+    plot.begin_data("p50 " + r.profiles[i].profile_id);
+    black_segment(canvas, plot, c - 0.28, s.p50, c + 0.28, s.p50, 3.5);
+    plot.end_data();
     mean_x.push_back(c);
     mean_y.push_back(s.mean);
   }
   plot.points(mean_x, mean_y, 3, "mean");
   canvas.legend(110 + plot_w + 20, 60,
-                {{4, "10th to 90th percentile", true, false},
-                 {kBlack, "median (P50)", false, false},
-                 {3, "mean", false, true}});
+                {{4, "10th to 90th percentile", true, false}, {3, "mean", false, true}});
+  black_legend_row(canvas, 110 + plot_w + 20, 96, "median (P50)", 3.5);
   ReportFigure f;
   f.id = id;
   f.caption = "Spread of each profile's " + what + " over the " + std::to_string(r.samples) +
@@ -183,18 +199,18 @@ ReportFigure win_probability_chart(const UncertaintyResult& r) {
     const double c = static_cast<double>(i) + 0.5;
     const double top = std::min(100.0, 100 * (p.win_probability + p.win_probability_se));
     const double bottom = std::max(0.0, 100 * (p.win_probability - p.win_probability_se));
-    // The whisker: a vertical stroke with a cap at each end; non-finite points break the path.
-    const double nan = std::numeric_limits<double>::quiet_NaN();
-    plot.line({c, c, nan, c - 0.08, c + 0.08, nan, c - 0.08, c + 0.08},
-              {bottom, top, nan, top, top, nan, bottom, bottom}, kBlack,
-              "standard error " + p.profile_id, 0, 1.5);
+    // The whisker: a vertical stroke with a cap at each end.
+    plot.begin_data("standard error " + p.profile_id);
+    black_segment(canvas, plot, c, bottom, c, top, 1.5);
+    black_segment(canvas, plot, c - 0.08, top, c + 0.08, top, 1.5);
+    black_segment(canvas, plot, c - 0.08, bottom, c + 0.08, bottom, 1.5);
+    plot.end_data();
     plot.begin_data("value " + p.profile_id);
     plot.label(c, top + 2, format_fixed(100 * p.win_probability, 1) + " %");
     plot.end_data();
   }
-  canvas.legend(110 + plot_w + 20, 70,
-                {{2, "share of samples cheapest", true, false},
-                 {kBlack, "plus or minus one standard error", false, false}});
+  canvas.legend(110 + plot_w + 20, 70, {{2, "share of samples cheapest", true, false}});
+  black_legend_row(canvas, 110 + plot_w + 20, 88, "plus or minus one standard error", 1.5);
   ReportFigure f;
   f.id = "fig-win-probability";
   f.caption = "Share of the " + std::to_string(r.samples) +
@@ -249,7 +265,7 @@ ReportFigure breakeven_chart(const BreakevenResult& r, const std::string& curren
   plot.line(xs, rival, 1, "cheapest other profile", 1);
   if (r.crossing) {
     plot.vline(r.value,
-               "break-even " + format_general(r.value, 6) + (r.unit.empty() ? "" : " " + r.unit));
+               "break-even " + format_general(r.value, 7) + (r.unit.empty() ? "" : " " + r.unit));
   }
   canvas.legend(110, 30 + plot_h + 70,
                 {{0, r.profile_id + " (the profile whose tie is sought)", false, false},
@@ -340,7 +356,14 @@ ReportFigure winner_map_chart(const StudyCase& study, const GridResult& g) {
   const std::vector<double>& rows = g.values[0];
   const std::vector<double>& cols = g.values[1];
   const double nr = static_cast<double>(rows.size()), nc = static_cast<double>(cols.size());
-  const double cell = std::max(26.0, std::min(60.0, 480.0 / std::max(nr, nc)));
+  // Cells big enough for the axis labels to fit beside the map (about 6.6 px a character),
+  // small enough for the page.
+  const auto label_px = [](const Variation& v) {
+    return 6.6 * static_cast<double>(v.label.size() + v.unit.size() + 3);
+  };
+  const double most = std::max(16.0, std::min(110.0, 560.0 / std::max(nr, nc)));
+  const double cell =
+      std::min(most, std::max({40.0, label_px(g.axes[0]) / nr, label_px(g.axes[1]) / nc}));
   const double plot_w = cell * nc, plot_h = cell * nr;
   const auto value_axis = [](const Variation& v, const std::vector<double>& values, bool reverse) {
     Axis a;
@@ -378,9 +401,10 @@ ReportFigure winner_map_chart(const StudyCase& study, const GridResult& g) {
       if (p.feasible()) {
         const std::size_t k = *study.find_profile(p.winner().profile_id);
         letter = profile_letter(k);
-        // Light steps of the sequential scheme, a different lightness per profile, so the
+        // Steps of the sequential scheme far apart in lightness, one per profile, so the
         // map also reads in greyscale; the letter is the cue that never depends on it.
-        fill = svg::sequential_colour(9 - static_cast<int>(k % 6), 10);
+        static const int kSteps[] = {9, 6, 4, 8, 5, 7};
+        fill = svg::sequential_colour(kSteps[k % 6], 10);
       }
       plot.cell(x0, x1, y0, y1, fill);
       canvas.text(plot.px(x0 + 0.5), plot.py(y0 + 0.5) + 5, letter, "value-label", "middle");

@@ -183,10 +183,11 @@ ReportSection grid_decision(const StudyCase& study, const GridResult& g) {
   for (const ChemistryProfile& p : study.profiles) {
     const auto it = wins.find(p.id);
     if (it == wins.end()) continue;
-    counts += (counts.empty() ? "" : ", ") + p.id + " at " + std::to_string(it->second);
+    counts += (counts.empty() ? "" : ", ") + p.id + " at " + std::to_string(it->second) + " points";
   }
   if (none > 0)
-    counts += (counts.empty() ? "" : ", ") + std::string("none at ") + std::to_string(none);
+    counts +=
+        (counts.empty() ? "" : ", ") + std::string("none at ") + std::to_string(none) + " points";
   if (g.base.feasible()) {
     s.paragraph("Base case: " + g.base.winner().profile_id + " wins with a net present cost of " +
                 format_amount(g.base.winner().npc) + " " + study.economics.currency + ".");
@@ -195,7 +196,7 @@ ReportSection grid_decision(const StudyCase& study, const GridResult& g) {
     s.paragraph("No design meets the study's requirements in the base case.");
   }
   s.paragraph("Over the " + std::to_string(g.points.size()) + " points of the grid over " + axes +
-              ", the winner is " + (counts.empty() ? "none" : counts) + " (points).");
+              ", the winner is " + (counts.empty() ? "none" : counts) + ".");
   if (g.base.feasible() && wins.size() == 1 && none == 0 &&
       wins.begin()->first == g.base.winner().profile_id) {
     s.paragraph(g.base.winner().profile_id + " wins at every point of the grid.");
