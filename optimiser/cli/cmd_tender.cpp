@@ -70,7 +70,7 @@ void register_tender(CLI::App& app, int& exit_code) {
       std::optional<report::OutputSet> files;
       if (args->out_dir) files.emplace(*args->out_dir);  // refuses a bad DIR now
       std::optional<report::OutputSet> report_files;
-      if (args->report_dir) report_files.emplace(*args->report_dir);
+      if (args->report_dir) report_files.emplace(*args->report_dir, "--report");
       const TenderCase tender = load_tender_file(args->tender_path);
       const TenderResult result = evaluate_tender(tender);
       std::optional<TenderUncertainty> sampled;

@@ -95,6 +95,8 @@ expect_exit 3 -- "$STOWAGE" tender "$WORK/unmeetable.yaml" --report "$WORK/u1" &
 # Bad input: an --report that is a file, a missing tender; nothing written.
 touch "$WORK/occupied"
 expect_exit 2 -- "$STOWAGE" tender "$tender" --report "$WORK/occupied" || true
+expect_exit 2 -- "$STOWAGE" tender "$tender" --report "" &&
+  { grep -q -- "--report" "$WORK/err" || fail "an empty --report is not refused under its own name"; }
 expect_exit 2 -- "$STOWAGE" tender "$WORK/missing.yaml" --report "$WORK/m1" &&
   grep -q "missing.yaml" "$WORK/err" || fail "missing tender named"
 [ -e "$WORK/m1" ] && [ -n "$(ls -A "$WORK/m1")" ] && fail "files written for a missing tender"
