@@ -129,13 +129,14 @@ assert doc["bracket_low"] <= doc["value"] <= doc["bracket_high"]
 svg = open(d + "/fig-breakeven.svg").read()
 assert f"break-even {doc['value']:.7g} EUR/kWh" in svg, "no break-even line label"
 PY
-expect_exit 0 -- "$STOWAGE" breakeven --vary "$price" --between 200 250 --quiet --report "$WORK/nocross" "$fixture" && {
+expect_exit 0 -- "$STOWAGE" breakeven --vary "$price" --between 200 250 --hold-designs --quiet --report "$WORK/nocross" "$fixture" && {
   "$PY" "$CHECK" "$WORK/nocross" --kind breakeven || fail "report_check on the no-crossing report"
   grep -q "^No crossing between 200 EUR/kWh and 250 EUR/kWh" "$WORK/nocross/report.md" || fail "no-crossing decision"
   grep -q 'class="reference"' "$WORK/nocross/fig-breakeven.svg" && fail "a break-even line without a crossing"
 }
 
-# Reruns: identical except the Generated line; fully identical with SOURCE_DATE_EPOCH.
+# Reruns: identical except the Generated line; fully identical with SOURCE_DATE_EPOCH (held
+# designs where only the bytes matter, to keep the test quick).
 expect_exit 0 -- "$STOWAGE" uncertainty --samples 40 --seed 3 --threads 1 --quiet --report "$WORK/u2" "$fixture"
 for f in $(cd "$WORK/uncertainty" && ls); do
   cmp -s <(grep -v '^Generated ' "$WORK/uncertainty/$f") <(grep -v '^Generated ' "$WORK/u2/$f") ||
@@ -144,15 +145,15 @@ done
 for name in breakeven grid2; do
   grep -c '^Generated ' "$WORK/$name/report.html" | grep -qx 1 || fail "$name: not one Generated line"
 done
-SOURCE_DATE_EPOCH=86400 "$STOWAGE" breakeven --vary "$price" --quiet --report "$WORK/e1" "$fixture" >/dev/null 2>&1
-SOURCE_DATE_EPOCH=86400 "$STOWAGE" breakeven --vary "$price" --quiet --report "$WORK/e2" "$fixture" >/dev/null 2>&1
+SOURCE_DATE_EPOCH=86400 "$STOWAGE" breakeven --vary "$price" --hold-designs --quiet --report "$WORK/e1" "$fixture" >/dev/null 2>&1
+SOURCE_DATE_EPOCH=86400 "$STOWAGE" breakeven --vary "$price" --hold-designs --quiet --report "$WORK/e2" "$fixture" >/dev/null 2>&1
 diff -r "$WORK/e1" "$WORK/e2" >/dev/null || fail "SOURCE_DATE_EPOCH: the break-even sets differ"
 SOURCE_DATE_EPOCH=86400 "$STOWAGE" sweep --quiet --report "$WORK/e3" "$fixture" >/dev/null 2>&1
 SOURCE_DATE_EPOCH=86400 "$STOWAGE" sweep --quiet --threads 1 --report "$WORK/e4" "$fixture" >/dev/null 2>&1
 diff -r "$WORK/e3" "$WORK/e4" >/dev/null || fail "SOURCE_DATE_EPOCH: the sweep sets differ"
 
 # --report beside --out: both sets written, the JSON the same.
-expect_exit 0 -- "$STOWAGE" breakeven --vary "$price" --quiet --out "$WORK/o1" --report "$WORK/o2" "$fixture" &&
+expect_exit 0 -- "$STOWAGE" breakeven --vary "$price" --hold-designs --quiet --out "$WORK/o1" --report "$WORK/o2" "$fixture" &&
   { cmp -s "$WORK/o1/breakeven.json" "$WORK/o2/breakeven.json" || fail "--out and --report JSON differ"; }
 
 # Bad input: --report with --shard, an --report that is a file, an empty --report, a missing
