@@ -94,7 +94,10 @@ ReportSection analysis_method_section(const std::string& title, std::vector<std:
   s.title = title;
   s.paragraph(
       "docs/robustness.md gives the method of every robustness analysis in full; "
-      "docs/usage.md the JSON and CSV fields of the data files beside this report.");
+      "docs/usage.md the JSON and CSV fields of the data files beside this report. Besides "
+      "the input files above, the report depends on the run's own settings, all stated in it: "
+      "the inputs moved and their ranges or distributions, the number of samples and the seed, "
+      "the grid values or the scan, and whether designs were re-optimised or held.");
   s.bullets(std::move(items));
   return s;
 }
