@@ -369,7 +369,7 @@ ReportSection uncertainty_decision(const StudyCase& study, const UncertaintyResu
          amount_cell(p.npc.p10, k + ".npc.p10"), amount_cell(p.npc.p50, k + ".npc.p50"),
          amount_cell(p.npc.p90, k + ".npc.p90")});
   }
-  s.table(t);
+  if (!t.rows.empty()) s.table(t);
   if (r.no_winner_probability > 0) {
     s.notice("No design meets the unserved-energy limit in " + percent(r.no_winner_probability) +
              " of the samples.");
@@ -424,10 +424,16 @@ ReportSection uncertainty_section(const StudyCase& study, const UncertaintyResul
          tagged(std::to_string(p.fails_limit), k + ".fails_limit",
                 static_cast<double>(p.fails_limit))});
   }
-  s.table(t);
-  s.paragraph(
-      "Expected regret: the profile's net present cost less the cheapest of the sample, "
-      "averaged over the samples in which it meets the unserved-energy limit.");
+  if (t.rows.empty()) {
+    s.paragraph(
+        "No profile has a design in the base case, so there was no design to evaluate in the "
+        "samples.");
+  } else {
+    s.table(t);
+    s.paragraph(
+        "Expected regret: the profile's net present cost less the cheapest of the sample, "
+        "averaged over the samples in which it meets the unserved-energy limit.");
+  }
   bool any_npc = false, any_lcos = false;
   for (const ProfileUncertainty& p : r.profiles) {
     any_npc = any_npc || std::isfinite(p.npc.p50);

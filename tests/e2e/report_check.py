@@ -109,8 +109,11 @@ elif kind:
         want = {"fig-tornado"} if doc["base"]["winner"] is not None else set()
     elif kind == "grid":
         want = {"fig-sweep"} if len(doc["axes"]) == 1 else {"fig-winner-map"}
+        if all(p["winner"] is None for p in doc["points"]):
+            want = set()
     elif kind == "uncertainty":
-        want = {"fig-npc-spread", "fig-lcos-spread", "fig-win-probability"}
+        want = {"fig-npc-spread", "fig-lcos-spread", "fig-win-probability"} \
+            if doc["profiles"] else set()
     else:
         want = {"fig-breakeven"}
     check({i for i, _ in inline} == want, f"figures {sorted(i for i, _ in inline)}, want {want}")
@@ -182,9 +185,11 @@ elif kind == "grid":
             check(f"points[{k}].designs[{j}].npc" in keys, f"no tagged NPC at point {k}, {j}")
         if point["winner"] is not None:
             check(f"points[{k}].winner" in keys, f"no tagged winner at point {k}")
-elif kind == "sweep" and doc["base"]["winner"] is not None:
-    for must in ("base.winner", "base.designs[0].npc"):
-        check(any(k.startswith(must.split("[")[0]) for k in keys), f"no tagged {must}")
+elif kind == "sweep":
+    if doc["base"]["winner"] is not None:
+        check("base.winner" in keys, "no tagged base.winner")
+        check(any(k.startswith("base.designs[") and k.endswith(".npc") for k in keys),
+              "no tagged base NPC")
 elif not infeasible:
     for must in ("best.npc", "best.lcos_per_kwh", "best.profile", "best.dod_setpoint",
                  "ranking[1].npc_difference_to_best", "ranking[0].design.breakdown.investment",

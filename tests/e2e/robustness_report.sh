@@ -135,6 +135,24 @@ expect_exit 0 -- "$STOWAGE" breakeven --vary "$price" --between 200 250 --hold-d
   grep -q 'class="reference"' "$WORK/nocross/fig-breakeven.svg" && fail "a break-even line without a crossing"
 }
 
+# No design within the budget: the reports say so and still pass the checks (sweep exits 3 as
+# without --report); a break-even without a runner-up is refused and writes nothing.
+sed -e "s|\.\./\.\./\.\./|$SRC/|" -e "s|max_strings_parallel: 30|max_strings_parallel: 30\n    budget: 10|" \
+  "$fixture" >"$WORK/poor.yaml"
+expect_exit 3 -- "$STOWAGE" sweep --quiet --report "$WORK/p1" "$WORK/poor.yaml" && {
+  "$PY" "$CHECK" "$WORK/p1" --kind sweep || fail "report_check on the infeasible sweep report"
+  grep -q "^No design meets the study's requirements in the base case" "$WORK/p1/report.md" ||
+    fail "infeasible sweep decision"
+}
+expect_exit 3 -- "$STOWAGE" sweep --grid "$price" --steps 3 --quiet --report "$WORK/p2" "$WORK/poor.yaml" &&
+  { "$PY" "$CHECK" "$WORK/p2" --kind grid || fail "report_check on the infeasible grid report"; }
+expect_exit 0 -- "$STOWAGE" uncertainty --samples 8 --quiet --report "$WORK/p3" "$WORK/poor.yaml" && {
+  "$PY" "$CHECK" "$WORK/p3" --kind uncertainty || fail "report_check on the infeasible uncertainty report"
+  grep -q "^The base case has no design meeting" "$WORK/p3/report.md" || fail "infeasible uncertainty decision"
+}
+expect_exit 2 -- "$STOWAGE" breakeven --vary "$price" --quiet --report "$WORK/p4" "$WORK/poor.yaml" || true
+[ -e "$WORK/p4" ] && [ -n "$(ls -A "$WORK/p4")" ] && fail "files written for a refused break-even"
+
 # Reruns: identical except the Generated line; fully identical with SOURCE_DATE_EPOCH (held
 # designs where only the bytes matter, to keep the test quick).
 expect_exit 0 -- "$STOWAGE" uncertainty --samples 40 --seed 3 --threads 1 --quiet --report "$WORK/u2" "$fixture"
