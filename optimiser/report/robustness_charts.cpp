@@ -165,6 +165,64 @@ ReportFigure uncertainty_spread_chart(const UncertaintyResult& r, SpreadQuantity
   return f;
 }
 
+ReportFigure npc_ecdf_chart(const UncertaintyResult& r, const std::string& currency) {
+  std::vector<std::vector<double>> sorted(r.profiles.size());
+  double lo = std::numeric_limits<double>::infinity(), hi = -lo;
+  for (const std::vector<double>& sample : r.npc) {
+    for (std::size_t i = 0; i < sample.size() && i < sorted.size(); ++i) {
+      if (!std::isfinite(sample[i])) continue;
+      sorted[i].push_back(sample[i]);
+      lo = std::min(lo, sample[i]);
+      hi = std::max(hi, sample[i]);
+    }
+  }
+  if (!std::isfinite(lo)) throw ContractViolation("npc_ecdf_chart", "needs a finite NPC");
+  const bool thousands = std::max(std::fabs(lo), std::fabs(hi)) >= 1e6;
+  Axis x = padded_axis(
+      "net present cost (" + std::string(thousands ? "thousand " : "") + currency + ")", lo, hi);
+  x.tick_text = [thousands](double v) { return amount_or_thousands(v, thousands); };
+  Axis y;
+  y.label = "samples at or below (%)";
+  y.lo = 0;
+  y.hi = 100;
+  y.ticks = {0, 20, 40, 60, 80, 100};
+  const double plot_w = 520, plot_h = 260;
+  const double legend_h = 20.0 * static_cast<double>(r.profiles.size());
+  Canvas canvas("fig-npc-ecdf", 110 + plot_w + 40, 30 + plot_h + 70 + legend_h,
+                "Distribution of each profile's net present cost over the samples",
+                "For each profile, the share of samples whose net present cost is at or below "
+                "each value: a step line rising at each sampled value.");
+  Plot plot(canvas, 100, 30, plot_w, plot_h, x, y);
+  plot.draw_axes();
+  std::vector<LegendEntry> legend;
+  for (std::size_t i = 0; i < sorted.size(); ++i) {
+    std::vector<double>& v = sorted[i];
+    if (v.empty()) continue;
+    std::sort(v.begin(), v.end());
+    const double n = static_cast<double>(v.size());
+    std::vector<double> xs, ys;
+    for (std::size_t j = 0; j < v.size(); ++j) {
+      xs.push_back(v[j]);
+      ys.push_back(100 * static_cast<double>(j) / n);
+      xs.push_back(v[j]);
+      ys.push_back(100 * static_cast<double>(j + 1) / n);
+    }
+    // About six markers per line, so the lines stay apart without their colour.
+    const int every = std::max(1, static_cast<int>(xs.size() / 6));
+    plot.line(xs, ys, static_cast<int>(i), r.profiles[i].profile_id, every);
+    legend.push_back({static_cast<int>(i), r.profiles[i].profile_id, false, false});
+  }
+  canvas.legend(110, 30 + plot_h + 70, legend);
+  ReportFigure f;
+  f.id = "fig-npc-ecdf";
+  f.caption =
+      "Empirical distribution of each profile's net present cost over the samples "
+      "(samples.csv): the height of a line at a cost is the share of samples at or below it; "
+      "a line further left is cheaper more often.";
+  f.svg = canvas.str();
+  return f;
+}
+
 ReportFigure win_probability_chart(const UncertaintyResult& r) {
   std::vector<std::string> names;
   for (const ProfileUncertainty& p : r.profiles) names.push_back(p.profile_id);

@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: MIT
 // The figures of the robustness reports (robustness_document.h), drawn with svg_chart.h from
-// the result objects as they are: the P10 / P50 / P90 and mean of UncertaintyResult, its win
+// the result objects as they are: the P10 / P50 / P90, mean and per-sample NPCs of
+// UncertaintyResult, its win
 // probabilities and their standard errors, the probes of a BreakevenResult, the points of a
 // GridResult. Nothing is re-derived. Each returns a ReportFigure whose id is also the name of
 // its .svg file.
@@ -25,6 +26,10 @@ enum class SpreadQuantity { Npc, Lcos };
 // the P50 and a diamond at the mean. Id "fig-npc-spread" or "fig-lcos-spread".
 ReportFigure uncertainty_spread_chart(const UncertaintyResult& r, SpreadQuantity quantity,
                                       const std::string& currency);
+// Per profile, the empirical distribution function of its NPC over the samples (the per-sample
+// NPCs of UncertaintyResult::npc): a step line rising by 1/n at each of its n sampled values,
+// own dash and marker per profile, legend below. Id "fig-npc-ecdf". Requires a finite NPC.
+ReportFigure npc_ecdf_chart(const UncertaintyResult& r, const std::string& currency);
 // Per profile (x axis, by name): the share of samples in which it is cheapest, in %, as a bar
 // with its value printed above and a whisker of one standard error either side.
 // Id "fig-win-probability".

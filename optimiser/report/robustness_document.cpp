@@ -440,6 +440,7 @@ ReportSection uncertainty_section(const StudyCase& study, const UncertaintyResul
     any_lcos = any_lcos || std::isfinite(p.lcos.p50);
   }
   if (any_npc) s.figure(uncertainty_spread_chart(r, SpreadQuantity::Npc, cur));
+  if (any_npc) s.figure(npc_ecdf_chart(r, cur));
   if (any_lcos) s.figure(uncertainty_spread_chart(r, SpreadQuantity::Lcos, cur));
   if (!r.profiles.empty()) s.figure(win_probability_chart(r));
   if (!r.convergence.empty() && !r.base_winner.empty()) {

@@ -112,7 +112,7 @@ elif kind:
         if all(p["winner"] is None for p in doc["points"]):
             want = set()
     elif kind == "uncertainty":
-        want = {"fig-npc-spread", "fig-lcos-spread", "fig-win-probability"} \
+        want = {"fig-npc-spread", "fig-npc-ecdf", "fig-lcos-spread", "fig-win-probability"} \
             if doc["profiles"] else set()
     else:
         want = {"fig-breakeven"}

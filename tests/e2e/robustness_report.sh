@@ -71,7 +71,7 @@ for row, first in zip(range(3), doc["axes"][0]["values"]):
 PY
 
 run uncertainty uncertainty uncertainty.json uncertainty --samples 40 --seed 3 --threads 2
-for f in report.html report.md fig-npc-spread.svg fig-lcos-spread.svg fig-win-probability.svg \
+for f in report.html report.md fig-npc-spread.svg fig-npc-ecdf.svg fig-lcos-spread.svg fig-win-probability.svg \
   uncertainty.json summary.csv samples.csv; do
   [ -s "$WORK/uncertainty/$f" ] || fail "uncertainty report: $f missing or empty"
 done
@@ -99,6 +99,13 @@ tips = [t.text for t in svg.iter(S + "title") if t.text and ": P10 " in t.text]
 for p, tip in zip(doc["profiles"], tips):
     assert tip == f"{p['profile']}: P10 {p['npc']['p10']:,.0f} EUR, P90 {p['npc']['p90']:,.0f} EUR", tip
 assert len(tips) == len(doc["profiles"])
+# The NPC distribution has one step line per profile, two vertices per sample with its design.
+svg = ET.parse(d + "/fig-npc-ecdf.svg").getroot()
+for p in doc["profiles"]:
+    g = next(g for g in svg.iter(S + "g") if g.get("data-series") == p["profile"])
+    path = next(g.iter(S + "path")).get("d")
+    n = sum(r["npc_" + p["profile"]] != "" for r in rows)
+    assert path.count("L") + 1 == 2 * n == 2 * p["samples"], (p["profile"], path.count("L"), n)
 PY
 # A changed percentage must be caught (so the check can fail).
 cp -r "$WORK/uncertainty" "$WORK/tampered"

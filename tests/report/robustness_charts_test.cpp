@@ -4,6 +4,7 @@
 // P10 to P90, the break-even line only with a crossing; and the winner map's letters.
 #include "optimiser/report/robustness_charts.h"
 
+#include <algorithm>
 #include <catch2/catch.hpp>
 #include <cmath>
 #include <limits>
@@ -127,4 +128,27 @@ TEST_CASE("the break-even chart marks the value only when there is a crossing",
   CHECK(crossing.svg.find(">break-even 300 EUR/kWh</text>") != std::string::npos);
   for (BreakevenProbe& p : r.scan) p.profile_npc = p.rival_npc = std::nan("");
   CHECK_THROWS_AS(breakeven_chart(r, "EUR"), ContractViolation);
+}
+
+TEST_CASE("the NPC distribution rises by one sample's share at each sampled value",
+          "[robustness-charts]") {
+  UncertaintyResult r = two_profiles();
+  const double nan = std::numeric_limits<double>::quiet_NaN();
+  // Four samples; the second profile has no design in one of them.
+  r.npc = {{1000, 1300}, {900, nan}, {1100, 1200}, {950, 1250}};
+  const ReportFigure f = npc_ecdf_chart(r, "EUR");
+  CHECK(f.id == "fig-npc-ecdf");
+  // One step line per profile: two vertices per sampled value (empirical distribution
+  // function, common practice), 4 for the first profile and 3 for the second.
+  const std::regex path(R"re(<path d="([^"]+)" fill="none")re");
+  std::vector<std::size_t> vertices;
+  for (auto it = std::sregex_iterator(f.svg.begin(), f.svg.end(), path);
+       it != std::sregex_iterator(); ++it) {
+    const std::string d = (*it)[1];
+    vertices.push_back(static_cast<std::size_t>(std::count(d.begin(), d.end(), 'L')) + 1);
+  }
+  const std::vector<std::size_t> want{8, 6};
+  CHECK(std::vector<std::size_t>(vertices.end() - 2, vertices.end()) == want);
+  r.npc = {{nan, nan}};
+  CHECK_THROWS_AS(npc_ecdf_chart(r, "EUR"), ContractViolation);
 }
