@@ -1,10 +1,9 @@
 // SPDX-License-Identifier: MIT
 // The figures of the robustness reports (robustness_document.h), drawn with svg_chart.h from
 // the result objects as they are: the P10 / P50 / P90, mean and per-sample NPCs of
-// UncertaintyResult, its win
-// probabilities and their standard errors, the probes of a BreakevenResult, the points of a
-// GridResult. Nothing is re-derived. Each returns a ReportFigure whose id is also the name of
-// its .svg file.
+// UncertaintyResult, its win probabilities and their standard errors, the probes of a
+// BreakevenResult, the points of a GridResult. Nothing is re-derived. Each returns a
+// ReportFigure whose id is also the name of its .svg file.
 // Readability (docs/report.md): profiles are told apart by their name on an axis or by letter
 // and legend, never by colour alone; lines differ in dash and marker as well as colour.
 #pragma once
