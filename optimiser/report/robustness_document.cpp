@@ -400,7 +400,7 @@ ReportSection uncertainty_section(const StudyCase& study, const UncertaintyResul
                           tagged_text(v.path, "drawn[" + std::to_string(i) + "].path"),
                           plain(distribution_text(v)), plain(source_text(v))});
   }
-  s.table(drawn);
+  if (!drawn.rows.empty()) s.table(drawn);
   ReportTable t;
   t.caption = "Per profile over the samples (NPC and regret in " + cur + ", LCOS in " + cur +
               " per kWh delivered)";
