@@ -106,7 +106,7 @@ void finish_document(ReportDocument& doc, const LoadedStudy& loaded, ReportSecti
                      std::vector<std::string> limits) {
   doc.sections.push_back(reproduce_section(hash_study_inputs(loaded), "Study"));
   doc.sections.push_back(std::move(method));
-  doc.sections.push_back(study_method_section());
+  doc.sections.push_back(study_method_section(false));
   ReportSection own;
   own.id = "analysis-limits";
   own.title = "Limits of this analysis";

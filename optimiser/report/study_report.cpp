@@ -564,7 +564,7 @@ ReportSection reproduce_section(const StudyHash& hash, const std::string& digest
   return s;
 }
 
-ReportSection study_method_section() {
+ReportSection study_method_section(bool proof_status_shown) {
   ReportSection s;
   s.id = "method";
   s.title = "Method and validation";
@@ -589,8 +589,12 @@ ReportSection study_method_section() {
       "net present cost adds back-up energy and the unserved-energy penalty and is what the search "
       "minimises.",
       "Search: a mixed-integer model (GLPK) points to the designs to simulate; the answer is "
-      "always a design simulated exactly, and the proof status above says whether every other "
-      "design was ruled out.",
+      "always a design simulated exactly" +
+          std::string(proof_status_shown
+                          ? ", and the proof status above says whether every other design was "
+                            "ruled out."
+                          : "; stowage optimise on the study says whether every other design "
+                            "was ruled out."),
       "Validation: the model is checked against ASTM E1049-85's rainflow example, "
       "compound-interest tables, IEEE Std 485 temperature factors, Battery University ageing "
       "anchors, closed-form LCOS cases, and the optimiser against exhaustive enumeration and "
@@ -679,7 +683,7 @@ ReportDocument build_study_report(const ReportInputs& in) {
   if (r.feasible()) doc.sections.push_back(recommended_section(study, r, *in.trace));
   doc.sections.push_back(inputs_section(*in.loaded));
   doc.sections.push_back(reproduce_section(hash_study_inputs(*in.loaded), "Study"));
-  doc.sections.push_back(study_method_section());
+  doc.sections.push_back(study_method_section(true));
   doc.sections.push_back(study_limits_section());
   doc.sections.push_back(safety_section());
   return doc;
