@@ -37,8 +37,8 @@ int run_uncertainty_command(const UncertaintyArgs& args) {
   if (args.run.out_dir) files.emplace(*args.run.out_dir);
   if (args.run.report_dir && !args.shard.empty()) {
     throw InvalidValue("--report",
-                       "needs every sample of the run; it cannot be given with --shard (the "
-                       "merged result of the shards is stowage merge's output)");
+                       "needs every sample of the run; it cannot be given with --shard (give "
+                       "--report to stowage merge, which joins the shards)");
   }
   std::optional<report::OutputSet> report_files;
   if (args.run.report_dir) report_files.emplace(*args.run.report_dir, "--report");

@@ -177,6 +177,20 @@ SOURCE_DATE_EPOCH=86400 "$STOWAGE" sweep --quiet --report "$WORK/e3" "$fixture" 
 SOURCE_DATE_EPOCH=86400 "$STOWAGE" sweep --quiet --threads 1 --report "$WORK/e4" "$fixture" >/dev/null 2>&1
 diff -r "$WORK/e3" "$WORK/e4" >/dev/null || fail "SOURCE_DATE_EPOCH: the sweep sets differ"
 
+# The shards of a run joined by merge --report give the unsharded run's report (only the
+# Generated line differs): the same result object, the same document.
+for i in 1 2 3; do
+  "$STOWAGE" uncertainty --samples 40 --seed 3 --threads 1 --quiet --shard "$i/3" "$fixture" >"$WORK/part$i.txt" ||
+    fail "shard $i"
+done
+expect_exit 0 -- "$STOWAGE" merge --report "$WORK/merged" "$WORK/part2.txt" "$WORK/part3.txt" "$WORK/part1.txt" && {
+  for f in $(cd "$WORK/uncertainty" && ls); do
+    cmp -s <(grep -v '^Generated ' "$WORK/uncertainty/$f") <(grep -v '^Generated ' "$WORK/merged/$f") ||
+      fail "merge --report: $f differs from the unsharded report"
+  done
+  [ "$(ls "$WORK/merged" | wc -l)" = "$(ls "$WORK/uncertainty" | wc -l)" ] || fail "merge --report: other files"
+}
+
 # --report beside --out: both sets written, the JSON the same.
 expect_exit 0 -- "$STOWAGE" breakeven --vary "$price" --hold-designs --quiet --out "$WORK/o1" --report "$WORK/o2" "$fixture" &&
   { cmp -s "$WORK/o1/breakeven.json" "$WORK/o2/breakeven.json" || fail "--out and --report JSON differ"; }
