@@ -8,6 +8,7 @@
 #include "model/invalid_value.h"
 #include "optimiser/analysis/breakeven.h"
 #include "optimiser/cli/analysis_support.h"
+#include "optimiser/cli/cli_support.h"
 #include "optimiser/cli/command.h"
 #include "optimiser/report/breakeven_report.h"
 #include "optimiser/report/output_set.h"
@@ -31,6 +32,7 @@ struct BreakevenArgs {
 
 int run_breakeven(const BreakevenArgs& args) {
   std::optional<report::OutputSet> files;
+  refuse_same_directory(args.run.out_dir, args.run.report_dir);
   if (args.run.out_dir) files.emplace(*args.run.out_dir);
   std::optional<report::OutputSet> report_files;
   if (args.run.report_dir) report_files.emplace(*args.run.report_dir, "--report");

@@ -9,6 +9,7 @@
 #include "catalog-schema/input_error.h"
 #include "optimiser/analysis/shards.h"
 #include "optimiser/cli/analysis_support.h"
+#include "optimiser/cli/cli_support.h"
 #include "optimiser/cli/command.h"
 #include "optimiser/report/output_set.h"
 #include "optimiser/report/robustness_document.h"
@@ -26,6 +27,7 @@ struct MergeArgs {
 
 int run_merge(const MergeArgs& args) {
   std::optional<report::OutputSet> files;
+  refuse_same_directory(args.run.out_dir, args.run.report_dir);
   if (args.run.out_dir) files.emplace(*args.run.out_dir);
   std::optional<report::OutputSet> report_files;
   if (args.run.report_dir) report_files.emplace(*args.run.report_dir, "--report");

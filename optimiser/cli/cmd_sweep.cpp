@@ -9,6 +9,7 @@
 #include "model/invalid_value.h"
 #include "optimiser/analysis/sweep.h"
 #include "optimiser/cli/analysis_support.h"
+#include "optimiser/cli/cli_support.h"
 #include "optimiser/cli/command.h"
 #include "optimiser/report/output_set.h"
 #include "optimiser/report/robustness_document.h"
@@ -53,6 +54,7 @@ std::vector<Variation> grid_axes(const std::vector<Variation>& all,
 
 int run_sweep(const SweepArgs& args) {
   std::optional<report::OutputSet> files;
+  refuse_same_directory(args.run.out_dir, args.run.report_dir);
   if (args.run.out_dir) files.emplace(*args.run.out_dir);  // refuses a bad DIR now
   std::optional<report::OutputSet> report_files;
   if (args.run.report_dir) report_files.emplace(*args.run.report_dir, "--report");

@@ -68,6 +68,7 @@ void register_tender(CLI::App& app, int& exit_code) {
   cmd->callback([args, &exit_code]() {
     exit_code = run_guarded([&]() {
       std::optional<report::OutputSet> files;
+      refuse_same_directory(args->out_dir, args->report_dir);
       if (args->out_dir) files.emplace(*args->out_dir);  // refuses a bad DIR now
       std::optional<report::OutputSet> report_files;
       if (args->report_dir) report_files.emplace(*args->report_dir, "--report");

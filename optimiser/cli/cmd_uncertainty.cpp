@@ -10,6 +10,7 @@
 #include "optimiser/analysis/shards.h"
 #include "optimiser/analysis/uncertainty.h"
 #include "optimiser/cli/analysis_support.h"
+#include "optimiser/cli/cli_support.h"
 #include "optimiser/cli/command.h"
 #include "optimiser/report/output_set.h"
 #include "optimiser/report/robustness_document.h"
@@ -34,6 +35,7 @@ struct UncertaintyArgs {
 
 int run_uncertainty_command(const UncertaintyArgs& args) {
   std::optional<report::OutputSet> files;
+  refuse_same_directory(args.run.out_dir, args.run.report_dir);
   if (args.run.out_dir) files.emplace(*args.run.out_dir);
   if (args.run.report_dir && !args.shard.empty()) {
     throw InvalidValue("--report",

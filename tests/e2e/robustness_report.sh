@@ -200,6 +200,9 @@ expect_exit 0 -- "$STOWAGE" breakeven --vary "$price" --hold-designs --quiet --o
 expect_exit 2 -- "$STOWAGE" uncertainty --samples 8 --shard 1/2 --report "$WORK/s1" "$fixture" &&
   { grep -q -- "--report" "$WORK/err" || fail "--shard with --report: not named"; }
 [ -e "$WORK/s1" ] && fail "--shard with --report wrote a directory"
+expect_exit 2 -- "$STOWAGE" sweep --quiet --out "$WORK/same" --report "$WORK/same/" "$fixture" &&
+  { grep -q -- "--out and --report name the same directory" "$WORK/err" || fail "same --out and --report"; }
+[ -e "$WORK/same" ] && fail "same --out and --report wrote a directory"
 touch "$WORK/occupied"
 expect_exit 2 -- "$STOWAGE" breakeven --vary "$price" --report "$WORK/occupied" "$fixture" || true
 expect_exit 2 -- "$STOWAGE" sweep --report "" "$fixture" && { grep -q -- "--report" "$WORK/err" || fail "empty --report not named"; }
