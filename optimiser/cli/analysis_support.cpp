@@ -15,6 +15,11 @@ void add_run_options(CLI::App& command, RunArgs& args, const std::string& out_fi
   command.add_option("--out", args.out_dir, "Also write " + out_files + " into this directory")
       ->type_name("DIR");
   command
+      .add_option("--report", args.report_dir,
+                  "Also write the report (HTML, Markdown, SVG figures and the JSON and CSV it "
+                  "was made from) into this directory")
+      ->type_name("DIR");
+  command
       .add_option("--threads", args.threads,
                   "Threads for the points or samples (default 0: every core); the results do "
                   "not depend on it")

@@ -22,7 +22,8 @@ namespace stowage::cli {
 struct RunArgs {
   OutputFormat format = OutputFormat::Text;
   std::optional<std::string> out_dir;
-  int threads = 0;  // 0: every core
+  std::optional<std::string> report_dir;  // --report DIR (robustness_document.h)
+  int threads = 0;                        // 0: every core
   bool quiet = false;
 };
 void add_run_options(CLI::App& command, RunArgs& args, const std::string& out_files);

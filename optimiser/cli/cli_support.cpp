@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: MIT
 #include "optimiser/cli/cli_support.h"
 
+#include <filesystem>
 #include <iostream>
 #include <sstream>
 #include <utility>
@@ -32,6 +33,22 @@ int run_guarded(const std::function<int()>& body) {
     // ContractViolation and everything unexpected: a bug, not the user's input.
     report::write_failure(std::cerr, Failure::Internal, e.what());
     return kExitInternalError;
+  }
+}
+
+void refuse_same_directory(const std::optional<std::string>& out_dir,
+                           const std::optional<std::string>& report_dir) {
+  if (!out_dir || !report_dir) return;
+  namespace fs = std::filesystem;
+  const auto canonical = [](const std::string& path) {
+    std::error_code ec;
+    fs::path p = fs::weakly_canonical(fs::absolute(path, ec), ec).lexically_normal();
+    return p.has_filename() ? p : p.parent_path();  // "dir/" names dir
+  };
+  if (canonical(*out_dir) == canonical(*report_dir)) {
+    throw report::OutputFileError("--out and --report name the same directory '" + *report_dir +
+                                  "'; each needs its own, or use --report alone (the report "
+                                  "holds the CSV files too)");
   }
 }
 

@@ -8,9 +8,12 @@
 #include "model/invalid_value.h"
 #include "optimiser/analysis/breakeven.h"
 #include "optimiser/cli/analysis_support.h"
+#include "optimiser/cli/cli_support.h"
 #include "optimiser/cli/command.h"
 #include "optimiser/report/breakeven_report.h"
 #include "optimiser/report/output_set.h"
+#include "optimiser/report/robustness_document.h"
+#include "optimiser/report/study_report.h"
 
 namespace stowage::cli {
 
@@ -29,7 +32,10 @@ struct BreakevenArgs {
 
 int run_breakeven(const BreakevenArgs& args) {
   std::optional<report::OutputSet> files;
+  refuse_same_directory(args.run.out_dir, args.run.report_dir);
   if (args.run.out_dir) files.emplace(*args.run.out_dir);
+  std::optional<report::OutputSet> report_files;
+  if (args.run.report_dir) report_files.emplace(*args.run.report_dir, "--report");
   const LoadedStudy loaded = load_study_details_file(args.study_path);
   const StudyCase& study = loaded.study;
   BreakevenOptions options;
@@ -63,6 +69,10 @@ int run_breakeven(const BreakevenArgs& args) {
                [&](std::ostream& out) { report::write_breakeven_json(out, study, result); });
     files->add("probes.csv", [&](std::ostream& out) { report::write_breakeven_csv(out, result); });
     files->commit();
+  }
+  if (report_files) {
+    report::add_breakeven_report_files(*report_files, loaded, result, report::report_timestamp());
+    report_files->commit();
   }
   if (args.run.format == OutputFormat::Json) {
     report::write_breakeven_json(std::cout, study, result);

@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: MIT
 // `stowage merge PARTS...`: joins the partial results of `stowage uncertainty --shard i/N`
-// into exactly the result of the unsharded run (optimiser/analysis/shards.h).
+// into exactly the result of the unsharded run (optimiser/analysis/shards.h); with --report DIR
+// also the uncertainty report of the whole run (optimiser/report/robustness_document.h).
 #include <iostream>
 #include <memory>
 #include <optional>
@@ -8,9 +9,12 @@
 #include "catalog-schema/input_error.h"
 #include "optimiser/analysis/shards.h"
 #include "optimiser/cli/analysis_support.h"
+#include "optimiser/cli/cli_support.h"
 #include "optimiser/cli/command.h"
 #include "optimiser/report/output_set.h"
+#include "optimiser/report/robustness_document.h"
 #include "optimiser/report/study_hash.h"
+#include "optimiser/report/study_report.h"
 
 namespace stowage::cli {
 
@@ -23,7 +27,10 @@ struct MergeArgs {
 
 int run_merge(const MergeArgs& args) {
   std::optional<report::OutputSet> files;
+  refuse_same_directory(args.run.out_dir, args.run.report_dir);
   if (args.run.out_dir) files.emplace(*args.run.out_dir);
+  std::optional<report::OutputSet> report_files;
+  if (args.run.report_dir) report_files.emplace(*args.run.report_dir, "--report");
   std::vector<UncertaintyPart> parts;
   for (const std::string& path : args.parts) parts.push_back(read_uncertainty_part_file(path));
   const std::vector<SampleRecord> records = join_parts(parts, args.parts);
@@ -48,7 +55,12 @@ int run_merge(const MergeArgs& args) {
     throw InputError(args.parts.front(), 0, 0, "drawn",
                      "the study's drawn inputs differ from the shards'");
   }
-  emit_uncertainty(files, args.run.format, loaded.study, summarise_uncertainty(run, records));
+  const UncertaintyResult result = summarise_uncertainty(run, records);
+  if (report_files) {
+    report::add_uncertainty_report_files(*report_files, loaded, result, report::report_timestamp());
+    report_files->commit();
+  }
+  emit_uncertainty(files, args.run.format, loaded.study, result);
   return kExitOk;
 }
 
@@ -64,6 +76,10 @@ void register_merge(CLI::App& app, int& exit_code) {
   add_format_option(*cmd, args->run.format);
   cmd->add_option("--out", args->run.out_dir,
                   "Also write uncertainty.json, summary.csv and samples.csv into this directory")
+      ->type_name("DIR");
+  cmd->add_option("--report", args->run.report_dir,
+                  "Also write the uncertainty report of the whole run (HTML, Markdown, SVG "
+                  "figures and the JSON and CSV it was made from) into this directory")
       ->type_name("DIR");
   cmd->callback(
       [args, &exit_code]() { exit_code = run_guarded([&]() { return run_merge(*args); }); });

@@ -61,17 +61,6 @@ class ProgressLine {
   bool shown_ = false;
 };
 
-// Whether two --out style paths name one directory (as written, or once both exist).
-bool same_directory(const std::string& a, const std::string& b) {
-  namespace fs = std::filesystem;
-  auto canonical = [](const std::string& path) {
-    std::error_code ec;
-    fs::path p = fs::weakly_canonical(fs::absolute(path, ec), ec).lexically_normal();
-    return p.has_filename() ? p : p.parent_path();  // "dir/" names dir
-  };
-  return canonical(a) == canonical(b);
-}
-
 }  // namespace
 
 void register_optimise(CLI::App& app, int& exit_code) {
@@ -124,12 +113,7 @@ void register_optimise(CLI::App& app, int& exit_code) {
       if (args->out_dir) files.emplace(*args->out_dir);
       std::optional<report::OutputSet> report_files;
       if (args->report_dir) {
-        if (args->out_dir && same_directory(*args->out_dir, *args->report_dir)) {
-          throw report::OutputFileError("--out and --report name the same directory '" +
-                                        *args->report_dir +
-                                        "'; each needs its own, or use --report alone (the "
-                                        "report holds the CSV files too)");
-        }
+        refuse_same_directory(args->out_dir, args->report_dir);
         report_files.emplace(*args->report_dir, "--report");
       }
       std::optional<report::OutputFile> model_file;

@@ -9,8 +9,11 @@
 #include "model/invalid_value.h"
 #include "optimiser/analysis/sweep.h"
 #include "optimiser/cli/analysis_support.h"
+#include "optimiser/cli/cli_support.h"
 #include "optimiser/cli/command.h"
 #include "optimiser/report/output_set.h"
+#include "optimiser/report/robustness_document.h"
+#include "optimiser/report/study_report.h"
 #include "optimiser/report/sweep_report.h"
 
 namespace stowage::cli {
@@ -51,7 +54,10 @@ std::vector<Variation> grid_axes(const std::vector<Variation>& all,
 
 int run_sweep(const SweepArgs& args) {
   std::optional<report::OutputSet> files;
+  refuse_same_directory(args.run.out_dir, args.run.report_dir);
   if (args.run.out_dir) files.emplace(*args.run.out_dir);  // refuses a bad DIR now
+  std::optional<report::OutputSet> report_files;
+  if (args.run.report_dir) report_files.emplace(*args.run.report_dir, "--report");
   const LoadedStudy loaded = load_study_details_file(args.study_path);
   const StudyCase& study = loaded.study;
   const std::vector<Variation> variations = variations_with(loaded, args.vary);
@@ -74,6 +80,10 @@ int run_sweep(const SweepArgs& args) {
                  [&](std::ostream& out) { report::write_grid_csv(out, study, result); });
       files->commit();
     }
+    if (report_files) {
+      report::add_grid_report_files(*report_files, loaded, result, report::report_timestamp());
+      report_files->commit();
+    }
     if (args.run.format == OutputFormat::Json) {
       report::write_grid_json(std::cout, study, result);
     } else {
@@ -95,6 +105,10 @@ int run_sweep(const SweepArgs& args) {
     files->add("tornado.csv",
                [&](std::ostream& out) { report::write_tornado_csv(out, study, result); });
     files->commit();
+  }
+  if (report_files) {
+    report::add_tornado_report_files(*report_files, loaded, result, report::report_timestamp());
+    report_files->commit();
   }
   if (args.run.format == OutputFormat::Json) {
     report::write_tornado_json(std::cout, study, result);

@@ -68,9 +68,10 @@ void register_tender(CLI::App& app, int& exit_code) {
   cmd->callback([args, &exit_code]() {
     exit_code = run_guarded([&]() {
       std::optional<report::OutputSet> files;
+      refuse_same_directory(args->out_dir, args->report_dir);
       if (args->out_dir) files.emplace(*args->out_dir);  // refuses a bad DIR now
       std::optional<report::OutputSet> report_files;
-      if (args->report_dir) report_files.emplace(*args->report_dir);
+      if (args->report_dir) report_files.emplace(*args->report_dir, "--report");
       const TenderCase tender = load_tender_file(args->tender_path);
       const TenderResult result = evaluate_tender(tender);
       std::optional<TenderUncertainty> sampled;

@@ -6,13 +6,17 @@
 #include <memory>
 #include <optional>
 
+#include "model/invalid_value.h"
 #include "optimiser/analysis/shards.h"
 #include "optimiser/analysis/uncertainty.h"
 #include "optimiser/cli/analysis_support.h"
+#include "optimiser/cli/cli_support.h"
 #include "optimiser/cli/command.h"
 #include "optimiser/report/output_set.h"
+#include "optimiser/report/robustness_document.h"
 #include "optimiser/report/shard_report.h"
 #include "optimiser/report/study_hash.h"
+#include "optimiser/report/study_report.h"
 #include "optimiser/report/uncertainty_report.h"
 
 namespace stowage::cli {
@@ -31,7 +35,15 @@ struct UncertaintyArgs {
 
 int run_uncertainty_command(const UncertaintyArgs& args) {
   std::optional<report::OutputSet> files;
+  refuse_same_directory(args.run.out_dir, args.run.report_dir);
   if (args.run.out_dir) files.emplace(*args.run.out_dir);
+  if (args.run.report_dir && !args.shard.empty()) {
+    throw InvalidValue("--report",
+                       "needs every sample of the run; it cannot be given with --shard (give "
+                       "--report to stowage merge, which joins the shards)");
+  }
+  std::optional<report::OutputSet> report_files;
+  if (args.run.report_dir) report_files.emplace(*args.run.report_dir, "--report");
   const LoadedStudy loaded = load_study_details_file(args.study_path);
   const StudyCase& study = loaded.study;
   UncertaintyOptions options;
@@ -56,7 +68,13 @@ int run_uncertainty_command(const UncertaintyArgs& args) {
   part.records = sampler.samples(part.slice.first, part.slice.last);
   progress.finish();
   if (!shard) {
-    emit_uncertainty(files, args.run.format, study, summarise_uncertainty(part.run, part.records));
+    const UncertaintyResult result = summarise_uncertainty(part.run, part.records);
+    if (report_files) {
+      report::add_uncertainty_report_files(*report_files, loaded, result,
+                                           report::report_timestamp());
+      report_files->commit();
+    }
+    emit_uncertainty(files, args.run.format, study, result);
     return kExitOk;
   }
   part.study_path = std::filesystem::absolute(args.study_path).lexically_normal().string();

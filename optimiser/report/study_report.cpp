@@ -285,7 +285,10 @@ ReportSection ranking_section(const StudyCase& study, const OptimiseResult& r) {
   return s;
 }
 
-ReportSection sensitivity_section(const StudyCase& study, const TornadoResult& t) {
+}  // namespace
+
+ReportSection sensitivity_section(const StudyCase& study, const TornadoResult& t,
+                                  const std::string& json_name) {
   ReportSection s;
   s.id = "sensitivity";
   s.title = "Sensitivity of the recommendation";
@@ -295,7 +298,8 @@ ReportSection sensitivity_section(const StudyCase& study, const TornadoResult& t
       "in turn, every other input at its base value, and the study is " +
       std::string(t.hold_designs ? "evaluated with the base case's designs held fixed"
                                  : "optimised again") +
-      " (stowage sweep; the numbers are those of tornado.json). Inputs are listed by "
+      " (stowage sweep; the numbers are those of " + json_name +
+      "). Inputs are listed by "
       "the swing of the winner's net present cost, largest first.");
   ReportTable tab;
   tab.caption = "Winner and its net present cost at each end of each input (" + cur + ")";
@@ -338,6 +342,8 @@ ReportSection sensitivity_section(const StudyCase& study, const TornadoResult& t
   s.figure(tornado_chart(t, cur));
   return s;
 }
+
+namespace {
 
 ReportSection recommended_section(const StudyCase& study, const OptimiseResult& r,
                                   const DesignTrace& trace) {
@@ -586,9 +592,7 @@ ReportSection reproduce_section(const StudyHash& hash, const std::string& digest
   return s;
 }
 
-namespace {
-
-ReportSection method_section() {
+ReportSection study_method_section(bool proof_status_shown) {
   ReportSection s;
   s.id = "method";
   s.title = "Method and validation";
@@ -613,8 +617,12 @@ ReportSection method_section() {
       "net present cost adds back-up energy and the unserved-energy penalty and is what the search "
       "minimises.",
       "Search: a mixed-integer model (GLPK) points to the designs to simulate; the answer is "
-      "always a design simulated exactly, and the proof status above says whether every other "
-      "design was ruled out.",
+      "always a design simulated exactly" +
+          std::string(proof_status_shown
+                          ? ", and the proof status above says whether every other design was "
+                            "ruled out."
+                          : "; stowage optimise on the study says whether every other design "
+                            "was ruled out."),
       "Validation: the model is checked against ASTM E1049-85's rainflow example, "
       "compound-interest tables, IEEE Std 485 temperature factors, Battery University ageing "
       "anchors, closed-form LCOS cases, and the optimiser against exhaustive enumeration and "
@@ -623,7 +631,7 @@ ReportSection method_section() {
   return s;
 }
 
-ReportSection limits_section() {
+ReportSection study_limits_section() {
   ReportSection s;
   s.id = "limits";
   s.title = "Assumptions and limits";
@@ -644,6 +652,8 @@ ReportSection limits_section() {
   });
   return s;
 }
+
+namespace {
 
 std::string safety_text() {
   std::ostringstream text;
@@ -696,13 +706,13 @@ ReportDocument build_study_report(const ReportInputs& in) {
   doc.sections.push_back(decision_section(study, r));
   if (r.feasible()) doc.sections.push_back(ranking_section(study, r));
   if (r.feasible() && in.tornado && in.tornado->base.feasible())
-    doc.sections.push_back(sensitivity_section(study, *in.tornado));
+    doc.sections.push_back(sensitivity_section(study, *in.tornado, "tornado.json"));
   for (const ReportSection& extra : in.analysis_sections) doc.sections.push_back(extra);
   if (r.feasible()) doc.sections.push_back(recommended_section(study, r, *in.trace));
   doc.sections.push_back(inputs_section(*in.loaded));
   doc.sections.push_back(reproduce_section(hash_study_inputs(*in.loaded), "Study"));
-  doc.sections.push_back(method_section());
-  doc.sections.push_back(limits_section());
+  doc.sections.push_back(study_method_section(true));
+  doc.sections.push_back(study_limits_section());
   doc.sections.push_back(safety_section());
   return doc;
 }

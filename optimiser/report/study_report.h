@@ -56,6 +56,14 @@ void add_report_files(OutputSet& set, const ReportInputs& inputs);
 // "<digest_name> digest"), and the safety cautions (print_safety_notice's wording).
 ReportSection reproduce_section(const StudyHash& hash, const std::string& digest_name);
 ReportSection safety_section();
+// Sections shared with the robustness reports (robustness_document.h): the sensitivity of a
+// tornado run whose numbers are those of the file `json_name` (table and tornado chart;
+// requires tornado.base.feasible()), the method and validation summary (saying where the
+// search's proof status is read), and the study's assumptions and limits.
+ReportSection sensitivity_section(const StudyCase& study, const TornadoResult& tornado,
+                                  const std::string& json_name);
+ReportSection study_method_section(bool proof_status_shown);  // false: no proof status above
+ReportSection study_limits_section();
 // Adds report.html, report.md and one .svg per figure of `doc` to `set`; the files share doc.
 void add_document_files(OutputSet& set, std::shared_ptr<const ReportDocument> doc);
 

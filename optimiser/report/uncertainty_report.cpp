@@ -15,6 +15,20 @@ namespace stowage::report {
 
 namespace {
 
+void write_statistics_json(JsonWriter& json, const SampleStatistics& s) {
+  json.begin_object();
+  json.field("mean", s.mean);
+  json.field("standard_error", s.standard_error);
+  json.field("p10", s.p10);
+  json.field("p50", s.p50);
+  json.field("p90", s.p90);
+  json.end_object();
+}
+
+std::string percent(double p) { return format_fixed(100 * p, 1) + " %"; }
+
+}  // namespace
+
 std::string distribution_text(const Variation& v) {
   const Distribution& d = *v.distribution;
   const auto val = [&](double x) { return variation_value_text(v, x); };
@@ -42,20 +56,6 @@ std::string distribution_text(const Variation& v) {
   }
   return "?";
 }
-
-void write_statistics_json(JsonWriter& json, const SampleStatistics& s) {
-  json.begin_object();
-  json.field("mean", s.mean);
-  json.field("standard_error", s.standard_error);
-  json.field("p10", s.p10);
-  json.field("p50", s.p50);
-  json.field("p90", s.p90);
-  json.end_object();
-}
-
-std::string percent(double p) { return format_fixed(100 * p, 1) + " %"; }
-
-}  // namespace
 
 void write_uncertainty_text(std::ostream& out, const StudyCase& study, const UncertaintyResult& r) {
   const std::string what = fmt::format("uncertainty, {} samples ({}), seed {}, {}", r.samples,

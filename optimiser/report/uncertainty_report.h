@@ -14,6 +14,7 @@
 #pragma once
 
 #include <ostream>
+#include <string>
 
 #include "catalog-schema/study_case.h"
 #include "optimiser/analysis/uncertainty.h"
@@ -24,5 +25,8 @@ void write_uncertainty_text(std::ostream& out, const StudyCase& study, const Unc
 void write_uncertainty_json(std::ostream& out, const StudyCase& study, const UncertaintyResult& r);
 void write_uncertainty_summary_csv(std::ostream& out, const UncertaintyResult& r);
 void write_uncertainty_samples_csv(std::ostream& out, const UncertaintyResult& r);
+// "uniform on 240 EUR/kWh .. 380 EUR/kWh": a drawn variation's distribution as the text and
+// the uncertainty report state it. Requires v.distribution.
+std::string distribution_text(const Variation& v);
 
 }  // namespace stowage::report

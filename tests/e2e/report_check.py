@@ -12,7 +12,12 @@
 #     FIPS 180-4), and the study digest follows docs/report.md;
 #   - report.md renders with python3-markdown and has the same headings, table cells and figures;
 #   - the safety cautions are there.
-# Usage: report_check.py DIR [--infeasible] [--tender]
+# With --kind KIND (sweep, grid, uncertainty, breakeven: the robustness reports of `sweep`,
+# `sweep --grid`, `uncertainty` and `breakeven --report`), the numbers are checked against that
+# command's JSON (sweep.json, uncertainty.json, breakeven.json) and the figures against the
+# ones that report draws. A number shown as a percentage ("62.5 %") is compared with the JSON's
+# fraction.
+# Usage: report_check.py DIR [--infeasible] [--tender] [--kind KIND]
 import hashlib
 import html.parser
 import json
@@ -27,6 +32,11 @@ import markdown
 out_dir = sys.argv[1]
 infeasible = "--infeasible" in sys.argv
 tender = "--tender" in sys.argv
+kind = sys.argv[sys.argv.index("--kind") + 1] if "--kind" in sys.argv else None
+KIND_JSON = {"sweep": "sweep.json", "grid": "sweep.json", "uncertainty": "uncertainty.json",
+             "breakeven": "breakeven.json"}
+if kind is not None and kind not in KIND_JSON:
+    sys.exit(f"report_check.py: unknown --kind {kind}")
 errors = []
 
 
@@ -41,7 +51,7 @@ def read(name):
 
 
 html_text = read("report.html")
-json_name = "tender.json" if tender else "result.json"
+json_name = "tender.json" if tender else KIND_JSON[kind] if kind else "result.json"
 doc = json.load(open(os.path.join(out_dir, json_name)))
 
 # ---- well-formed, self-contained HTML -----------------------------------------------------
@@ -94,6 +104,19 @@ inline = re.findall(r"<figure id=\"([^\"]+)\">\n(<svg .*?</svg>\n)", html_text, 
 check(len(inline) == len(svg_files), f"{len(inline)} inline figures, {len(svg_files)} .svg files")
 if tender:
     check({i for i, _ in inline} == {"fig-bids"}, f"figures {sorted(i for i, _ in inline)}")
+elif kind:
+    if kind == "sweep":
+        want = {"fig-tornado"} if doc["base"]["winner"] is not None else set()
+    elif kind == "grid":
+        want = {"fig-sweep"} if len(doc["axes"]) == 1 else {"fig-winner-map"}
+        if all(p["winner"] is None for p in doc["points"]):
+            want = set()
+    elif kind == "uncertainty":
+        want = {"fig-npc-spread", "fig-npc-ecdf", "fig-lcos-spread", "fig-win-probability"} \
+            if doc["profiles"] else set()
+    else:
+        want = {"fig-breakeven"}
+    check({i for i, _ in inline} == want, f"figures {sorted(i for i, _ in inline)}, want {want}")
 elif not infeasible:
     want = {"fig-breakdown", "fig-soc", "fig-rainflow", "fig-life", "fig-cycle-life",
             "fig-temperature"}
@@ -145,6 +168,28 @@ if tender:
         for j in range(len(bid["shortfalls"])):
             check(f"bids[{i}].shortfalls[{j}].offered" in keys, f"shortfall {i}.{j} not shown")
     check(len(tagged) >= 40, f"only {len(tagged)} tagged numbers")
+elif kind == "uncertainty":
+    for i in range(len(doc["profiles"])):
+        for field in ("win_probability", "win_probability_se", "npc.p10", "npc.p50", "npc.p90",
+                      "lcos_per_kwh.p50", "expected_regret", "fails_limit"):
+            check(f"profiles[{i}].{field}" in keys, f"no tagged number for profiles[{i}].{field}")
+elif kind == "breakeven":
+    for i in range(len(doc["scan"])):
+        check(f"scan[{i}].value" in keys, f"no tagged number for scan[{i}].value")
+    if doc["crossing"]:
+        for must in ("value", "bracket_low", "bracket_high"):
+            check(must in keys, f"no tagged number for {must}")
+elif kind == "grid":
+    for k, point in enumerate(doc["points"]):
+        for j in range(len(point["designs"])):
+            check(f"points[{k}].designs[{j}].npc" in keys, f"no tagged NPC at point {k}, {j}")
+        if point["winner"] is not None:
+            check(f"points[{k}].winner" in keys, f"no tagged winner at point {k}")
+elif kind == "sweep":
+    if doc["base"]["winner"] is not None:
+        check("base.winner" in keys, "no tagged base.winner")
+        check(any(k.startswith("base.designs[") and k.endswith(".npc") for k in keys),
+              "no tagged base NPC")
 elif not infeasible:
     for must in ("best.npc", "best.lcos_per_kwh", "best.profile", "best.dod_setpoint",
                  "ranking[1].npc_difference_to_best", "ranking[0].design.breakdown.investment",
@@ -164,8 +209,11 @@ for e in tagged:
     check(math.isclose(float(machine), value, rel_tol=1e-9, abs_tol=1e-9),
           f"{key}: data-value {machine} vs JSON {value}")
     number = shown.replace(",", "").replace("+", "")
+    scale = 1
+    if number.endswith(" %"):  # a fraction shown as a percentage
+        number, scale = number[:-2], 100
     decimals = len(number.split(".")[1]) if "." in number else 0
-    check(abs(float(number) - value) <= 0.5 * 10 ** -decimals + 1e-9,
+    check(abs(float(number) - scale * value) <= 0.5 * 10 ** -decimals + 1e-9,
           f"{key}: shown {shown!r} is not JSON {value} to {decimals} decimals")
 
 # ---- input hashes ---------------------------------------------------------------------------
@@ -200,7 +248,7 @@ def headings(tree, tag):
 
 
 check(cells(md_root) == cells(root), "Markdown tables differ from the HTML tables")
-check(len(cells(root)) > 50, "too few table cells")
+check(len(cells(root)) > (20 if kind else 50), "too few table cells")
 check(headings(md_root, "h2") == headings(root, "h2"), "Markdown sections differ")
 images = [img.get("src") for img in md_root.iter("img")]
 check(images == [i + ".svg" for i, _ in inline], f"Markdown images {images}")
@@ -216,8 +264,9 @@ for word in ("hydrogen", "thermal runaway", "DC arcs", "electrolyte", "weight", 
     check(word in md_text, f"Markdown lacks {word!r}")
 
 # ---- sensitivity section against tornado.json -----------------------------------------------
-tornado_path = os.path.join(out_dir, "tornado.json")
-if os.path.exists(tornado_path):
+tornado_path = os.path.join(out_dir, "sweep.json" if kind == "sweep" else "tornado.json")
+if os.path.exists(tornado_path) and (kind is None or kind == "sweep") and \
+        json.load(open(tornado_path))["base"]["winner"] is not None:
     tornado = json.load(open(tornado_path))
     m = re.search(r'<section id="sensitivity".*?</section>', html_text, re.S)
     check(m is not None, "tornado.json without a sensitivity section")

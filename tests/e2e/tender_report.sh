@@ -68,6 +68,9 @@ SOURCE_DATE_EPOCH=86400 "$STOWAGE" tender "$tender" --report "$WORK/e1" >/dev/nu
 SOURCE_DATE_EPOCH=86400 "$STOWAGE" tender "$tender" --report "$WORK/e2" >/dev/null 2>&1
 diff -r "$WORK/e1" "$WORK/e2" >/dev/null || fail "SOURCE_DATE_EPOCH: the report sets differ"
 
+# --out and --report naming one directory: refused before any work, as for optimise.
+expect_exit 2 -- "$STOWAGE" tender "$tender" --out "$WORK/same" --report "$WORK/same" &&
+  { grep -q -- "--out and --report name the same directory" "$WORK/err" || fail "same --out and --report"; }
 # --report beside --out: both sets written.
 expect_exit 0 -- "$STOWAGE" tender "$tender" --out "$WORK/o1" --report "$WORK/o2" &&
   { [ -s "$WORK/o1/bids.csv" ] && [ -s "$WORK/o2/report.html" ] || fail "--out with --report"; }
@@ -95,6 +98,8 @@ expect_exit 3 -- "$STOWAGE" tender "$WORK/unmeetable.yaml" --report "$WORK/u1" &
 # Bad input: an --report that is a file, a missing tender; nothing written.
 touch "$WORK/occupied"
 expect_exit 2 -- "$STOWAGE" tender "$tender" --report "$WORK/occupied" || true
+expect_exit 2 -- "$STOWAGE" tender "$tender" --report "" &&
+  { grep -q -- "--report" "$WORK/err" || fail "an empty --report is not refused under its own name"; }
 expect_exit 2 -- "$STOWAGE" tender "$WORK/missing.yaml" --report "$WORK/m1" &&
   grep -q "missing.yaml" "$WORK/err" || fail "missing tender named"
 [ -e "$WORK/m1" ] && [ -n "$(ls -A "$WORK/m1")" ] && fail "files written for a missing tender"
