@@ -60,20 +60,14 @@ UncertaintySampler::UncertaintySampler(const StudyCase& study,
   const PreparedRun prepared = prepare_run(study, !options.reoptimise, options.optimise);
   point_ = prepared.point;
   if (prepared.base.feasible()) run_.base_winner = prepared.base.winner().profile_id;
-  if (options.latin_hypercube) {
-    for (std::size_t j = 0; j < run_.drawn.size(); ++j) {
-      strata_.push_back(latin_strata(options.seed, j, options.samples));
-    }
-  }
+  draws_ = draw_inputs(run_.drawn, options.seed, options.samples, options.latin_hypercube);
 }
 
 SampleRecord UncertaintySampler::sample(std::size_t k) const {
   SampleRecord r;
   std::vector<Setting> settings;
   for (std::size_t j = 0; j < run_.drawn.size(); ++j) {
-    double u = sample_uniform(options_.seed, k, j);
-    if (options_.latin_hypercube) u = (static_cast<double>(strata_[j][k]) + u) / run_.samples;
-    const double x = distribution_quantile(*run_.drawn[j].distribution, u);
+    const double x = draws_[j][k];
     r.values.push_back(x);
     settings.push_back({run_.drawn[j].path, x});
   }

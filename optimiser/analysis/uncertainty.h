@@ -2,11 +2,12 @@
 // Uncertainty (Monte Carlo) over the variations that carry a distribution: sample k draws each
 // such input j at distribution_quantile(d_j, u_kj) with u_kj = sample_uniform(seed, k, j), or,
 // with latin_hypercube, u_kj = (stratum_j(k) + sample_uniform(seed, k, j)) / N (sampling.h);
-// the other variations stay at their study values. Inputs are drawn independently (no rank
-// correlation). Each sample applies the draws to a copy of the base case in the order of the
-// variations and evaluates the base case's best design of each profile exactly (held designs),
-// or, with reoptimise, re-optimises the sample (scenario.h).
-// Per profile (study order, those with a design):
+// the other variations stay at their study values. Inputs are drawn independently unless the
+// variations give rank correlations, which the Iman-Conover reordering of the whole N-sample
+// draw matrix meets (draw_inputs, sampling.h). Each sample applies the draws to a copy of the base
+// case in the order of the variations and evaluates the base case's best design of each profile
+// exactly (held designs), or, with reoptimise, re-optimises the sample (scenario.h). Per profile
+// (study order, those with a design):
 //   npc, lcos: mean, standard error, P10 / P50 / P90 over the samples (sampling.h);
 //   win_probability: share of samples in which this profile's design is the cheapest of
 //     those meeting the unserved-energy limit (ties: profile order), with standard error
@@ -97,7 +98,8 @@ struct SampleRecord {
 
 class UncertaintySampler {
  public:
-  // Optimises the base case (held designs) and draws the Latin hypercube strata. Throws as
+  // Optimises the base case (held designs) and draws every input of all samples (a shard
+  // draws the whole run, so its slice equals the unsharded run's). Throws as
   // run_uncertainty does.
   UncertaintySampler(const StudyCase& study, const std::vector<Variation>& variations,
                      const UncertaintyOptions& options);
@@ -111,7 +113,7 @@ class UncertaintySampler {
   UncertaintyOptions options_;
   UncertaintyRun run_;
   PointOptions point_;
-  std::vector<std::vector<std::size_t>> strata_;
+  std::vector<std::vector<double>> draws_;  // draws_[j][k]: input j, sample k (all samples)
 };
 
 // The result from every sample of the run, in sample order (records.size() == run.samples).
