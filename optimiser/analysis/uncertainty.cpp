@@ -3,6 +3,7 @@
 
 #include <cmath>
 #include <limits>
+#include <memory>
 
 #include "model/contract.h"
 #include "model/invalid_value.h"
@@ -59,6 +60,13 @@ UncertaintySampler::UncertaintySampler(const StudyCase& study,
   for (const ChemistryProfile& p : study.profiles) run_.profile_ids.push_back(p.id);
   const PreparedRun prepared = prepare_run(study, !options.reoptimise, options.optimise);
   point_ = prepared.point;
+  std::vector<std::string> paths;
+  for (const Variation& v : run_.drawn) paths.push_back(v.path);
+  if (!options.reoptimise && options.reprice_when_prices_only && prices_only(study, paths)) {
+    point_.priced_from =
+        std::make_shared<const std::vector<DesignResult>>(simulate_held(study, point_.held));
+    run_.repriced = true;
+  }
   if (prepared.base.feasible()) run_.base_winner = prepared.base.winner().profile_id;
   draws_ = draw_inputs(run_.drawn, options.seed, options.samples, options.latin_hypercube);
 }

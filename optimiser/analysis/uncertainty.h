@@ -6,7 +6,9 @@
 // variations give rank correlations, which the Iman-Conover reordering of the whole N-sample
 // draw matrix meets (draw_inputs, sampling.h). Each sample applies the draws to a copy of the base
 // case in the order of the variations and evaluates the base case's best design of each profile
-// exactly (held designs), or, with reoptimise, re-optimises the sample (scenario.h). Per profile
+// exactly (held designs), or, with reoptimise, re-optimises the sample (scenario.h). With held
+// designs and only prices_only paths drawn, each sample re-prices the base case's simulated designs
+// instead (scenario.h, model/repricing.h): the same numbers to rounding, far faster. Per profile
 // (study order, those with a design):
 //   npc, lcos: mean, standard error, P10 / P50 / P90 over the samples (sampling.h);
 //   win_probability: share of samples in which this profile's design is the cheapest of
@@ -40,6 +42,10 @@ struct UncertaintyOptions {
   std::uint64_t seed = 1;
   bool latin_hypercube = false;
   bool reoptimise = false;
+  // Held designs, every drawn path prices_only (scenario.h): re-price the base case's
+  // simulated designs instead of simulating each sample. false forces the simulation (the
+  // bench times both).
+  bool reprice_when_prices_only = true;
   int threads = 0;
   OptimiseOptions optimise;
   DoneCallback progress;  // after each sample (parallel.h); may be empty
@@ -83,6 +89,7 @@ struct UncertaintyRun {
   bool latin_hypercube = false, reoptimise = false;
   std::string base_winner;               // empty when the base case has no feasible design
   std::vector<std::string> profile_ids;  // the study's, in study order
+  bool repriced = false;  // the samples re-price the held designs (scenario.h), not simulate
 };
 
 // One sample: the drawn values (order of `drawn`) and each profile's design (study order).
