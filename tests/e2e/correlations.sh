@@ -62,6 +62,12 @@ for k in paths:
     assert c[k] != i[k], k
 PY
 
+# The text names the method and lists each pair once, instead of calling the inputs independent.
+expect_exit 0 -- "$STOWAGE" uncertainty --samples 50 --seed 3 "$correlated" || fail "text run"
+grep -q "rank-correlated where listed, by the Iman-Conover method" "$WORK/out" || fail "text heading"
+[ "$(grep -c "rank correlation with" "$WORK/out")" = 3 ] || fail "text pairs: $(grep "rank correlation" "$WORK/out")"
+! grep -q "independent of each other" "$WORK/out" || fail "text calls correlated inputs independent"
+
 # Shards: every shard draws the whole 1000-sample matrix and keeps its slice.
 for i in 1 2 3 4; do
   "$STOWAGE" uncertainty --samples 1000 --seed 3 --threads 1 --shard "$i/4" "$correlated" >"$WORK/part$i.txt" || fail "shard $i"
