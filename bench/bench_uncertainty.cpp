@@ -57,7 +57,7 @@ void run_uncertainty_benchmarks(std::size_t samples) {
   const std::size_t n = std::min<std::size_t>(samples, 1000);
   std::printf(
       "\nre-pricing shortcut: %zu samples of the study's %zu price-only inputs, designs held, "
-      "2 threads\n| samples | time | samples/s |\n|---|---|---|\n",
+      "2 threads\n| run | time | samples/s |\n|---|---|---|\n",
       n, prices.size());
   double seconds[2] = {0, 0};
   for (bool reprice : {false, true}) {
