@@ -294,6 +294,47 @@ TEST_CASE("a tender reads its variations with the tender's paths and the bids' v
   CHECK(changed.economics.real_discount_rate == 0.05);
 }
 
+TEST_CASE("a tender reads rank correlations between its variations",
+          "[catalog][variations][tender][correlation]") {
+  const testing::TempDir dir;
+  const std::string path = dir.write("tender.yaml", tender_text("  variations:\n"
+                                                                "    - path: site.backup.price_"
+                                                                "per_kwh\n"
+                                                                "      label: diesel\n"
+                                                                "      low: 0.20\n"
+                                                                "      high: 0.40\n"
+                                                                "      distribution: {kind: "
+                                                                "uniform}\n"
+                                                                "    - path: economics.real_"
+                                                                "discount_rate\n"
+                                                                "      low: 0.04\n"
+                                                                "      high: 0.10\n"
+                                                                "      distribution: {kind: "
+                                                                "uniform}\n"
+                                                                "      rank_correlations: "
+                                                                "[{with: diesel, rho: 0.4}]\n"));
+  const TenderCase tender = load_tender_file(path);
+  REQUIRE(tender.variations.size() == 2);
+  REQUIRE(tender.variations[0].rank_correlations.size() == 1);
+  CHECK(tender.variations[0].rank_correlations[0].with == "economics.real_discount_rate");
+  CHECK(tender.variations[1].rank_correlations[0].with == "site.backup.price_per_kwh");
+  CHECK(tender.variations[1].rank_correlations[0].rho == 0.4);
+  // Named by an unknown name: refused at the tender's field.
+  const std::string bad = dir.write("bad.yaml", tender_text("  variations:\n"
+                                                            "    - path: economics.real_"
+                                                            "discount_rate\n"
+                                                            "      low: 0.04\n"
+                                                            "      high: 0.10\n"
+                                                            "      distribution: {kind: "
+                                                            "uniform}\n"
+                                                            "      rank_correlations: "
+                                                            "[{with: diesel, rho: 0.4}]\n"));
+  const InputError e = expect_input_error([&] { load_tender_file(bad); }, bad,
+                                          line_of(read_text(bad), "rank_correlations"),
+                                          "tender.variations[0].rank_correlations[0].with");
+  CHECK_THAT(e.message(), Catch::Matchers::Contains("neither the path nor the label"));
+}
+
 TEST_CASE("a tender refuses a variation the tender cannot take, at its file, line and field",
           "[catalog][variations][tender]") {
   const testing::TempDir dir;
