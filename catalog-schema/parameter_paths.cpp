@@ -220,6 +220,11 @@ ParameterInfo describe(const Entry& e, const StudyCase& s, std::size_t profile,
   info.max_inclusive = e.max_inclusive;
   info.whole_number = e.whole_number;
   info.effect = e.effect;
+  info.prices_only = e.scope == Scope::Profile ? e.key.rfind("costs.", 0) == 0
+                                               : e.key == "economics.real_discount_rate" ||
+                                                     e.key == "site.backup.price_per_kwh" ||
+                                                     e.key == "site.charging_price.per_kwh" ||
+                                                     e.key == "site.unserved_penalty_per_kwh";
   const std::optional<double> v = e.get(s, profile);
   info.present = v.has_value();
   info.base = v.value_or(std::numeric_limits<double>::quiet_NaN());

@@ -54,6 +54,16 @@ struct ParameterInfo {
   ParameterEffect effect = ParameterEffect::Set;
   double base = 0;      // the value in the case (Set), 0 (Offset) or 1 (Scale)
   bool present = true;  // false: an optional input the case does not set (no back-up, say)
+  // True when the input only prices what a design does: changing it leaves every hour of the
+  // dispatch, the ageing and the replacement timing as they were (model/repricing.h), so a
+  // held design can be re-priced instead of simulated again. These are the profile prices
+  // (profiles.<id>.costs.*), economics.real_discount_rate, site.backup.price_per_kwh (the
+  // dispatch only asks whether there is back-up, never its price), site.charging_price.per_kwh
+  // (the dispatch charges whenever there is surplus, whatever it costs; the path exists only
+  // for a flat price, so the year's cost is that price x the source energy drawn) and
+  // site.unserved_penalty_per_kwh. Not: economics.project_years (the number of years
+  // simulated), nor any efficiency, weather, load, autonomy or chemistry input.
+  bool prices_only = false;
 };
 
 // Every path of the case, in a stable order.

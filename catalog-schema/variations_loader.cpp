@@ -1,6 +1,8 @@
 // SPDX-License-Identifier: MIT
 #include "catalog-schema/variations_loader.h"
 
+#include <Eigen/Cholesky>
+#include <Eigen/Core>
 #include <algorithm>
 #include <cmath>
 #include <cstdlib>
@@ -294,6 +296,105 @@ bool parse_number(const std::string& text, double& out) {
   return end == text.c_str() + text.size() && std::isfinite(out);
 }
 
+// The rank_correlations of every entry of `list` (already read into `out`), resolved to
+// paths, stored on both sides; refused as variations_loader.h lists.
+void read_rank_correlations(const YamlDocument& doc, const YAML::Node& list,
+                            const std::string& block, std::vector<Variation>& out) {
+  const std::size_t n = out.size();
+  std::vector<std::vector<double>> rho(n, std::vector<double>(n, 0.0));
+  std::vector<std::vector<std::string>> given_at(n, std::vector<std::string>(n));
+  bool any = false;
+  for (std::size_t i = 0; i < n; ++i) {
+    const YAML::Node entries = list[i]["rank_correlations"];
+    if (!entries) continue;
+    const std::string field = join_index(block, i) + ".rank_correlations";
+    if (!out[i].distribution) {
+      throw doc.error_at(entries, field,
+                         "applies to an entry with a distribution only: " + out[i].path +
+                             " is not drawn, so it has no rank to correlate");
+    }
+    for (std::size_t c = 0; c < entries.size(); ++c) {
+      const std::string at = join_index(field, c);
+      const YAML::Node with = entries[c]["with"];
+      const std::string name = with.Scalar();
+      std::size_t found = n;
+      for (std::size_t j = 0; j < n; ++j) {
+        if (out[j].path == name) found = j;
+      }
+      if (found == n) {
+        for (std::size_t j = 0; j < n; ++j) {
+          if (out[j].label != name) continue;
+          if (found != n) {
+            throw doc.error_at(with, at + ".with",
+                               "'" + name + "' is the label of more than one entry of " + block +
+                                   "; name the entry by its path");
+          }
+          found = j;
+        }
+      }
+      if (found == n) {
+        throw doc.error_at(
+            with, at + ".with",
+            "'" + name + "' is neither the path nor the label of an entry of " + block);
+      }
+      if (found == i) {
+        throw doc.error_at(with, at + ".with",
+                           "names its own entry; a rank correlation is between two inputs");
+      }
+      if (!out[found].distribution) {
+        throw doc.error_at(with, at + ".with",
+                           out[found].path +
+                               " has no distribution, so it is not drawn and has "
+                               "no rank to correlate; give it a distribution");
+      }
+      const double r = number(entries[c]["rho"]);
+      if (given_at[i][found].rfind(field, 0) == 0) {
+        throw doc.error_at(with, at + ".with",
+                           "pairs " + out[i].path + " with " + out[found].path +
+                               " a second time (" + given_at[i][found] + ")");
+      }
+      if (!given_at[i][found].empty() && rho[i][found] != r) {
+        throw doc.error_at(entries[c]["rho"], at + ".rho",
+                           "gives " + number_text(r) + " but " + given_at[i][found] + " gives " +
+                               number_text(rho[i][found]) + " for the same pair; a rank " +
+                               "correlation is symmetric, so give it once or equal on both sides");
+      }
+      rho[i][found] = rho[found][i] = r;
+      given_at[i][found] = given_at[found][i] = at;
+      any = any || r != 0;
+    }
+  }
+  if (!any) return;
+  std::vector<std::size_t> drawn;
+  for (std::size_t i = 0; i < n; ++i) {
+    if (out[i].distribution) drawn.push_back(i);
+  }
+  Eigen::MatrixXd m = Eigen::MatrixXd::Identity(static_cast<Eigen::Index>(drawn.size()),
+                                                static_cast<Eigen::Index>(drawn.size()));
+  for (std::size_t a = 0; a < drawn.size(); ++a) {
+    for (std::size_t b = 0; b < drawn.size(); ++b) {
+      if (a != b) {
+        m(static_cast<Eigen::Index>(a), static_cast<Eigen::Index>(b)) = rho[drawn[a]][drawn[b]];
+      }
+    }
+  }
+  // Cholesky succeeds only for a positive-definite matrix; a positive semi-definite one (a
+  // correlation of exactly +-1, or pairs that force one) fails too, as Iman-Conover needs the
+  // factor to be invertible.
+  const Eigen::LLT<Eigen::MatrixXd> llt(m);
+  if (llt.info() != Eigen::Success) {
+    throw doc.error_at(list, block,
+                       "the rank correlations cannot all hold at once: their matrix over the "
+                       "drawn entries is not positive definite (no Cholesky factor); weaken "
+                       "one of them");
+  }
+  for (std::size_t i = 0; i < n; ++i) {
+    for (std::size_t j = 0; j < n; ++j) {
+      if (i != j && rho[i][j] != 0) out[i].rank_correlations.push_back({out[j].path, rho[i][j]});
+    }
+  }
+}
+
 // The `<whole>.variations` block of the document, read against the case's paths.
 std::vector<Variation> read_block(const YamlDocument& doc, const PathSpace& space) {
   std::vector<Variation> out;
@@ -328,6 +429,8 @@ std::vector<Variation> read_block(const YamlDocument& doc, const PathSpace& spac
   }
   if (errors.size() == 1) throw errors.front();
   if (!errors.empty()) throw InputErrors(std::move(errors));
+  // The correlations name other entries, so they are read once every entry is sound.
+  read_rank_correlations(doc, list, block, out);
   return out;
 }
 
@@ -392,6 +495,12 @@ std::vector<Variation> merge_variations(std::vector<Variation> variations,
                              [&](const Variation& v) { return v.path == e.path; });
     if (same != variations.end()) {
       *same = e;
+      for (Variation& v : variations) {
+        auto& c = v.rank_correlations;
+        c.erase(std::remove_if(c.begin(), c.end(),
+                               [&](const RankCorrelation& r) { return r.with == e.path; }),
+                c.end());
+      }
     } else {
       variations.push_back(e);
     }

@@ -21,6 +21,19 @@
 //   discrete    one of `values` with `weights` (default equal), normalised to sum 1
 // The truncation interval is stored in Distribution::lower/upper with whether each end is open.
 //
+// Rank correlations (optional, uncertainty runs only): an entry with a distribution may list
+//   rank_correlations: [{with: NAME, rho: R}, ...]
+// NAME is the path or the label of another entry of the same block that has a distribution;
+// R in [-1, 1] is the target Spearman rank correlation between the two inputs. A pair may be
+// given on either entry or on both; given on both, the two values must be equal (the matrix
+// is symmetric). Pairs not given are 0. The matrix of all drawn entries must be positive
+// definite (Cholesky succeeds), so the targets can hold at once. They are met by the
+// Iman-Conover reordering (optimiser/analysis/sampling.h). Refused: an unknown or ambiguous
+// NAME, an entry naming itself, a pair named twice on one entry, an entry without a
+// distribution (on either side), disagreeing sides, |R| > 1 (schema), a matrix that is not
+// positive definite (reported at the block).
+// Stored symmetrically: each side's Variation::rank_correlations holds the other's path.
+//
 // Errors: InputError at the offending node (file, line, column, field path such as
 // study.variations[2].high); for --vary, InvalidValue with field "--vary".
 #pragma once
@@ -50,6 +63,11 @@ struct Distribution {
   std::vector<double> probabilities;  // discrete, same order, sum 1
 };
 
+struct RankCorrelation {
+  std::string with;  // the path of the other variation
+  double rho = 0;    // target Spearman rank correlation, in [-1, 1]
+};
+
 struct Variation {
   std::string path;
   std::string label;   // the path when not given
@@ -59,6 +77,7 @@ struct Variation {
   std::vector<double> points;  // grid points, ascending; empty for the low/high form
   bool whole_number = false;
   std::optional<Distribution> distribution;
+  std::vector<RankCorrelation> rank_correlations;  // non-zero pairs, both sides; by path
   SourcePosition at;  // where it is defined; file "--vary" for the option
 };
 
@@ -77,7 +96,8 @@ std::vector<Variation> read_tender_variations(const YamlDocument& doc, const Ten
 Variation parse_vary_option(const std::string& text, const StudyCase& study);
 
 // The variations with `extra` added; an extra one for a path already in `variations` replaces
-// it (the command line wins over the file).
+// it (the command line wins over the file), and the rank correlations other entries had with
+// the replaced one are dropped with it (a --vary entry has no distribution, so is not drawn).
 std::vector<Variation> merge_variations(std::vector<Variation> variations,
                                         const std::vector<Variation>& extra);
 

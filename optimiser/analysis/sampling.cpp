@@ -1,12 +1,15 @@
 // SPDX-License-Identifier: MIT
 #include "optimiser/analysis/sampling.h"
 
+#include <Eigen/Cholesky>
+#include <Eigen/Core>
 #include <algorithm>
 #include <cmath>
 #include <limits>
 #include <numeric>
 
 #include "model/contract.h"
+#include "model/invalid_value.h"
 
 namespace stowage {
 
@@ -127,6 +130,155 @@ double distribution_quantile(const Distribution& d, double u) {
     }
   }
   throw ContractViolation("distribution.kind", "unknown kind");
+}
+
+std::vector<std::vector<double>> rank_correlation_target(const std::vector<Variation>& drawn) {
+  const std::size_t k = drawn.size();
+  std::vector<std::vector<double>> c(k, std::vector<double>(k, 0.0));
+  for (std::size_t a = 0; a < k; ++a) {
+    c[a][a] = 1;
+    for (const RankCorrelation& r : drawn[a].rank_correlations) {
+      for (std::size_t b = 0; b < k; ++b) {
+        if (b == a || drawn[b].path != r.with) continue;
+        // Either side may carry the pair (the loader stores both); both must agree.
+        if ((c[a][b] != 0 && c[a][b] != r.rho) || (c[b][a] != 0 && c[b][a] != r.rho)) {
+          throw ContractViolation("rank_correlations", "the two sides of a pair disagree");
+        }
+        c[a][b] = c[b][a] = r.rho;
+      }
+    }
+  }
+  return c;
+}
+
+std::vector<std::vector<double>> iman_conover(std::vector<std::vector<double>> columns,
+                                              const std::vector<std::vector<double>>& target,
+                                              std::uint64_t seed) {
+  const std::size_t k = columns.size();
+  if (target.size() != k) throw ContractViolation("target", "one row per column");
+  std::vector<std::size_t> chosen;
+  for (std::size_t a = 0; a < k; ++a) {
+    if (target[a].size() != k) throw ContractViolation("target", "must be square");
+    for (std::size_t b = 0; b < k; ++b) {
+      if (a != b && target[a][b] != 0) {
+        chosen.push_back(a);
+        break;
+      }
+    }
+  }
+  if (chosen.empty()) return columns;
+  const std::size_t n = columns[chosen.front()].size();
+  for (std::size_t j : chosen) {
+    if (columns[j].size() != n) throw ContractViolation("columns", "equally long");
+  }
+  using Eigen::Index;
+  const auto m = static_cast<Index>(chosen.size());
+  Eigen::MatrixXd c(m, m);
+  for (Index a = 0; a < m; ++a) {
+    for (Index b = 0; b < m; ++b) c(a, b) = target[chosen[a]][chosen[b]];
+  }
+  const Eigen::LLT<Eigen::MatrixXd> target_llt(c);
+  if (target_llt.info() != Eigen::Success) {
+    throw ContractViolation("target", "must be positive definite (the loader checks it)");
+  }
+  // 1. Scores, each column in its own permutation.
+  std::vector<double> scores(n);
+  for (std::size_t i = 0; i < n; ++i) {
+    scores[i] = normal_quantile(static_cast<double>(i + 1) / static_cast<double>(n + 1));
+  }
+  const std::uint64_t stream = splitmix64(seed ^ 0x494D414E434F4E56ULL);
+  Eigen::MatrixXd r(static_cast<Index>(n), m);
+  for (Index a = 0; a < m; ++a) {
+    const std::vector<std::size_t> order = latin_strata(stream, chosen[a], n);
+    for (std::size_t i = 0; i < n; ++i) r(static_cast<Index>(i), a) = scores[order[i]];
+  }
+  // 2. The scores' sample correlation and its factor.
+  const Eigen::RowVectorXd mean = r.colwise().mean();
+  const Eigen::MatrixXd centred = r.rowwise() - mean;
+  Eigen::MatrixXd t = centred.transpose() * centred;
+  const Eigen::VectorXd sd = t.diagonal().cwiseSqrt();
+  for (Index a = 0; a < m; ++a) {
+    for (Index b = 0; b < m; ++b) t(a, b) /= sd(a) * sd(b);
+  }
+  const Eigen::LLT<Eigen::MatrixXd> scores_llt(t);
+  if (n < 2 || scores_llt.info() != Eigen::Success) {
+    throw InvalidValue("samples", std::to_string(n) + " samples are too few to correlate " +
+                                      std::to_string(chosen.size()) +
+                                      " inputs by rank; draw more samples");
+  }
+  const Eigen::MatrixXd p = target_llt.matrixL();
+  const Eigen::MatrixXd q = scores_llt.matrixL();
+  // R* = R (P Q^-1)'; (P Q^-1)' = Q'^-1 P', one triangular solve.
+  const Eigen::MatrixXd s = q.transpose().triangularView<Eigen::Upper>().solve(p.transpose());
+  const Eigen::MatrixXd transformed = r * s;
+  // 3. Each chosen input's sorted draws in the rank order of its transformed scores.
+  for (Index a = 0; a < m; ++a) {
+    std::vector<double>& x = columns[chosen[a]];
+    std::vector<double> sorted = x;
+    std::sort(sorted.begin(), sorted.end());
+    std::vector<std::size_t> order(n);
+    std::iota(order.begin(), order.end(), std::size_t{0});
+    std::sort(order.begin(), order.end(), [&](std::size_t i, std::size_t j) {
+      const double vi = transformed(static_cast<Index>(i), a);
+      const double vj = transformed(static_cast<Index>(j), a);
+      return vi < vj || (vi == vj && i < j);
+    });
+    for (std::size_t rank = 0; rank < n; ++rank) x[order[rank]] = sorted[rank];
+  }
+  return columns;
+}
+
+std::vector<std::vector<double>> draw_inputs(const std::vector<Variation>& drawn,
+                                             std::uint64_t seed, std::size_t n,
+                                             bool latin_hypercube) {
+  std::vector<std::vector<double>> columns(drawn.size(), std::vector<double>(n));
+  for (std::size_t j = 0; j < drawn.size(); ++j) {
+    if (!drawn[j].distribution) throw ContractViolation("drawn", "every entry has a distribution");
+    std::vector<std::size_t> strata;
+    if (latin_hypercube) strata = latin_strata(seed, j, n);
+    for (std::size_t k = 0; k < n; ++k) {
+      double u = sample_uniform(seed, k, j);
+      if (latin_hypercube) u = (static_cast<double>(strata[k]) + u) / static_cast<double>(n);
+      columns[j][k] = distribution_quantile(*drawn[j].distribution, u);
+    }
+  }
+  return iman_conover(std::move(columns), rank_correlation_target(drawn), seed);
+}
+
+namespace {
+
+// Ranks 1..n, ties their average.
+std::vector<double> average_ranks(const std::vector<double>& x) {
+  std::vector<std::size_t> order(x.size());
+  std::iota(order.begin(), order.end(), std::size_t{0});
+  std::sort(order.begin(), order.end(), [&](std::size_t i, std::size_t j) { return x[i] < x[j]; });
+  std::vector<double> rank(x.size());
+  for (std::size_t i = 0; i < order.size();) {
+    std::size_t e = i;
+    while (e + 1 < order.size() && x[order[e + 1]] == x[order[i]]) ++e;
+    const double average = 0.5 * static_cast<double>(i + e) + 1;
+    for (std::size_t t = i; t <= e; ++t) rank[order[t]] = average;
+    i = e + 1;
+  }
+  return rank;
+}
+
+}  // namespace
+
+double spearman_rank_correlation(const std::vector<double>& a, const std::vector<double>& b) {
+  if (a.size() != b.size() || a.size() < 2) {
+    throw ContractViolation("a, b", "two equally long series of at least 2 values");
+  }
+  const std::vector<double> ra = average_ranks(a), rb = average_ranks(b);
+  const double mean = 0.5 * static_cast<double>(a.size() + 1);
+  double sab = 0, saa = 0, sbb = 0;
+  for (std::size_t i = 0; i < a.size(); ++i) {
+    sab += (ra[i] - mean) * (rb[i] - mean);
+    saa += (ra[i] - mean) * (ra[i] - mean);
+    sbb += (rb[i] - mean) * (rb[i] - mean);
+  }
+  if (saa == 0 || sbb == 0) return std::numeric_limits<double>::quiet_NaN();
+  return sab / std::sqrt(saa * sbb);
 }
 
 double percentile(std::vector<double> values, double p) {

@@ -21,6 +21,26 @@
 //   lognormal   exp of the normal above in ln x, with median -> ln median, log_sd
 //   discrete    the first value whose cumulative probability reaches u
 // An open end of the support is never returned: a draw on it moves one ulp inside.
+// Rank correlations (Iman & Conover 1982, "A distribution-free approach to inducing rank
+// correlation among input variables", Communications in Statistics - Simulation and
+// Computation 11(3):311-334): the inputs that take part in a non-zero target correlation
+// (Variation::rank_correlations) are drawn as above, then re-ordered together:
+//   1. scores: column c holds the van der Waerden scores Phi^-1(i / (N + 1)), i = 1..N, in a
+//      permutation drawn by Fisher-Yates from a splitmix64 stream of (seed, j) distinct from
+//      the Latin hypercube's (j the input's index among the drawn ones);
+//   2. T = the scores' sample (Pearson) correlation, T = Q Q' and the target C = P P'
+//      (Cholesky, lower); the transformed scores R* = R (P Q^-1)';
+//   3. input j's draws, sorted, are handed out in the rank order of column j of R* (ties in
+//      R* by sample index).
+// Each input keeps exactly the values it drew (only their order changes), so Monte Carlo and
+// Latin hypercube marginals are untouched; the achieved Spearman correlation is close to the
+// target (within sampling error, about 1/sqrt(N)). Inputs without a non-zero correlation keep
+// their order, so a run without correlations draws exactly as before.
+// The reordering needs all N samples at once: draw_inputs() computes the whole N-sample matrix
+// from (seed, N) alone, so every thread and every shard (each computes the full matrix and
+// uses its slice) sees the same draws.
+// Spearman: the Pearson correlation of the ranks, ties given their average rank (Spearman
+// 1904; the definition scipy.stats.spearmanr uses).
 // Percentiles: linear interpolation between order statistics, h = (n - 1) p (Hyndman & Fan
 // 1996, The American Statistician 50:361-365, definition 7).
 #pragma once
@@ -46,6 +66,28 @@ double normal_quantile(double p);
 
 // The value of `d` at cumulative probability u in (0, 1); ContractViolation otherwise.
 double distribution_quantile(const Distribution& d, double u);
+
+// The target rank-correlation matrix of `drawn` (every entry has a distribution), in their
+// order: 1 on the diagonal, Variation::rank_correlations elsewhere, 0 for pairs not given.
+std::vector<std::vector<double>> rank_correlation_target(const std::vector<Variation>& drawn);
+
+// Re-orders the columns (columns[j] = input j's N draws) that have a non-zero entry in
+// `target` (K x K, symmetric, positive definite) by Iman-Conover, as above. The others are
+// returned unchanged. Throws InvalidValue("samples", ...) when the scores' correlation has no
+// Cholesky factor (too few samples for the number of correlated inputs).
+std::vector<std::vector<double>> iman_conover(std::vector<std::vector<double>> columns,
+                                              const std::vector<std::vector<double>>& target,
+                                              std::uint64_t seed);
+
+// Every input's draws for samples 0..n-1 (columns[j][k]: input j, sample k), Monte Carlo or
+// Latin hypercube, re-ordered by Iman-Conover when `drawn` has rank correlations.
+std::vector<std::vector<double>> draw_inputs(const std::vector<Variation>& drawn,
+                                             std::uint64_t seed, std::size_t n,
+                                             bool latin_hypercube);
+
+// Spearman rank correlation of two equally long series (>= 2 values); NaN when one is
+// constant.
+double spearman_rank_correlation(const std::vector<double>& a, const std::vector<double>& b);
 
 // Percentile p in [0, 1] of the values (definition 7 above); NaN for none.
 double percentile(std::vector<double> values, double p);

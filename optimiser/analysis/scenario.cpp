@@ -5,6 +5,7 @@
 
 #include "catalog-schema/parameter_paths.h"
 #include "model/contract.h"
+#include "model/repricing.h"
 
 namespace stowage {
 
@@ -45,8 +46,17 @@ PointOutcome evaluate_point(const StudyCase& changed, const PointOptions& option
     return *i;
   };
   if (options.hold_designs) {
-    for (const HeldDesign& h : options.held) {
+    if (options.priced_from && options.priced_from->size() != options.held.size()) {
+      throw ContractViolation("priced_from", "one simulated design per held design");
+    }
+    for (std::size_t i = 0; i < options.held.size(); ++i) {
+      const HeldDesign& h = options.held[i];
       const std::size_t p = index_of(h.profile_id);
+      if (options.priced_from) {
+        outcome.by_profile[p] = summarise(reprice((*options.priced_from)[i], changed.profiles[p],
+                                                  changed.site, changed.economics));
+        continue;
+      }
       LifecycleEvaluator evaluator(changed.profiles[p], changed.site, changed.economics);
       outcome.by_profile[p] = summarise(evaluator.evaluate(h.dod_setpoint, h.strings_parallel));
     }
@@ -58,6 +68,25 @@ PointOutcome evaluate_point(const StudyCase& changed, const PointOptions& option
   }
   rank_point(outcome);
   return outcome;
+}
+
+bool prices_only(const StudyCase& study, const std::vector<std::string>& paths) {
+  for (const std::string& path : paths) {
+    if (!find_parameter(study, path).prices_only) return false;
+  }
+  return true;
+}
+
+std::vector<DesignResult> simulate_held(const StudyCase& study,
+                                        const std::vector<HeldDesign>& held) {
+  std::vector<DesignResult> out;
+  for (const HeldDesign& h : held) {
+    const std::optional<std::size_t> p = study.find_profile(h.profile_id);
+    if (!p) throw ContractViolation("profile_id", "'" + h.profile_id + "' is not a profile");
+    LifecycleEvaluator evaluator(study.profiles[*p], study.site, study.economics);
+    out.push_back(evaluator.evaluate(h.dod_setpoint, h.strings_parallel));
+  }
+  return out;
 }
 
 void rank_point(PointOutcome& outcome) {

@@ -11,6 +11,7 @@
 // Throws InvalidValue when a value is refused by its path (bad input: exit 2).
 #pragma once
 
+#include <memory>
 #include <optional>
 #include <string>
 #include <vector>
@@ -51,10 +52,24 @@ struct HeldDesign {
 // The designs of an optimise() ranking (one per profile), to hold fixed.
 std::vector<HeldDesign> held_designs(const OptimiseResult& result);
 
+// Re-pricing (model/repricing.h): when every path a run changes only prices what a design does
+// (ParameterInfo::prices_only: profile costs, the discount rate, back-up, flat charging and
+// unserved-energy prices), a held design's dispatch, wear and replacement years are the base
+// case's, so it is simulated once and each point re-prices that result, which equals the
+// simulation of the point (to rounding). Any other path (project years, efficiencies, weather,
+// load, chemistry) needs the simulation.
+bool prices_only(const StudyCase& study, const std::vector<std::string>& paths);
+// The held designs evaluated exactly on `study`, in the order of `held`.
+std::vector<DesignResult> simulate_held(const StudyCase& study,
+                                        const std::vector<HeldDesign>& held);
+
 struct PointOptions {
   bool hold_designs = false;
   std::vector<HeldDesign> held;  // used when hold_designs
-  OptimiseOptions optimise;      // used when re-optimising; progress must be empty
+  // With hold_designs: held design i is re-priced from element i (simulate_held on the base
+  // case) instead of simulated. Set only when the points change prices_only paths.
+  std::shared_ptr<const std::vector<DesignResult>> priced_from;
+  OptimiseOptions optimise;  // used when re-optimising; progress must be empty
 };
 
 struct PointOutcome {

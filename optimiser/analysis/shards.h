@@ -2,7 +2,9 @@
 // Shards of an uncertainty run: `--shard i/N` evaluates one slice of the samples and writes a
 // partial result; `stowage merge` joins the parts into exactly the unsharded result (every
 // sample depends only on (seed, k), uncertainty.h, and summarise_uncertainty() sees the samples
-// in sample order whatever the split).
+// in sample order whatever the split). With rank correlations the Iman-Conover reordering
+// needs all samples: every shard draws the whole N-sample matrix from (seed, N) and evaluates
+// only its slice, so its samples are the unsharded run's (sampling.h, draw_inputs).
 //
 // Slice i of N (1 <= i <= N) of S samples: [floor((i - 1) S / N), floor(i S / N)), so the
 // slices tile [0, S) exactly and differ in size by at most one.

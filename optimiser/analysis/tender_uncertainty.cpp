@@ -16,11 +16,11 @@ double binomial_se(double p, std::size_t n) {
 }
 
 TenderSample sample_of(const TenderCase& tender, const std::vector<Variation>& drawn,
-                       std::uint64_t seed, std::size_t k) {
+                       const std::vector<std::vector<double>>& draws, std::size_t k) {
   TenderSample s;
   TenderCase changed = tender;
   for (std::size_t j = 0; j < drawn.size(); ++j) {
-    const double x = distribution_quantile(*drawn[j].distribution, sample_uniform(seed, k, j));
+    const double x = draws[j][k];
     s.values.push_back(x);
     apply_parameter(changed, drawn[j].path, x);
   }
@@ -80,9 +80,11 @@ TenderUncertainty run_tender_uncertainty(const TenderCase& tender, const TenderR
   out.samples = options.samples;
   out.seed = options.seed;
   out.records.resize(options.samples);
+  const std::vector<std::vector<double>> draws =
+      draw_inputs(out.drawn, options.seed, options.samples, false);
   parallel_for(
       options.samples, options.threads,
-      [&](std::size_t k) { out.records[k] = sample_of(tender, out.drawn, options.seed, k); },
+      [&](std::size_t k) { out.records[k] = sample_of(tender, out.drawn, draws, k); },
       options.progress);
 
   const std::size_t n = options.samples;

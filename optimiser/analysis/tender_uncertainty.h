@@ -2,12 +2,14 @@
 // How sure a tender's ranking is: the tender's variations that carry a distribution
 // (TenderCase::variations, docs/tender.md "Variations") drawn as an uncertainty run draws
 // them (uncertainty.h): sample k draws input j at distribution_quantile(d_j, u_kj),
-// u_kj = sample_uniform(seed, k, j) (sampling.h), inputs independent; the draws are applied
+// u_kj = sample_uniform(seed, k, j) (sampling.h), inputs independent unless the variations
+// give rank correlations (then re-ordered over all N samples by Iman-Conover, draw_inputs in
+// sampling.h); the draws are applied
 // to a copy of the tender by its parameter paths (parameter_paths.h), in the order of the
 // variations, and the whole tender is evaluated on the sample by evaluate_tender() (tender.h):
 // every bid simulated, its warranty applied, checked against the requirements and scored,
-// exactly as the deterministic run does. Every number of sample k depends only on (seed, k),
-// so any thread count gives the same result.
+// exactly as the deterministic run does. Every number of sample k depends only on (seed, k)
+// (with rank correlations: on (seed, N, k)), so any thread count gives the same result.
 //
 // Per bid (tender order), over all N samples:
 //   npc, lcos (ours): mean, standard error, P10 / P50 / P90 (sampling.h: Hyndman & Fan

@@ -3,6 +3,7 @@
 
 #include <cmath>
 #include <limits>
+#include <memory>
 
 #include "model/contract.h"
 #include "model/invalid_value.h"
@@ -59,21 +60,22 @@ UncertaintySampler::UncertaintySampler(const StudyCase& study,
   for (const ChemistryProfile& p : study.profiles) run_.profile_ids.push_back(p.id);
   const PreparedRun prepared = prepare_run(study, !options.reoptimise, options.optimise);
   point_ = prepared.point;
-  if (prepared.base.feasible()) run_.base_winner = prepared.base.winner().profile_id;
-  if (options.latin_hypercube) {
-    for (std::size_t j = 0; j < run_.drawn.size(); ++j) {
-      strata_.push_back(latin_strata(options.seed, j, options.samples));
-    }
+  std::vector<std::string> paths;
+  for (const Variation& v : run_.drawn) paths.push_back(v.path);
+  if (!options.reoptimise && options.reprice_when_prices_only && prices_only(study, paths)) {
+    point_.priced_from =
+        std::make_shared<const std::vector<DesignResult>>(simulate_held(study, point_.held));
+    run_.repriced = true;
   }
+  if (prepared.base.feasible()) run_.base_winner = prepared.base.winner().profile_id;
+  draws_ = draw_inputs(run_.drawn, options.seed, options.samples, options.latin_hypercube);
 }
 
 SampleRecord UncertaintySampler::sample(std::size_t k) const {
   SampleRecord r;
   std::vector<Setting> settings;
   for (std::size_t j = 0; j < run_.drawn.size(); ++j) {
-    double u = sample_uniform(options_.seed, k, j);
-    if (options_.latin_hypercube) u = (static_cast<double>(strata_[j][k]) + u) / run_.samples;
-    const double x = distribution_quantile(*run_.drawn[j].distribution, u);
+    const double x = draws_[j][k];
     r.values.push_back(x);
     settings.push_back({run_.drawn[j].path, x});
   }

@@ -2,11 +2,14 @@
 // Uncertainty (Monte Carlo) over the variations that carry a distribution: sample k draws each
 // such input j at distribution_quantile(d_j, u_kj) with u_kj = sample_uniform(seed, k, j), or,
 // with latin_hypercube, u_kj = (stratum_j(k) + sample_uniform(seed, k, j)) / N (sampling.h);
-// the other variations stay at their study values. Inputs are drawn independently (no rank
-// correlation). Each sample applies the draws to a copy of the base case in the order of the
-// variations and evaluates the base case's best design of each profile exactly (held designs),
-// or, with reoptimise, re-optimises the sample (scenario.h).
-// Per profile (study order, those with a design):
+// the other variations stay at their study values. Inputs are drawn independently unless the
+// variations give rank correlations, which the Iman-Conover reordering of the whole N-sample
+// draw matrix meets (draw_inputs, sampling.h). Each sample applies the draws to a copy of the base
+// case in the order of the variations and evaluates the base case's best design of each profile
+// exactly (held designs), or, with reoptimise, re-optimises the sample (scenario.h). With held
+// designs and only prices_only paths drawn, each sample re-prices the base case's simulated designs
+// instead (scenario.h, model/repricing.h): the same numbers to rounding, far faster. Per profile
+// (study order, those with a design):
 //   npc, lcos: mean, standard error, P10 / P50 / P90 over the samples (sampling.h);
 //   win_probability: share of samples in which this profile's design is the cheapest of
 //     those meeting the unserved-energy limit (ties: profile order), with standard error
@@ -39,6 +42,10 @@ struct UncertaintyOptions {
   std::uint64_t seed = 1;
   bool latin_hypercube = false;
   bool reoptimise = false;
+  // Held designs, every drawn path prices_only (scenario.h): re-price the base case's
+  // simulated designs instead of simulating each sample. false forces the simulation (the
+  // bench times both).
+  bool reprice_when_prices_only = true;
   int threads = 0;
   OptimiseOptions optimise;
   DoneCallback progress;  // after each sample (parallel.h); may be empty
@@ -82,6 +89,7 @@ struct UncertaintyRun {
   bool latin_hypercube = false, reoptimise = false;
   std::string base_winner;               // empty when the base case has no feasible design
   std::vector<std::string> profile_ids;  // the study's, in study order
+  bool repriced = false;  // the samples re-price the held designs (scenario.h), not simulate
 };
 
 // One sample: the drawn values (order of `drawn`) and each profile's design (study order).
@@ -97,7 +105,8 @@ struct SampleRecord {
 
 class UncertaintySampler {
  public:
-  // Optimises the base case (held designs) and draws the Latin hypercube strata. Throws as
+  // Optimises the base case (held designs) and draws every input of all samples (a shard
+  // draws the whole run, so its slice equals the unsharded run's). Throws as
   // run_uncertainty does.
   UncertaintySampler(const StudyCase& study, const std::vector<Variation>& variations,
                      const UncertaintyOptions& options);
@@ -111,7 +120,7 @@ class UncertaintySampler {
   UncertaintyOptions options_;
   UncertaintyRun run_;
   PointOptions point_;
-  std::vector<std::vector<std::size_t>> strata_;
+  std::vector<std::vector<double>> draws_;  // draws_[j][k]: input j, sample k (all samples)
 };
 
 // The result from every sample of the run, in sample order (records.size() == run.samples).

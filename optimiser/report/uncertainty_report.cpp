@@ -62,10 +62,24 @@ void write_uncertainty_text(std::ostream& out, const StudyCase& study, const Unc
                                        r.latin_hypercube ? "Latin hypercube" : "Monte Carlo",
                                        r.seed, point_mode_text(!r.reoptimise));
   print_study_header(out, study, what);
-  out << "\nDrawn inputs (independent of each other; the other inputs at their study values)\n";
-  for (const Variation& v : r.drawn) {
+  bool correlated = false;
+  for (const Variation& v : r.drawn) correlated = correlated || !v.rank_correlations.empty();
+  out << (correlated ? "\nDrawn inputs (rank-correlated where listed, by the Iman-Conover method; "
+                       "the other inputs at their study values)\n"
+                     : "\nDrawn inputs (independent of each other; the other inputs at their "
+                       "study values)\n");
+  for (std::size_t i = 0; i < r.drawn.size(); ++i) {
+    const Variation& v = r.drawn[i];
     fmt::print(out, "  {}: {}{}\n", v.label, distribution_text(v),
                v.source.empty() ? "" : "; range: " + v.source);
+    for (const RankCorrelation& c : v.rank_correlations) {
+      for (std::size_t j = 0; j < i; ++j) {  // each pair once, under its second input
+        if (r.drawn[j].path == c.with) {
+          fmt::print(out, "    rank correlation with {}: {}\n", r.drawn[j].label,
+                     format_fixed(c.rho, 2));
+        }
+      }
+    }
   }
   const std::string& cur = study.economics.currency;
   fmt::print(out, "\n{:<24} {:>16} {:>12} {:>12} {:>12} {:>18} {:>10} {:>14} {:>6}\n", "profile",

@@ -294,6 +294,47 @@ TEST_CASE("a tender reads its variations with the tender's paths and the bids' v
   CHECK(changed.economics.real_discount_rate == 0.05);
 }
 
+TEST_CASE("a tender reads rank correlations between its variations",
+          "[catalog][variations][tender][correlation]") {
+  const testing::TempDir dir;
+  const std::string path = dir.write("tender.yaml", tender_text("  variations:\n"
+                                                                "    - path: site.backup.price_"
+                                                                "per_kwh\n"
+                                                                "      label: diesel\n"
+                                                                "      low: 0.20\n"
+                                                                "      high: 0.40\n"
+                                                                "      distribution: {kind: "
+                                                                "uniform}\n"
+                                                                "    - path: economics.real_"
+                                                                "discount_rate\n"
+                                                                "      low: 0.04\n"
+                                                                "      high: 0.10\n"
+                                                                "      distribution: {kind: "
+                                                                "uniform}\n"
+                                                                "      rank_correlations: "
+                                                                "[{with: diesel, rho: 0.4}]\n"));
+  const TenderCase tender = load_tender_file(path);
+  REQUIRE(tender.variations.size() == 2);
+  REQUIRE(tender.variations[0].rank_correlations.size() == 1);
+  CHECK(tender.variations[0].rank_correlations[0].with == "economics.real_discount_rate");
+  CHECK(tender.variations[1].rank_correlations[0].with == "site.backup.price_per_kwh");
+  CHECK(tender.variations[1].rank_correlations[0].rho == 0.4);
+  // Named by an unknown name: refused at the tender's field.
+  const std::string bad = dir.write("bad.yaml", tender_text("  variations:\n"
+                                                            "    - path: economics.real_"
+                                                            "discount_rate\n"
+                                                            "      low: 0.04\n"
+                                                            "      high: 0.10\n"
+                                                            "      distribution: {kind: "
+                                                            "uniform}\n"
+                                                            "      rank_correlations: "
+                                                            "[{with: diesel, rho: 0.4}]\n"));
+  const InputError e = expect_input_error([&] { load_tender_file(bad); }, bad,
+                                          line_of(read_text(bad), "rank_correlations"),
+                                          "tender.variations[0].rank_correlations[0].with");
+  CHECK_THAT(e.message(), Catch::Matchers::Contains("neither the path nor the label"));
+}
+
 TEST_CASE("a tender refuses a variation the tender cannot take, at its file, line and field",
           "[catalog][variations][tender]") {
   const testing::TempDir dir;
@@ -334,6 +375,98 @@ TEST_CASE("a tender refuses a variation the tender cannot take, at its file, lin
       "      high: 0.1\n    - path: economics.real_discount_rate\n      low: 0.03\n"
       "      high: 0.09\n",
       "low: 0.03", "tender.variations[1].path", "already varied by tender.variations[0]", 1);
+}
+
+}  // namespace
+}  // namespace stowage
+
+namespace stowage {
+namespace {
+
+const std::string kTwoDrawn =
+    "  variations:\n"
+    "    - path: profiles.lfp-test.costs.capital_per_kwh\n"
+    "      label: LFP price\n"
+    "      low: 300\n"
+    "      high: 500\n"
+    "      distribution: {kind: uniform}\n"
+    "    - path: economics.real_discount_rate\n"
+    "      low: 0.03\n"
+    "      high: 0.09\n"
+    "      distribution: {kind: uniform}\n";
+
+TEST_CASE("rank correlations are read by path or label and stored on both sides",
+          "[catalog][variations][correlation]") {
+  const LoadedStudy loaded = load_with(kTwoDrawn +
+                                       "      rank_correlations:\n"
+                                       "        - {with: LFP price, rho: -0.4}\n");
+  REQUIRE(loaded.variations.size() == 2);
+  REQUIRE(loaded.variations[0].rank_correlations.size() == 1);
+  CHECK(loaded.variations[0].rank_correlations[0].with == "economics.real_discount_rate");
+  CHECK(loaded.variations[0].rank_correlations[0].rho == -0.4);
+  REQUIRE(loaded.variations[1].rank_correlations.size() == 1);
+  CHECK(loaded.variations[1].rank_correlations[0].with ==
+        "profiles.lfp-test.costs.capital_per_kwh");
+  // Given on both sides with one value is accepted.
+  const LoadedStudy both = load_with(
+      "  variations:\n"
+      "    - path: profiles.lfp-test.costs.capital_per_kwh\n"
+      "      low: 300\n"
+      "      high: 500\n"
+      "      distribution: {kind: uniform}\n"
+      "      rank_correlations: [{with: economics.real_discount_rate, rho: 0.3}]\n"
+      "    - path: economics.real_discount_rate\n"
+      "      low: 0.03\n"
+      "      high: 0.09\n"
+      "      distribution: {kind: uniform}\n"
+      "      rank_correlations: [{with: profiles.lfp-test.costs.capital_per_kwh, rho: 0.3}]\n");
+  CHECK(both.variations[0].rank_correlations.size() == 1);
+  CHECK(both.variations[1].rank_correlations.size() == 1);
+  // A --vary entry replacing one side drops the pair: that input is no longer drawn.
+  const StudyCase study = loaded.study;
+  const std::vector<Variation> merged = merge_variations(
+      loaded.variations, {parse_vary_option("economics.real_discount_rate=0.02:0.1", study)});
+  CHECK(merged[0].rank_correlations.empty());
+}
+
+TEST_CASE("rank correlations that cannot be met are refused at their line",
+          "[catalog][variations][correlation]") {
+  expect_refused(
+      kTwoDrawn +
+          "      rank_correlations:\n        - {with: economics.real_discount_rate, rho: 0.2}\n",
+      "{with: economics.real", "study.variations[1].rank_correlations[0].with",
+      "names its own entry");
+  expect_refused(kTwoDrawn +
+                     "      rank_correlations:\n"
+                     "        - {with: LFP price, rho: 0.2}\n"
+                     "        - {with: profiles.lfp-test.costs.capital_per_kwh, rho: 0.2}\n",
+                 "{with: profiles.lfp", "study.variations[1].rank_correlations[1].with",
+                 "a second time");
+  expect_refused(
+      "  variations:\n"
+      "    - path: profiles.lfp-test.costs.capital_per_kwh\n"
+      "      low: 300\n"
+      "      high: 500\n"
+      "      rank_correlations: [{with: economics.real_discount_rate, rho: 0.3}]\n"
+      "    - path: economics.real_discount_rate\n"
+      "      low: 0.03\n"
+      "      high: 0.09\n"
+      "      distribution: {kind: uniform}\n",
+      "rank_correlations:", "study.variations[0].rank_correlations", "not drawn");
+  expect_refused(
+      "  variations:\n"
+      "    - path: profiles.lfp-test.costs.capital_per_kwh\n"
+      "      low: 300\n"
+      "      high: 500\n"
+      "      distribution: {kind: uniform}\n"
+      "      rank_correlations: [{with: economics.real_discount_rate, rho: 0.3}]\n"
+      "    - path: economics.real_discount_rate\n"
+      "      low: 0.03\n"
+      "      high: 0.09\n",
+      "rank_correlations:", "study.variations[0].rank_correlations[0].with", "no distribution");
+  // A pair of exactly 1 leaves the matrix singular: Cholesky fails, so it is refused.
+  expect_refused(kTwoDrawn + "      rank_correlations: [{with: LFP price, rho: 1}]\n",
+                 "- path: profiles", "study.variations", "not positive definite");
 }
 
 }  // namespace
