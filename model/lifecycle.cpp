@@ -20,6 +20,47 @@ constexpr double kMaxReplacementsPerYear = 1e6;
 constexpr int kMonthsPerYear = 12;
 }  // namespace
 
+double life_used(const ChemistryProfile& profile, double damage, double age_years) {
+  double used = std::min(1.0, damage);
+  if (profile.max_service_years) used = std::max(used, age_years / *profile.max_service_years);
+  return used;
+}
+
+void price_year(YearRecord& rec, const DesignCosts& costs, double investment, double nameplate_kwh,
+                const SiteConditions& site, const Economics& economics,
+                const ChemistryProfile& profile, double last_bank_age_years) {
+  rec.fixed_om = costs.fixed_om_per_year(nameplate_kwh);
+  rec.variable_om = costs.variable_om(rec.dispatch.discharged_terminal_kwh);
+  rec.charging = rec.dispatch.charge_cost;
+  rec.backup =
+      site.backup_price_per_kwh ? rec.dispatch.backup_kwh * *site.backup_price_per_kwh : 0.0;
+  rec.unserved_penalty = rec.dispatch.unserved_kwh * site.unserved_penalty_per_kwh;
+  // Replacements are booked in their year at that year's price (docs/method.md 6).
+  rec.replacement = rec.replacements * costs.replacement_price(investment, rec.year);
+  rec.end_of_life = rec.replacements * costs.replacement_end_of_life(nameplate_kwh);
+  rec.residual_value = 0;
+  if (rec.year == economics.project_years) {
+    const double remaining = 1.0 - life_used(profile, rec.damage_end, last_bank_age_years);
+    if (remaining > 0)
+      rec.residual_value = costs.residual_value(investment, economics.project_years, remaining);
+  }
+  rec.discount_factor = present_worth_factor(economics.real_discount_rate, rec.year);
+}
+
+void add_discounted(const YearRecord& rec, DesignResult& r) {
+  const double df = rec.discount_factor;
+  CostBreakdown& pv = r.present_value;
+  pv.replacements += rec.replacement * df;
+  pv.fixed_om += rec.fixed_om * df;
+  pv.variable_om += rec.variable_om * df;
+  pv.charging += rec.charging * df;
+  pv.backup += rec.backup * df;
+  pv.unserved_penalty += rec.unserved_penalty * df;
+  pv.end_of_life += rec.end_of_life * df;
+  pv.residual_value += rec.residual_value * df;
+  r.discounted_delivered_kwh += rec.dispatch.delivered_kwh * df;
+}
+
 double DesignResult::mean_discharged_kwh_per_year() const {
   if (years.empty()) return 0;
   double sum = 0;
@@ -50,9 +91,8 @@ LifecycleEvaluator::LifecycleEvaluator(const ChemistryProfile& profile, const Si
       acceleration_(acceleration_series(profile, site.temp_c)),
       factors_(hourly_factors(profile, site)) {}
 
-void LifecycleEvaluator::operate_year(DispatchInputs& in, bool last_year, const DesignCosts& costs,
-                                      DesignResult& r, YearRecord& rec, DispatchState& state,
-                                      Bank& bank) {
+void LifecycleEvaluator::operate_year(DispatchInputs& in, bool last_year, DesignResult& r,
+                                      YearRecord& rec, DispatchState& state, Bank& bank) {
   const ChemistryProfile& p = *profile_;
   const std::size_t month_hours = static_cast<std::size_t>(kHoursPerMonth);
   const double damage_per_extra_day = p.partial_charge ? p.partial_charge->damage_per_extra_day : 0;
@@ -95,8 +135,6 @@ void LifecycleEvaluator::operate_year(DispatchInputs& in, bool last_year, const 
     const int banks = worn_out ? static_cast<int>(std::min(whole, kMaxReplacementsPerYear)) : 1;
     rec.replacements += banks;
     rec.replaced_worn_out = rec.replaced_worn_out || worn_out;
-    rec.replacement += banks * costs.replacement_price(r.investment, rec.year);
-    rec.end_of_life += banks * costs.replacement_end_of_life(r.bank.nameplate_kwh);
     for (int i = 0; i < banks; ++i) {
       r.replacement_years.push_back(rec.year);
       r.replacement_months.push_back(month);
@@ -173,43 +211,24 @@ LifecycleEvaluator::Bounded LifecycleEvaluator::evaluate_unless_above(
     YearRecord rec;
     rec.year = year;
     rec.health_start = health_from_damage(p, bank.damage);
-    operate_year(in, year == econ.project_years, costs, r, rec, state, bank);
+    operate_year(in, year == econ.project_years, r, rec, state, bank);
     if (year == 1 && first_year_soc != nullptr) *first_year_soc = soc_trace_;
     rec.dispatch.demand_kwh = factors_.demand_kwh;
     rec.dispatch.source_to_load_kwh = factors_.source_to_load_kwh;
     rec.damage_end = bank.damage;
 
-    rec.fixed_om = costs.fixed_om_per_year(nameplate);
-    rec.variable_om = costs.variable_om(rec.dispatch.discharged_terminal_kwh);
-    rec.charging = rec.dispatch.charge_cost;
-    rec.backup =
-        site.backup_price_per_kwh ? rec.dispatch.backup_kwh * *site.backup_price_per_kwh : 0.0;
-    rec.unserved_penalty = rec.dispatch.unserved_kwh * site.unserved_penalty_per_kwh;
-
+    const double age_years = bank.age_hours / kHoursPerYear;
+    price_year(rec, costs, r.investment, nameplate, site, econ, p, age_years);
     if (year == econ.project_years) {
-      const double age_years = bank.age_hours / kHoursPerYear;
-      double used = std::min(1.0, bank.damage);
-      if (p.max_service_years) used = std::max(used, age_years / *p.max_service_years);
+      const double used = life_used(p, bank.damage, age_years);
       const double remaining = 1.0 - used;
-      if (remaining > 0) {
-        rec.residual_value = costs.residual_value(r.investment, econ.project_years, remaining);
-        // The bank goes on serving: it reaches its end of life when its remaining life, at the
-        // wear rate it has shown, runs out.
-        if (used > 0) final_year = econ.project_years + std::max(1.0, remaining * age_years / used);
-      }
+      // The bank goes on serving: it reaches its end of life when its remaining life, at the
+      // wear rate it has shown, runs out.
+      if (remaining > 0 && used > 0)
+        final_year = econ.project_years + std::max(1.0, remaining * age_years / used);
+      r.last_bank_age_years = age_years;
     }
-
-    rec.discount_factor = present_worth_factor(econ.real_discount_rate, year);
-    const double df = rec.discount_factor;
-    pv.replacements += rec.replacement * df;
-    pv.fixed_om += rec.fixed_om * df;
-    pv.variable_om += rec.variable_om * df;
-    pv.charging += rec.charging * df;
-    pv.backup += rec.backup * df;
-    pv.unserved_penalty += rec.unserved_penalty * df;
-    pv.end_of_life += rec.end_of_life * df;
-    pv.residual_value += rec.residual_value * df;
-    r.discounted_delivered_kwh += rec.dispatch.delivered_kwh * df;
+    add_discounted(rec, r);
     if (demand > 0)
       r.unserved_fraction_max =
           std::max(r.unserved_fraction_max, rec.dispatch.unserved_kwh / demand);

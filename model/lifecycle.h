@@ -94,6 +94,7 @@ struct DesignResult {
   std::vector<int> replacement_months;  // its month within that year, 1-12 (parallel list)
   std::vector<YearRecord> years;
   double investment = 0;                   // year 0
+  double last_bank_age_years = 0;          // service age of the bank in service at N
   double final_end_of_life = 0;            // end-of-life flow of the last bank, undiscounted
   double final_end_of_life_year = 0;       // N + 1, or later when that bank has life left
   double final_discount_factor = 1;        // P/F at final_end_of_life_year
@@ -128,6 +129,20 @@ struct DesignResult {
   // after changing present_value, as a warranty does).
   void settle_totals();
 };
+
+// The pricing of a year, the one definition the lifecycle evaluation and re-pricing
+// (repricing.h) share. life_used: the used life fraction of a bank, max(min(1, damage),
+// age / max_service_years). price_year: sets the year's money lines from its dispatch, damage
+// and replacements (fixed O&M, variable O&M on terminal discharge, the charging cost of the
+// dispatch, back-up, penalty, replacements x P(year) and their end of life, and in year N the
+// residual value of the bank in service, of age `last_bank_age_years`) and its discount
+// factor. add_discounted: adds its present values to the design's breakdown and the discounted
+// delivered energy.
+double life_used(const ChemistryProfile& profile, double damage, double age_years);
+void price_year(YearRecord& rec, const DesignCosts& costs, double investment, double nameplate_kwh,
+                const SiteConditions& site, const Economics& economics,
+                const ChemistryProfile& profile, double last_bank_age_years);
+void add_discounted(const YearRecord& rec, DesignResult& r);
 
 // Holds what is shared by every design of one profile at one site (temperature acceleration),
 // so sweeps and the optimiser evaluate many designs cheaply. Not thread-safe: one per thread.
@@ -172,9 +187,10 @@ class LifecycleEvaluator {
   // Runs one year month by month (12 x 730 h): each month dispatches at the health the bank
   // has at its start, ages the bank, and replaces it at the month's end when it is worn out or
   // too old (not at the very end of the project). Fills the dispatch, damage and replacement
-  // fields of `rec`, appends replacements to `r`, updates `state` and `bank`.
-  void operate_year(DispatchInputs& in, bool last_year, const DesignCosts& costs, DesignResult& r,
-                    YearRecord& rec, DispatchState& state, Bank& bank);
+  // counts of `rec` (price_year prices them), appends replacements to `r`, updates `state`
+  // and `bank`.
+  void operate_year(DispatchInputs& in, bool last_year, DesignResult& r, YearRecord& rec,
+                    DispatchState& state, Bank& bank);
 
   const ChemistryProfile* profile_;
   const SiteConditions* site_;

@@ -6,13 +6,14 @@
 // asks only whether there is back-up, not what it costs (model/dispatch.h), and wear depends on
 // the state of charge and the temperature alone (model/ageing.h). So when only prices change
 // (the paths catalog-schema/parameter_paths.h marks prices_only), a design's yearly records
-// stay as simulated and only its cash flows change. reprice() recomputes them exactly as the
-// lifecycle evaluation forms them (model/lifecycle.h), each line through the one formula of
-// model/costs.h:
+// stay as simulated and only its cash flows change. reprice() recomputes them with the
+// lifecycle evaluation's own year pricing (price_year and add_discounted, model/lifecycle.h),
+// each line through the one formula of model/costs.h:
 //   year 0      I0 = DesignCosts::investment(nameplate, strings)
 //   year y      fixed O&M, variable O&M of the year's discharged terminal kWh, back-up kWh x
-//               back-up price, unserved kWh x penalty, charging (below), and at a replacement
-//               year: banks x P(y) and banks x replacement end of life
+//               back-up price, unserved kWh x penalty, charging (below), and in a year with
+//               replacements (made at month ends, booked in their year): banks x P(y) and
+//               banks x replacement end of life
 //   year N      residual value -P(N) x the remaining life fraction of the bank in service
 //               (from its damage and age, as simulated)
 //   N + 1 or later  the last bank's end of life, at the year simulated (it depends on wear only)
