@@ -91,10 +91,13 @@ void register_tender(CLI::App& app, int& exit_code) {
         for (const BidResult& b : result.bids) designs.push_back(b.design);
         files->add("bids.csv",
                    [&](std::ostream& out) { report::write_tender_csv(out, tender, result); });
-        files->add("designs.csv",
-                   [&](std::ostream& out) { report::write_designs_csv(out, designs); });
+        // Each bid is evaluated as offered: no search ran, so `method` stays empty.
+        const report::CsvRunColumns run{tender.title, ""};
+        files->add("designs.csv", [&](std::ostream& out) {
+          report::write_designs_csv(out, designs, nullptr, run);
+        });
         files->add("cash-flows.csv",
-                   [&](std::ostream& out) { report::write_cash_flows_csv(out, designs); });
+                   [&](std::ostream& out) { report::write_cash_flows_csv(out, designs, run); });
         if (uncertainty) {
           files->add("bid-uncertainty.csv", [&](std::ostream& out) {
             report::write_tender_uncertainty_csv(out, *uncertainty);

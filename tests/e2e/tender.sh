@@ -28,6 +28,14 @@ for b in bids.values():
 PY
 expect_exit 0 -- "$STOWAGE" tender --out "$WORK/set" "$tender" || fail "--out run"
 for f in bids.csv designs.csv cash-flows.csv; do [ -s "$WORK/set/$f" ] || fail "missing $f"; done
+# Every designs.csv and cash-flows.csv row names the tender (its title) and no search method.
+python3 - "$WORK/set" "$tender" <<'PY' || fail "tender CSV study and method columns"
+import csv, re, sys
+title = re.search(r"^\s*title:\s*(.+?)\s*$", open(sys.argv[2]).read(), re.M).group(1).strip("'\"")
+for name in ("designs.csv", "cash-flows.csv"):
+    rows = list(csv.DictReader(open(sys.argv[1] + "/" + name)))
+    assert rows and all(r["study"] == title and r["method"] == "" for r in rows), (name, rows[0])
+PY
 # Without variations the tender's margins make the call and the JSON has no sampled fields.
 expect_exit 0 -- "$STOWAGE" tender --format json "$tender" || fail "json run"
 python3 -c 'import json,sys; d=json.load(open(sys.argv[1])); assert "uncertainty" not in d and "near_tie_rule" not in d' \
