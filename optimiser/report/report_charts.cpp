@@ -62,19 +62,7 @@ Daily daily(const std::vector<double>& hourly) {
 
 // Axis limits padded to round ticks around [lo, hi].
 Axis value_axis(std::string label, double lo, double hi) {
-  if (!(hi > lo)) {
-    const double pad = std::max(1.0, std::fabs(hi) * 0.1);
-    lo -= pad;
-    hi += pad;
-  }
-  const std::vector<double> ticks = svg::nice_ticks(lo, hi);
-  const double step = ticks.size() > 1 ? ticks[1] - ticks[0] : (hi - lo);
-  Axis a;
-  a.label = std::move(label);
-  a.lo = std::floor(lo / step + 1e-9) * step;
-  a.hi = std::ceil(hi / step - 1e-9) * step;
-  if (!(a.hi > a.lo)) a.hi = a.lo + step;
-  return a;
+  return svg::padded_axis(std::move(label), lo, hi, 1.0);
 }
 
 }  // namespace

@@ -146,6 +146,22 @@ std::string escape(const std::string& text) {
   return out;
 }
 
+Axis padded_axis(std::string label, double lo, double hi, double min_pad) {
+  if (!(hi > lo)) {
+    const double pad = std::max(min_pad, std::fabs(hi) * 0.1);
+    lo -= pad;
+    hi += pad;
+  }
+  const std::vector<double> ticks = nice_ticks(lo, hi);
+  const double step = ticks.size() > 1 ? ticks[1] - ticks[0] : (hi - lo);
+  Axis a;
+  a.label = std::move(label);
+  a.lo = std::floor(lo / step + 1e-9) * step;
+  a.hi = std::ceil(hi / step - 1e-9) * step;
+  if (!(a.hi > a.lo)) a.hi = a.lo + step;
+  return a;
+}
+
 std::vector<double> nice_ticks(double lo, double hi, int target) {
   if (!(hi > lo) || target < 1) throw ContractViolation("nice_ticks", "needs hi > lo");
   const double raw = (hi - lo) / target;

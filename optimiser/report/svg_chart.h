@@ -56,6 +56,10 @@ struct Axis {
 // About `target` round-numbered ticks (steps of 1, 2 or 5 x 10^k) covering [lo, hi].
 std::vector<double> nice_ticks(double lo, double hi, int target = 5);
 
+// A linear axis from [lo, hi] widened to whole steps of its nice_ticks(); an empty range
+// (hi <= lo) is first padded by max(min_pad, 10 % of |hi|) on each side.
+Axis padded_axis(std::string label, double lo, double hi, double min_pad);
+
 class Canvas;
 
 class Plot {

@@ -13,6 +13,7 @@
 #include "optimiser/report/json_writer.h"
 #include "optimiser/report/number_format.h"
 #include "optimiser/report/report_document.h"
+#include "optimiser/report/uncertainty_report.h"
 #include "stowage_version.h"
 
 namespace stowage::report {
@@ -123,16 +124,7 @@ void write_uncertainty_json(JsonWriter& json, const TenderCase& tender, const Te
   json.key("uncertainty").begin_object();
   json.field("samples", static_cast<long>(u.samples));
   json.field("seed", std::to_string(u.seed));
-  json.key("drawn").begin_array();
-  for (const Variation& v : u.drawn) {
-    json.begin_object();
-    json.field("path", v.path);
-    json.field("label", v.label);
-    json.field("unit", v.unit);
-    json.field("distribution", to_string(v.distribution->kind));
-    json.end_object();
-  }
-  json.end_array();
+  write_drawn_json(json, u.drawn);
   json.field("near_tie_by_margins", result.near_tie);
   json.key("leader");
   if (u.tie.called) {

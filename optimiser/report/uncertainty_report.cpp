@@ -29,6 +29,21 @@ std::string percent(double p) { return format_fixed(100 * p, 1) + " %"; }
 
 }  // namespace
 
+void write_drawn_json(JsonWriter& json, const std::vector<Variation>& drawn) {
+  json.key("drawn").begin_array();
+  for (const Variation& v : drawn) {
+    json.begin_object();
+    json.field("path", v.path);
+    json.field("label", v.label);
+    json.field("unit", v.unit);
+    json.field("distribution", to_string(v.distribution->kind));
+    json.field("lower", v.distribution->lower);
+    json.field("upper", v.distribution->upper);
+    json.end_object();
+  }
+  json.end_array();
+}
+
 std::string distribution_text(const Variation& v) {
   const Distribution& d = *v.distribution;
   const auto val = [&](double x) { return variation_value_text(v, x); };
@@ -135,18 +150,7 @@ void write_uncertainty_json(std::ostream& out, const StudyCase& study, const Unc
   } else {
     json.value(r.base_winner);
   }
-  json.key("drawn").begin_array();
-  for (const Variation& v : r.drawn) {
-    json.begin_object();
-    json.field("path", v.path);
-    json.field("label", v.label);
-    json.field("unit", v.unit);
-    json.field("distribution", to_string(v.distribution->kind));
-    json.field("lower", v.distribution->lower);
-    json.field("upper", v.distribution->upper);
-    json.end_object();
-  }
-  json.end_array();
+  write_drawn_json(json, r.drawn);
   json.key("profiles").begin_array();
   for (const ProfileUncertainty& p : r.profiles) {
     json.begin_object();

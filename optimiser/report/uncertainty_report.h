@@ -18,6 +18,7 @@
 
 #include "catalog-schema/study_case.h"
 #include "optimiser/analysis/uncertainty.h"
+#include "optimiser/report/json_writer.h"
 
 namespace stowage::report {
 
@@ -28,5 +29,8 @@ void write_uncertainty_samples_csv(std::ostream& out, const UncertaintyResult& r
 // "uniform on 240 EUR/kWh .. 380 EUR/kWh": a drawn variation's distribution as the text and
 // the uncertainty report state it. Requires v.distribution.
 std::string distribution_text(const Variation& v);
+// The `drawn` array of an uncertainty or sampled tender JSON: per drawn variation its path,
+// label, unit, distribution kind and bounds.
+void write_drawn_json(JsonWriter& json, const std::vector<Variation>& drawn);
 
 }  // namespace stowage::report
