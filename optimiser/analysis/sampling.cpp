@@ -228,6 +228,21 @@ std::vector<std::vector<double>> iman_conover(std::vector<std::vector<double>> c
   return columns;
 }
 
+std::vector<Variation> drawn_variations(const std::vector<Variation>& variations,
+                                        const std::string& block) {
+  std::vector<Variation> drawn;
+  for (const Variation& v : variations) {
+    if (v.distribution) drawn.push_back(v);
+  }
+  if (drawn.empty()) {
+    throw InvalidValue(block,
+                       "no variation has a distribution, so there is nothing to draw; add a "
+                       "distribution to an entry of " +
+                           block);
+  }
+  return drawn;
+}
+
 std::vector<std::vector<double>> draw_inputs(const std::vector<Variation>& drawn,
                                              std::uint64_t seed, std::size_t n,
                                              bool latin_hypercube) {

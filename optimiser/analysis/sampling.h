@@ -47,6 +47,7 @@
 
 #include <cstddef>
 #include <cstdint>
+#include <string>
 #include <vector>
 
 #include "catalog-schema/variations_loader.h"
@@ -78,6 +79,11 @@ std::vector<std::vector<double>> rank_correlation_target(const std::vector<Varia
 std::vector<std::vector<double>> iman_conover(std::vector<std::vector<double>> columns,
                                               const std::vector<std::vector<double>>& target,
                                               std::uint64_t seed);
+
+// The variations of `block` ("study.variations", "tender.variations") that carry a
+// distribution, in order; throws InvalidValue at `block` when none does (nothing to draw).
+std::vector<Variation> drawn_variations(const std::vector<Variation>& variations,
+                                        const std::string& block);
 
 // Every input's draws for samples 0..n-1 (columns[j][k]: input j, sample k), Monte Carlo or
 // Latin hypercube, re-ordered by Iman-Conover when `drawn` has rank correlations.

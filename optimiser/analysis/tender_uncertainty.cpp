@@ -69,14 +69,7 @@ TenderUncertainty run_tender_uncertainty(const TenderCase& tender, const TenderR
                                          const TenderUncertaintyOptions& options) {
   if (options.samples < 2) throw ContractViolation("samples", "must be at least 2");
   TenderUncertainty out;
-  for (const Variation& v : tender.variations) {
-    if (v.distribution) out.drawn.push_back(v);
-  }
-  if (out.drawn.empty()) {
-    throw InvalidValue("tender.variations",
-                       "no variation has a distribution, so there is nothing to draw; add a "
-                       "distribution to an entry of tender.variations");
-  }
+  out.drawn = drawn_variations(tender.variations, "tender.variations");
   out.samples = options.samples;
   out.seed = options.seed;
   out.records.resize(options.samples);

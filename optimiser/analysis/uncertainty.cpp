@@ -45,14 +45,7 @@ UncertaintySampler::UncertaintySampler(const StudyCase& study,
                                        const UncertaintyOptions& options)
     : study_(study), options_(options) {
   if (options.samples < 2) throw ContractViolation("samples", "must be at least 2");
-  for (const Variation& v : variations) {
-    if (v.distribution) run_.drawn.push_back(v);
-  }
-  if (run_.drawn.empty()) {
-    throw InvalidValue("variations",
-                       "no variation has a distribution, so there is nothing to draw; add a "
-                       "distribution to an entry of study.variations");
-  }
+  run_.drawn = drawn_variations(variations, "study.variations");
   run_.samples = options.samples;
   run_.seed = options.seed;
   run_.latin_hypercube = options.latin_hypercube;
