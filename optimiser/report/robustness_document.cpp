@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: MIT
 #include "optimiser/report/robustness_document.h"
 
+#include <algorithm>
 #include <cmath>
 #include <map>
 #include <memory>
@@ -628,6 +629,9 @@ ReportDocument build_uncertainty_report(const LoadedStudy& loaded, const Uncerta
                                         const std::string& generated_at) {
   const StudyCase& study = loaded.study;
   ReportDocument doc = new_document(loaded, "uncertainty of the ranking", generated_at);
+  const bool correlated =
+      std::any_of(result.drawn.begin(), result.drawn.end(),
+                  [](const Variation& v) { return !v.rank_correlations.empty(); });
   doc.sections.push_back(uncertainty_decision(study, result));
   doc.sections.push_back(uncertainty_section(study, result));
   finish_document(
@@ -639,13 +643,20 @@ ReportDocument build_uncertainty_report(const LoadedStudy& loaded, const Uncerta
                              "as many strata as samples, one draw in each."
                            : "Monte Carlo: every input is drawn at random from its "
                              "distribution.") +
-               " The draws depend only on the seed and the sample number, so the same seed "
-               "gives the same samples on any number of threads.",
+               (correlated
+                    ? " The stated rank correlations are imposed by re-ordering each input's "
+                      "draws (Iman and Conover 1982), which needs all samples at once: the "
+                      "draws depend on the seed and the number of samples, and are the same "
+                      "on any number of threads and shards."
+                    : " The draws depend only on the seed and the sample number, so the same "
+                      "seed gives the same samples on any number of threads."),
            "Percentiles P10, P50 and P90 are those of the samples; the standard error of a "
            "probability p over N samples is sqrt(p(1-p)/N) (binomial).",
            "Win probability: the share of samples in which the profile's design is the "
            "cheapest meeting the unserved-energy limit (ties: profile order)."}),
-      {"Inputs are drawn independently: no correlation between them is modelled.",
+      {correlated ? "Only the stated rank correlations link the inputs; every other pair is "
+                    "drawn independently."
+                  : "Inputs are drawn independently: no correlation between them is modelled.",
        "The distributions are those the study states; their sources are in the inputs table.",
        std::to_string(result.samples) + " samples: a share of a few per cent or less rests on "
                                         "few samples; the standard errors say how few."});

@@ -79,4 +79,10 @@ cmp -s "$WORK/merged/samples.csv" "$WORK/c/samples.csv" || fail "merged samples.
 # Bad input: a correlation with an input that is not drawn names its file, line and field.
 sed -e 's/with: lfp price, rho: 0.2/with: site.hourly.temp_c_offset, rho: 0.2/' "$correlated" >"$WORK/bad.yaml"
 expect_exit 2 -- "$STOWAGE" uncertainty --samples 50 "$WORK/bad.yaml" && grep -q "bad.yaml:[0-9]*:.*rank_correlations\[1\].with" "$WORK/err" || fail "unknown name: $(head -c 300 "$WORK/err")"
+# The report states how the inputs are linked: by the stated correlations, not "independently".
+expect_exit 0 -- "$STOWAGE" uncertainty --samples 50 --seed 3 --report "$WORK/rep" "$correlated" || fail "report run"
+grep -q "Only the stated rank correlations link the inputs" "$WORK/rep/report.md" || fail "report: correlations not stated"
+grep -q "Inputs are drawn independently" "$WORK/rep/report.md" && fail "report: claims independent inputs"
+expect_exit 0 -- "$STOWAGE" uncertainty --samples 50 --seed 3 --report "$WORK/rep-i" "$WORK/independent.yaml" || fail "independent report run"
+grep -q "Inputs are drawn independently" "$WORK/rep-i/report.md" || fail "report: independence not stated"
 finish
