@@ -1,17 +1,19 @@
 // SPDX-License-Identifier: MIT
 // Exact lifecycle evaluation of one bank design (profile, DoD setpoint, strings in parallel) at
-// a site over the project life: year-by-year dispatch with the capacity of that year, ageing,
+// a site over the project life: month-by-month dispatch with the capacity of that month, ageing,
 // replacements, cash flows, net present cost and LCOS.
 //
 // Conventions (docs/method.md gives the derivation and sources):
 // - Year 0: investment I0 = capital_per_kwh x nameplate + capital_per_string x strings
 //   + installation_fixed. Years 1..N: operating flows, each discounted at the end of its year.
-// - Each year runs with the health reached at its start. When accumulated damage reaches 1
-//   (or the bank reaches max_service_years) at the end of year y < N, the bank is replaced at
-//   the end of year y at I0 x replacement_share x (1 - price_decline)^y, plus the end-of-life
-//   cost of what is removed; the new bank starts full. A bank whose damage passed 1 by more than
-//   a whole life within the year counts as floor(D) replacements, and the wear beyond them is
-//   carried into the new bank.
+// - Each year runs as 12 months of 730 h; each month with the health its bank has at the
+//   month's start (damage so far, the rainflow residue counted as half cycles). When the
+//   accumulated damage reaches 1 (or the bank reaches max_service_years) at the end of a month,
+//   except the project's last, the bank is replaced then; the replacement is booked in that
+//   year at I0 x replacement_share x (1 - price_decline)^y, plus the end-of-life cost of what
+//   is removed, and discounted at the year's end with the year's other flows; the new bank
+//   starts full. A bank whose damage passed 1 by more than a whole life within the month counts
+//   as floor(D) replacements, and the wear beyond them is carried into the new bank.
 // - Residual value of the bank in service at project end: the replacement price of year N,
 //   I0 x replacement_share x (1 - price_decline)^N, x its remaining life fraction
 //   (1 - max(D, age / max_service_years)), credited at N. Its end-of-life flow falls at N + 1
