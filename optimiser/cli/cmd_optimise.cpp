@@ -14,6 +14,7 @@
 #include <utility>
 
 #include "catalog-schema/study_loader.h"
+#include "optimiser/analysis/confidence_check.h"
 #include "optimiser/cli/cli_support.h"
 #include "optimiser/cli/command.h"
 #include "optimiser/optimise.h"
@@ -153,11 +154,14 @@ void register_optimise(CLI::App& app, int& exit_code) {
         });
         files->commit();
       }
-      if (report_files) write_study_report(*report_files, loaded, result);
+      std::optional<ConfidenceCheck> confidence;
+      if (result.feasible()) confidence = check_low_confidence(study, loaded.profiles, result);
+      const ConfidenceCheck* check = confidence ? &*confidence : nullptr;
+      if (report_files) write_study_report(*report_files, loaded, result, check);
       if (args->format == OutputFormat::Json) {
-        report::write_optimise_json(std::cout, study, result);
+        report::write_optimise_json(std::cout, study, result, check);
       } else {
-        report::write_optimise_text(std::cout, study, result);
+        report::write_optimise_text(std::cout, study, result, check);
       }
       return optimise_exit_code(result);
     });

@@ -7,6 +7,7 @@
 #include <optional>
 
 #include "catalog-schema/study_loader.h"
+#include "optimiser/analysis/confidence_check.h"
 #include "optimiser/analysis/design_trace.h"
 #include "optimiser/analysis/sweep.h"
 #include "optimiser/cli/cli_support.h"
@@ -18,7 +19,7 @@
 namespace stowage::cli {
 
 int write_study_report(report::OutputSet& files, const LoadedStudy& loaded,
-                       const OptimiseResult& result) {
+                       const OptimiseResult& result, const ConfidenceCheck* confidence) {
   std::optional<DesignTrace> trace;
   if (result.feasible()) trace = trace_first_year(loaded.study, result.best());
   // A study that names variations gets its one-at-a-time sensitivity in the report.
@@ -31,6 +32,7 @@ int write_study_report(report::OutputSet& files, const LoadedStudy& loaded,
   inputs.result = &result;
   inputs.trace = trace ? &*trace : nullptr;
   inputs.tornado = tornado ? &*tornado : nullptr;
+  inputs.confidence = confidence;
   inputs.generated_at = report::report_timestamp();
   report::add_report_files(files, inputs);
   files.commit();
@@ -62,7 +64,11 @@ void register_report(CLI::App& app, int& exit_code) {
       report::OutputSet files(args->out_dir);  // refuses a bad DIR now
       const LoadedStudy loaded = load_study_details_file(args->study_path);
       const OptimiseResult result = optimise(loaded.study);
-      const int code = write_study_report(files, loaded, result);
+      std::optional<ConfidenceCheck> confidence;
+      if (result.feasible())
+        confidence = check_low_confidence(loaded.study, loaded.profiles, result);
+      const int code =
+          write_study_report(files, loaded, result, confidence ? &*confidence : nullptr);
       std::cout << "stowage: report written to " << args->out_dir << "/report.html and "
                 << args->out_dir << "/report.md\n";
       return code;

@@ -10,6 +10,7 @@
 #include <string>
 
 #include "catalog-schema/study_loader.h"
+#include "optimiser/analysis/confidence_check.h"
 #include "optimiser/optimise.h"
 #include "optimiser/report/output_set.h"
 
@@ -64,6 +65,6 @@ void register_merge(CLI::App& app, int& exit_code);
 // Adds the study report of `result` to `files` and commits them (cmd_report.cpp); returns
 // optimise_exit_code(result) (with no feasible design the report says why).
 int write_study_report(report::OutputSet& files, const LoadedStudy& loaded,
-                       const OptimiseResult& result);
+                       const OptimiseResult& result, const ConfidenceCheck* confidence);
 
 }  // namespace stowage::cli

@@ -289,7 +289,25 @@ void print_how_found(std::ostream& out, const StudyCase& study, const OptimiseRe
 
 }  // namespace
 
-void write_optimise_text(std::ostream& out, const StudyCase& study, const OptimiseResult& r) {
+std::string low_confidence_sentence(const ConfidenceCheck& check, const std::string& currency) {
+  if (check.inputs.empty())
+    return "every input of " + check.profile_id +
+           " that a variation could move is labelled sourced in its profile";
+  const LowConfidenceInput& top = check.inputs.front();
+  const std::string what = top.path + " (" + confidence_name(top.confidence) + ", +-" +
+                           format_general(100 * top.spread, 3) + " %)";
+  if (check.exceeds_margin())
+    return "CAUTION: the lead of " + format_amount(check.margin) + " " + currency +
+           " is smaller than the " + format_amount(top.npc_rise) + " " + currency +
+           " the winner's NPC rises by when " + what +
+           " moves within its spread; check that value before deciding";
+  return "no single low-confidence input of " + check.profile_id +
+         " moved within its spread costs it its lead (largest: " + what + ", +" +
+         format_amount(top.npc_rise) + " " + currency + ")";
+}
+
+void write_optimise_text(std::ostream& out, const StudyCase& study, const OptimiseResult& r,
+                         const ConfidenceCheck* confidence) {
   print_study_header(out, study,
                      std::string("design optimisation (method ") + to_string(r.method) + ")");
   out << "\n";
@@ -308,6 +326,9 @@ void write_optimise_text(std::ostream& out, const StudyCase& study, const Optimi
     return;
   }
   print_decision(out, study, r);
+  if (confidence)
+    fmt::print(out, "  inputs        {}\n",
+               low_confidence_sentence(*confidence, study.economics.currency));
   out << "\nThe chosen design\n";
   print_design_table(out, r.best());
   out << "\n";
@@ -318,7 +339,8 @@ void write_optimise_text(std::ostream& out, const StudyCase& study, const Optimi
   print_safety_notice(out);
 }
 
-void write_optimise_json(std::ostream& out, const StudyCase& study, const OptimiseResult& r) {
+void write_optimise_json(std::ostream& out, const StudyCase& study, const OptimiseResult& r,
+                         const ConfidenceCheck* confidence) {
   JsonWriter json;
   json.begin_object();
   write_study_json(json, study);
@@ -354,6 +376,26 @@ void write_optimise_json(std::ostream& out, const StudyCase& study, const Optimi
     json.end_object();
   }
   json.end_array();
+  json.key("low_confidence");
+  if (confidence) {
+    json.begin_object();
+    json.field("profile", confidence->profile_id);
+    json.field("margin", confidence->margin);  // null without a runner-up
+    json.field("exceeds_margin", confidence->exceeds_margin());
+    json.key("inputs").begin_array();
+    for (const LowConfidenceInput& in : confidence->inputs) {
+      json.begin_object();
+      json.field("path", in.path);
+      json.field("confidence", confidence_name(in.confidence));
+      json.field("spread", in.spread);
+      json.field("npc_rise", in.npc_rise);
+      json.end_object();
+    }
+    json.end_array();
+    json.end_object();
+  } else {
+    json.null();
+  }
   json.field("model_estimate_npc", r.model_estimate_npc);
   json.field("model_estimate_per_kwh", r.model_estimate_per_kwh);
   json.field("gap", r.gap);

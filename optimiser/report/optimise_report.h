@@ -8,12 +8,21 @@
 #include <string>
 
 #include "model/study.h"
+#include "optimiser/analysis/confidence_check.h"
 #include "optimiser/optimise.h"
 
 namespace stowage::report {
 
-void write_optimise_text(std::ostream& out, const StudyCase& study, const OptimiseResult& result);
-void write_optimise_json(std::ostream& out, const StudyCase& study, const OptimiseResult& result);
+// `confidence` (optional): the winner's low-confidence inputs (optimiser/analysis/
+// confidence_check.h); the text then says, under the decision, whether one of them could cost
+// the winner its lead, and the JSON carries it as `low_confidence` (null without it).
+void write_optimise_text(std::ostream& out, const StudyCase& study, const OptimiseResult& result,
+                         const ConfidenceCheck* confidence = nullptr);
+void write_optimise_json(std::ostream& out, const StudyCase& study, const OptimiseResult& result,
+                         const ConfidenceCheck* confidence = nullptr);
+// The sentence under the decision: whether one low-confidence input of the winner, within
+// its spread, could cost it more than its lead.
+std::string low_confidence_sentence(const ConfidenceCheck& check, const std::string& currency);
 // The words for what the optimiser returns as data: the JSON "requirement" key and the
 // sentence of an unmet requirement, the note about a profile, the name of a strings cap.
 std::string requirement_key(const UnmetRequirement& unmet);

@@ -2,6 +2,7 @@
 #include "optimiser/report/study_report.h"
 
 #include <algorithm>
+#include <cctype>
 #include <cmath>
 #include <cstdlib>
 #include <ctime>
@@ -75,7 +76,8 @@ std::string status_text(const OptimiseResult& r) {
   return "";
 }
 
-ReportSection decision_section(const StudyCase& study, const OptimiseResult& r) {
+ReportSection decision_section(const StudyCase& study, const OptimiseResult& r,
+                               const ConfidenceCheck* confidence) {
   ReportSection s;
   s.id = "decision";
   s.title = "Decision";
@@ -99,6 +101,13 @@ ReportSection decision_section(const StudyCase& study, const OptimiseResult& r) 
         format_amount(best.npc) + " " + cur + " over " +
         std::to_string(study.economics.project_years) + " years and an LCOS of " +
         format_fixed(best.lcos_per_kwh, 4) + " " + cur + " per kWh delivered.");
+    if (confidence) {
+      std::string sentence = low_confidence_sentence(*confidence, cur);
+      sentence[0] = static_cast<char>(std::toupper(static_cast<unsigned char>(sentence[0])));
+      s.paragraph(sentence +
+                  ". Spreads by the profile's confidence labels: illustrative +-25 %, "
+                  "from memory +-10 %, one input at a time, the design held (docs/method.md 10).");
+    }
     const bool has_runner = r.ranking.size() > 1;
     ReportTable t;
     t.caption = has_runner ? "Recommended design and runner-up" : "Recommended design";
@@ -508,11 +517,13 @@ ReportSection inputs_section(const LoadedStudy& loaded) {
     const TemperatureSpec& ts = p.temperature.spec();
     ReportTable pt;
     pt.caption = "Profile " + p.id + " (" + p.family + ")";
-    pt.header = {"field", "value", "unit", "source"};
-    pt.numeric = {false, true, false, false};
+    pt.header = {"field", "value", "unit", "source", "confidence"};
+    pt.numeric = {false, true, false, false, false};
     const auto add = [&](const std::string& field, const std::string& value,
                          const std::string& unit) {
-      pt.rows.push_back({plain(field), plain(value), plain(unit), plain(source_of(lp, field))});
+      const std::optional<ValueConfidence> label = confidence_of(lp, field);
+      pt.rows.push_back({plain(field), plain(value), plain(unit), plain(source_of(lp, field)),
+                         plain(label ? confidence_name(*label) : "not labelled")});
     };
     const auto g = [](double v) { return format_general(v, 6); };
     add("cell.nominal_v", g(p.cell_nominal_v), "V");
@@ -703,7 +714,7 @@ ReportDocument build_study_report(const ReportInputs& in) {
                  format_general(100 * study.economics.real_discount_rate, 4) +
                  " % real discount rate, in " + study.economics.currency + ".";
   doc.generated_line = "Generated " + in.generated_at + " by stowage " + STOWAGE_VERSION_STRING;
-  doc.sections.push_back(decision_section(study, r));
+  doc.sections.push_back(decision_section(study, r, in.confidence));
   if (r.feasible()) doc.sections.push_back(ranking_section(study, r));
   if (r.feasible() && in.tornado && in.tornado->base.feasible())
     doc.sections.push_back(sensitivity_section(study, *in.tornado, "tornado.json"));
@@ -730,8 +741,10 @@ void add_report_files(OutputSet& set, const ReportInputs& in) {
   add_document_files(set, std::make_shared<const ReportDocument>(build_study_report(in)));
   const StudyCase* study = &in.loaded->study;
   const OptimiseResult* result = in.result;
-  set.add("result.json",
-          [study, result](std::ostream& out) { write_optimise_json(out, *study, *result); });
+  const ConfidenceCheck* confidence = in.confidence;
+  set.add("result.json", [study, result, confidence](std::ostream& out) {
+    write_optimise_json(out, *study, *result, confidence);
+  });
   const CsvRunColumns run{study->title, to_string(result->method)};
   set.add("designs.csv", [result, run](std::ostream& out) {
     write_designs_csv(out, result->ranking, nullptr, run);

@@ -18,6 +18,7 @@
 #include <vector>
 
 #include "catalog-schema/study_loader.h"
+#include "optimiser/analysis/confidence_check.h"
 #include "optimiser/analysis/design_trace.h"
 #include "optimiser/analysis/sweep.h"
 #include "optimiser/optimise.h"
@@ -37,6 +38,10 @@ struct ReportInputs {
   // when the study names none: a "Sensitivity" section after the ranking (table and tornado
   // chart) and tornado.json / tornado.csv in the output set (sweep_report.h's writers).
   const TornadoResult* tornado = nullptr;
+  // The winner's low-confidence inputs (optimiser/analysis/confidence_check.h), or null: the
+  // decision section then says whether one of them could cost the winner its lead, and
+  // result.json carries it as `low_confidence`.
+  const ConfidenceCheck* confidence = nullptr;
   // Extension point for analyses run on the same study (sensitivity, break-even,
   // uncertainty, tender scoring): each section a caller builds from its own result object is
   // placed after the ranking, in the given order, and written by both renderers like every

@@ -18,6 +18,19 @@ for f in report.html report.md result.json designs.csv cash-flows.csv \
   [ -s "$WORK/r1/$f" ] || fail "report: $f missing or empty"
 done
 "$PY" "$CHECK" "$WORK/r1" || fail "report_check on the sandglass report"
+# Every profile value is echoed with its confidence label, as the profile file gives it, and the
+# decision says whether a low-confidence input of the winner could cost it its lead.
+"$PY" - "$WORK/r1" "$SRC/catalog-schema/profiles/sodium-ion.yaml" <<'PY' || fail "report: confidence labels"
+import json, re, sys
+md = open(sys.argv[1] + "/report.md").read()
+prof = open(sys.argv[2]).read()
+label = re.search(r"^    costs\.capital_per_kwh: (\S+)", prof.split("confidence:")[1], re.M).group(1)
+row = [l for l in md.splitlines() if l.startswith("| costs.capital\\_per\\_kwh | 300 |")]
+assert row and row[0].rstrip(" |").endswith(label), (row, label)
+assert "| field | value | unit | source | confidence |" in md
+lc = json.load(open(sys.argv[1] + "/result.json"))["low_confidence"]
+assert ("CAUTION: the lead of" in md) == lc["exceeds_margin"], lc["exceeds_margin"]
+PY
 
 # The checker itself must catch a wrong number and a broken tag (so it can fail).
 cp -r "$WORK/r1" "$WORK/tampered"
