@@ -39,6 +39,11 @@ void write_drawn_json(JsonWriter& json, const std::vector<Variation>& drawn) {
     json.field("distribution", to_string(v.distribution->kind));
     json.field("lower", v.distribution->lower);
     json.field("upper", v.distribution->upper);
+    json.key("rank_correlations").begin_array();
+    for (const RankCorrelation& c : v.rank_correlations) {
+      json.begin_object().field("with", c.with).field("rho", c.rho).end_object();
+    }
+    json.end_array();
     json.end_object();
   }
   json.end_array();

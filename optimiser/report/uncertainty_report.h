@@ -30,7 +30,8 @@ void write_uncertainty_samples_csv(std::ostream& out, const UncertaintyResult& r
 // the uncertainty report state it. Requires v.distribution.
 std::string distribution_text(const Variation& v);
 // The `drawn` array of an uncertainty or sampled tender JSON: per drawn variation its path,
-// label, unit, distribution kind and bounds.
+// label, unit, distribution kind, bounds and target rank correlations (`with`: the other
+// input's path, `rho`; empty when drawn independently).
 void write_drawn_json(JsonWriter& json, const std::vector<Variation>& drawn);
 
 }  // namespace stowage::report

@@ -38,6 +38,15 @@ PY
 
 expect_exit 0 -- "$STOWAGE" uncertainty --samples 1000 --seed 3 --threads 2 --format json --out "$WORK/c" "$correlated" || fail "correlated run"
 cp "$WORK/out" "$WORK/c.json"
+# The JSON states each drawn input's target rank correlations, on both sides of each pair.
+$PY - "$WORK/c.json" <<'PY' || fail "JSON: rank_correlations of the drawn inputs"
+import json, sys
+drawn = {d["path"]: {c["with"]: c["rho"] for c in d["rank_correlations"]} for d in json.load(open(sys.argv[1]))["drawn"]}
+s, r, l = "profiles.sodium-ion.costs.capital_per_kwh", "economics.real_discount_rate", "profiles.lfp.costs.capital_per_kwh"
+assert drawn[r] == {s: -0.3, l: 0.2}, drawn[r]
+assert drawn[s] == {r: -0.3, l: 0.5}, drawn[s]
+assert drawn[l] == {r: 0.2, s: 0.5}, drawn[l]
+PY
 expect_exit 0 -- "$STOWAGE" uncertainty --samples 1000 --seed 3 --threads 2 --out "$WORK/i" "$WORK/independent.yaml" || fail "independent run"
 $PY - "$WORK/c/samples.csv" "$WORK/i/samples.csv" <<'PY' || fail "achieved rank correlations or marginals"
 import csv, sys
