@@ -68,6 +68,12 @@ DoneCallback RunProgress::callback(std::size_t total) {
   return [this, total](std::size_t done) { show(done, total); };
 }
 
+std::function<void(std::size_t, std::size_t)> RunProgress::callback() {
+  if (!enabled_) return {};
+  start_ = last_ = std::chrono::steady_clock::now();
+  return [this](std::size_t done, std::size_t total) { show(done, total); };
+}
+
 void RunProgress::show(std::size_t done, std::size_t total) {
   const auto now = std::chrono::steady_clock::now();
   if (done < total && now - last_ < std::chrono::milliseconds(250)) return;

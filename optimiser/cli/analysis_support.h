@@ -7,6 +7,7 @@
 #include <CLI/CLI.hpp>
 #include <chrono>
 #include <cstddef>
+#include <functional>
 #include <optional>
 #include <string>
 #include <vector>
@@ -33,14 +34,17 @@ void add_run_options(CLI::App& command, RunArgs& args, const std::string& out_fi
 std::vector<Variation> variations_with(const LoadedStudy& loaded,
                                        const std::vector<std::string>& vary_options);
 
-// Done/total, rate and time left on stderr, redrawn at most four times a second; silent when
-// stderr is not a terminal or `quiet`. The callback is called one at a time (parallel.h).
 // Writes an uncertainty result: uncertainty.json, summary.csv and samples.csv into `files`
 // (committed) when given, and the text or JSON report on stdout. Shared by `uncertainty` and
 // `merge`, so a merged run prints exactly what the unsharded one does.
 void emit_uncertainty(std::optional<report::OutputSet>& files, OutputFormat format,
                       const StudyCase& study, const UncertaintyResult& result);
 
+// Done/total, rate and time left on stderr, redrawn at most four times a second; silent when
+// stderr is not a terminal or `quiet` (then the callbacks are empty). The callbacks are called
+// one at a time (parallel.h). callback(total) is for a run of known size; the two-argument
+// callback for one whose total is learnt on the way (break-even's bisection), each call
+// giving the current total.
 class RunProgress {
  public:
   RunProgress(bool quiet, std::string unit);
@@ -48,6 +52,7 @@ class RunProgress {
   RunProgress(const RunProgress&) = delete;
   RunProgress& operator=(const RunProgress&) = delete;
   DoneCallback callback(std::size_t total);
+  std::function<void(std::size_t done, std::size_t total)> callback();
   void finish();
 
  private:

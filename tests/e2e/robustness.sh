@@ -151,5 +151,14 @@ if command -v script >/dev/null; then
   grep -aq "/ 200 samples" "$WORK/tty.txt" || fail "no progress on a terminal"
   script -qec "$STOWAGE uncertainty --samples 200 --threads 1 --quiet --format json $fixture" /dev/null >"$WORK/tty.txt" 2>&1
   grep -aq "/ 200 samples" "$WORK/tty.txt" && fail "progress despite --quiet"
+  # Break-even: evaluations done of those planned; the last line has them equal.
+  be="breakeven --hold-designs --vary $price --between 250 400 --threads 1 --format json"
+  script -qec "$STOWAGE $be $fixture" /dev/null >"$WORK/tty.txt" 2>&1
+  grep -aqE "([0-9]+) / \1 evaluations, .* per s" "$WORK/tty.txt" || fail "no break-even progress on a terminal"
+  script -qec "$STOWAGE $be --quiet $fixture" /dev/null >"$WORK/tty.txt" 2>&1
+  grep -aqE "[0-9]+ / [0-9]+ evaluations" "$WORK/tty.txt" && fail "break-even progress despite --quiet"
 fi
+# Break-even with a stderr that is not a terminal: nothing on it.
+expect_exit 0 -- "$STOWAGE" breakeven --hold-designs --vary "$price" --between 250 400 --format json "$fixture" || fail "breakeven, stderr a file"
+[ ! -s "$WORK/err" ] || fail "break-even wrote to a stderr that is not a terminal"
 finish
