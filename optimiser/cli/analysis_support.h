@@ -14,6 +14,7 @@
 
 #include "catalog-schema/study_loader.h"
 #include "optimiser/analysis/parallel.h"
+#include "optimiser/analysis/sweep.h"
 #include "optimiser/analysis/uncertainty.h"
 #include "optimiser/cli/cli_support.h"
 #include "optimiser/report/output_set.h"
@@ -45,6 +46,22 @@ void emit_uncertainty(std::optional<report::OutputSet>& files, OutputFormat form
 // one at a time (parallel.h). callback(total) is for a run of known size; the two-argument
 // callback for one whose total is learnt on the way (break-even's bisection), each call
 // giving the current total.
+// The variations named by --grid, in the order given; InvalidValue("--grid") for more than
+// two, a path twice, or a path with no variation.
+std::vector<Variation> sweep_grid_axes(const std::vector<Variation>& all,
+                                       const std::vector<std::string>& paths);
+
+// Writes a sweep result: sweep.json and tornado.csv (grid.csv) into `files` and the report
+// into `report_files` (each committed when given), and the text or JSON on stdout; returns the
+// exit code (kExitInfeasible when the base case has no design meeting the requirements).
+// Shared by `sweep` and `merge`, so a merged sweep prints exactly what the unsharded one does.
+int emit_tornado(std::optional<report::OutputSet>& files,
+                 std::optional<report::OutputSet>& report_files, OutputFormat format,
+                 const LoadedStudy& loaded, const TornadoResult& result);
+int emit_grid(std::optional<report::OutputSet>& files,
+              std::optional<report::OutputSet>& report_files, OutputFormat format,
+              const LoadedStudy& loaded, const GridResult& result);
+
 class RunProgress {
  public:
   RunProgress(bool quiet, std::string unit);
