@@ -2,7 +2,8 @@
 // `cmake --build build --target bench`: speed figures of the model and the optimiser.
 // `stowage_bench model [FILTER]` runs the model part only (FILTER: designs whose study path and
 // profile id contain it), `stowage_bench optimise` the optimiser part, `stowage_bench
-// uncertainty [SAMPLES]` the Monte Carlo part (bench_uncertainty.h; default 10,000 samples).
+// uncertainty [SAMPLES]` the Monte Carlo part (bench_uncertainty.h; default 10,000 samples),
+// `stowage_bench sweep [POINTS]` the re-optimising sweep (bench_sweep.h; default 100 points).
 //
 // Model: for every demo study under studies/ and each of its designs, one 20-year exact
 // evaluation (dispatch, rainflow ageing with leg attribution, calendar ageing, replacements,
@@ -22,6 +23,7 @@
 
 #include "bare_loop.h"
 #include "bench_optimise.h"
+#include "bench_sweep.h"
 #include "bench_uncertainty.h"
 #include "catalog-schema/profile_loader.h"
 #include "catalog-schema/study_loader.h"
@@ -141,9 +143,11 @@ void run_model_benchmarks(const std::string& only) {
 
 int main(int argc, char** argv) {
   const std::string part = argc > 1 ? argv[1] : "all";
-  if (part != "all" && part != "model" && part != "optimise" && part != "uncertainty") {
+  if (part != "all" && part != "model" && part != "optimise" && part != "uncertainty" &&
+      part != "sweep") {
     std::fprintf(stderr,
-                 "usage: stowage_bench [all|model [FILTER]|optimise|uncertainty [SAMPLES]]\n");
+                 "usage: stowage_bench [all|model [FILTER]|optimise|uncertainty [SAMPLES]|"
+                 "sweep [POINTS]]\n");
     return 2;
   }
   // Profile warnings (a demo bid's cycle-life curve, say) are the loader's business, not the
@@ -162,6 +166,14 @@ int main(int argc, char** argv) {
       return 2;
     }
     stowage::bench::run_uncertainty_benchmarks(static_cast<std::size_t>(samples));
+  }
+  if (part == "all" || part == "sweep") {
+    const long points = part == "sweep" && argc > 2 ? std::atol(argv[2]) : 100;
+    if (points < 2 || points > 1000) {
+      std::fprintf(stderr, "stowage_bench: POINTS must be a whole number from 2 to 1000\n");
+      return 2;
+    }
+    stowage::bench::run_sweep_benchmarks(static_cast<std::size_t>(points));
   }
   if (warnings > 0) std::printf("(%d profile warnings while loading, not shown)\n", warnings);
   return 0;

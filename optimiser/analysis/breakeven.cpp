@@ -43,6 +43,17 @@ BreakevenProbe probe_of(double value, const PointOutcome& p, const std::string& 
 
 bool wins(const BreakevenProbe& p) { return p.gap <= 0; }
 
+// Bisection steps that shrink a bracket of `width` to `tolerance` or less, the way the loop in
+// find_breakeven() does: halving (whole numbers: the larger half, so an upper bound).
+std::size_t bisection_steps(double width, double tolerance, bool whole_number) {
+  std::size_t steps = 0;
+  while (width > tolerance) {
+    width = whole_number ? std::ceil(0.5 * width) : 0.5 * width;
+    ++steps;
+  }
+  return steps;
+}
+
 }  // namespace
 
 BreakevenResult find_breakeven(const StudyCase& study, const BreakevenOptions& options) {
@@ -88,8 +99,16 @@ BreakevenResult find_breakeven(const StudyCase& study, const BreakevenOptions& o
     if (xs.empty() || xs.back() != x) xs.push_back(x);
   }
   result.scan.resize(xs.size());
-  parallel_for(xs.size(), options.threads,
-               [&](std::size_t i) { result.scan[i] = probe_at(xs[i]); });
+  DoneCallback scan_done;
+  if (options.progress) {
+    const double interval = xs.size() > 1 ? xs[1] - xs[0] : 0;
+    const std::size_t planned =
+        xs.size() + bisection_steps(interval, result.tolerance, result.whole_number);
+    scan_done = [&options, planned](std::size_t done) { options.progress(done, planned); };
+  }
+  parallel_for(
+      xs.size(), options.threads, [&](std::size_t i) { result.scan[i] = probe_at(xs[i]); },
+      scan_done);
   result.profile_wins_at_from = wins(result.scan.front());
 
   for (std::size_t i = 0; i + 1 < result.scan.size(); ++i) {
@@ -108,6 +127,11 @@ BreakevenResult find_breakeven(const StudyCase& study, const BreakevenOptions& o
         lo = m;
       } else {
         hi = m;
+      }
+      if (options.progress) {
+        const std::size_t done = result.scan.size() + result.bisection.size();
+        options.progress(done, done + bisection_steps(hi.value - lo.value, result.tolerance,
+                                                      result.whole_number));
       }
     }
     result.bracket_low = lo.value;

@@ -19,8 +19,17 @@
 //      when the gaps at the final bracket's ends differ by more than 0.1 % of the winner's NPC:
 //      then the profiles swap places at a jump, not at a tie.
 // The profile defaults to the runner-up of the base case (the base winner is then the rival).
+// Progress: `progress`, when given, is called once after each exact evaluation (scan value or
+// bisection step, not the base case), one call at a time, with the evaluations done so far and
+// the total planned: during the scan, the scan's values plus the bisection steps one scan
+// interval needs (they run only if the scan brackets a crossing); during the bisection, the
+// evaluations done plus the steps the current bracket still needs (exact for a continuous path,
+// an upper bound for a whole-number one). The last call of a run that finds a crossing has
+// done == total. It is for display and must not touch the result.
 #pragma once
 
+#include <cstddef>
+#include <functional>
 #include <string>
 #include <vector>
 
@@ -37,6 +46,7 @@ struct BreakevenOptions {
   bool hold_designs = false;
   int threads = 0;
   OptimiseOptions optimise;
+  std::function<void(std::size_t done, std::size_t total)> progress;  // may be empty
 };
 
 struct BreakevenProbe {

@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: MIT
 #include "optimiser/analysis/shards.h"
 
+#include <cmath>
 #include <cstdlib>
 #include <fstream>
 #include <limits>
@@ -66,6 +67,63 @@ class LineReader {
 };
 
 std::string text_of(const std::string& word) { return word == "-" ? std::string() : word; }
+
+constexpr std::size_t kOutcomeFields = 9;  // per profile
+
+// Reads an outcome from w[at..]: the status, then kOutcomeFields per profile.
+PointOutcome read_outcome(const LineReader& r, const std::vector<std::string>& w, std::size_t at,
+                          const std::vector<std::string>& profile_ids, const std::string& field) {
+  if (w.size() != at + 1 + kOutcomeFields * profile_ids.size()) {
+    r.fail(field, "wrong number of fields");
+  }
+  PointOutcome o;
+  if (w[at] != "-") {
+    for (Optimality s :
+         {Optimality::Proven, Optimality::VerifiedByEstimate, Optimality::TimeLimited}) {
+      if (w[at] == to_string(s)) o.status = s;
+    }
+    if (!o.status) r.fail(field, "unknown optimality status " + w[at]);
+  }
+  for (std::size_t p = 0; p < profile_ids.size(); ++p) {
+    const std::size_t f = at + 1 + kOutcomeFields * p;
+    if (!r.flag(w[f], field)) {
+      o.by_profile.emplace_back();
+      continue;
+    }
+    DesignSummary d;
+    d.profile_id = profile_ids[p];
+    d.dod_setpoint = r.number(w[f + 1], field);
+    d.cells_series = static_cast<int>(r.count(w[f + 2], field));
+    d.strings_parallel = static_cast<int>(r.count(w[f + 3], field));
+    d.nameplate_kwh = r.number(w[f + 4], field);
+    d.npc = r.number(w[f + 5], field);
+    d.lcos_per_kwh = r.number(w[f + 6], field);
+    d.investment = r.number(w[f + 7], field);
+    d.meets_unserved_limit = r.flag(w[f + 8], field);
+    o.by_profile.push_back(d);
+  }
+  rank_point(o);
+  return o;
+}
+
+bool same_summary(const std::optional<DesignSummary>& a, const std::optional<DesignSummary>& b) {
+  if (a.has_value() != b.has_value()) return false;
+  if (!a) return true;
+  const auto same = [](double x, double y) { return x == y || (std::isnan(x) && std::isnan(y)); };
+  return a->profile_id == b->profile_id && same(a->dod_setpoint, b->dod_setpoint) &&
+         a->cells_series == b->cells_series && a->strings_parallel == b->strings_parallel &&
+         same(a->nameplate_kwh, b->nameplate_kwh) && same(a->npc, b->npc) &&
+         same(a->lcos_per_kwh, b->lcos_per_kwh) && same(a->investment, b->investment) &&
+         a->meets_unserved_limit == b->meets_unserved_limit;
+}
+
+bool same_outcome(const PointOutcome& a, const PointOutcome& b) {
+  if (a.status != b.status || a.by_profile.size() != b.by_profile.size()) return false;
+  for (std::size_t p = 0; p < a.by_profile.size(); ++p) {
+    if (!same_summary(a.by_profile[p], b.by_profile[p])) return false;
+  }
+  return true;
+}
 
 }  // namespace
 
@@ -186,6 +244,111 @@ std::vector<SampleRecord> join_parts(const std::vector<UncertaintyPart>& parts,
                                       " on are in no part: a shard is missing or parts overlap");
     }
     out.insert(out.end(), p->records.begin(), p->records.end());
+    k = p->slice.last;
+  }
+  return out;
+}
+
+std::string partial_result_kind(const std::string& path) {
+  std::ifstream in(path);
+  if (!in) throw InputError(path, 0, 0, "", "cannot open the partial result");
+  std::string line;
+  std::getline(in, line);
+  if (line == "stowage-partial 1 uncertainty") return "uncertainty";
+  if (line == "stowage-partial 1 sweep") return "sweep";
+  throw InputError(path, 1, 1, "stowage-partial",
+                   "not a partial result of this version (from `stowage uncertainty --shard` or "
+                   "`stowage sweep --shard`)");
+}
+
+SweepPart read_sweep_part(std::istream& in, const std::string& source_name) {
+  LineReader r(in, source_name);
+  SweepPart part;
+  std::vector<std::string> w = r.next("stowage-partial");
+  if (w.size() != 3 || w[1] != "1" || w[2] != "sweep") {
+    r.fail("stowage-partial", "not a partial sweep result of this version");
+  }
+  w = r.next("study");
+  if (w.size() < 2) r.fail("study", "expected the study's path");
+  part.study_path = r.last_line().substr(std::string("study ").size());
+  w = r.next("study_digest");
+  if (w.size() != 2) r.fail("study_digest", "expected one digest");
+  part.study_digest = w[1];
+  w = r.next("sweep");
+  if (w.size() != 6 || (w[1] != "tornado" && w[1] != "grid")) {
+    r.fail("sweep", "expected tornado or grid, hold_designs, steps, points, vary options");
+  }
+  part.grid = w[1] == "grid";
+  part.hold_designs = r.flag(w[2], "sweep");
+  part.steps = static_cast<int>(r.count(w[3], "sweep"));
+  part.points = r.count(w[4], "sweep");
+  const std::size_t vary = r.count(w[5], "sweep");
+  for (std::size_t j = 0; j < vary; ++j) {
+    w = r.next("vary");
+    if (w.size() < 2) r.fail("vary", "expected a --vary option");
+    part.vary.push_back(r.last_line().substr(std::string("vary ").size()));
+  }
+  w = r.next("axes");
+  part.axes.assign(w.begin() + 1, w.end());
+  if (part.grid != !part.axes.empty()) r.fail("axes", "a grid has axes, a tornado none");
+  w = r.next("profiles");
+  part.profile_ids.assign(w.begin() + 1, w.end());
+  w = r.next("shard");
+  if (w.size() != 5) r.fail("shard", "expected i, N, first, last");
+  part.shard = {r.count(w[1], "shard"), r.count(w[2], "shard")};
+  part.slice = {r.count(w[3], "shard"), r.count(w[4], "shard")};
+  if (part.slice.first > part.slice.last || part.slice.last > part.points) {
+    r.fail("shard", "the slice lies outside the sweep's points");
+  }
+  w = r.next("base");
+  part.base = read_outcome(r, w, 1, part.profile_ids, "base");
+  for (std::size_t k = part.slice.first; k < part.slice.last; ++k) {
+    w = r.next("point");
+    if (w.size() < 2 || r.count(w[1], "point") != k) r.fail("point", "points out of order");
+    part.outcomes.push_back(read_outcome(r, w, 2, part.profile_ids, "point"));
+  }
+  w = r.next("end");
+  return part;
+}
+
+SweepPart read_sweep_part_file(const std::string& path) {
+  std::ifstream in(path);
+  if (!in) throw InputError(path, 0, 0, "", "cannot open the partial result");
+  return read_sweep_part(in, path);
+}
+
+std::vector<PointOutcome> join_sweep_parts(const std::vector<SweepPart>& parts,
+                                           const std::vector<std::string>& names) {
+  if (parts.empty()) throw InvalidValue("PARTS", "no partial results to merge");
+  const SweepPart& a = parts.front();
+  std::vector<const SweepPart*> by_start(a.points, nullptr);
+  for (std::size_t i = 0; i < parts.size(); ++i) {
+    const SweepPart& p = parts[i];
+    const auto refuse = [&](const std::string& what) {
+      throw InputError(names[i], 0, 0, "", what + " differs from " + names[0]);
+    };
+    if (p.study_digest != a.study_digest) refuse("the study (its input files)");
+    if (p.grid != a.grid || p.hold_designs != a.hold_designs || p.steps != a.steps ||
+        p.points != a.points || p.vary != a.vary || p.axes != a.axes) {
+      refuse("the sweep (kind, --hold-designs, --steps, --vary or --grid)");
+    }
+    if (p.profile_ids != a.profile_ids) refuse("the profiles");
+    if (!same_outcome(p.base, a.base)) refuse("the base point");
+    if (p.slice.first == p.slice.last) continue;
+    if (by_start[p.slice.first]) {
+      throw InputError(names[i], 0, 0, "", "its points overlap another part's");
+    }
+    by_start[p.slice.first] = &p;
+  }
+  std::vector<PointOutcome> out;
+  std::size_t k = 0;
+  while (k < a.points) {
+    const SweepPart* p = by_start[k];
+    if (!p) {
+      throw InvalidValue("PARTS", "points from " + std::to_string(k) +
+                                      " on are in no part: a shard is missing or parts overlap");
+    }
+    out.insert(out.end(), p->outcomes.begin(), p->outcomes.end());
     k = p->slice.last;
   }
   return out;

@@ -25,6 +25,29 @@
 // Merging checks that the parts share the study digest and the run line, profiles and drawn
 // paths, and that their slices tile [0, samples) with no gap or overlap; otherwise it throws
 // InputError naming the part.
+//
+// Shards of a sweep (sweep.h): `stowage sweep ... --shard i/N` lists all the points of the
+// tornado or grid, evaluates slice i of N of them (the rule above, over the points) and writes
+// a partial result; every point depends only on its settings and the base case, so joining the
+// parts in point order gives the outcomes the unsharded run evaluates. Partial file, same line
+// rules:
+//   stowage-partial 1 sweep
+//   study <absolute path of the study file>
+//   study_digest <hex digest of the study's inputs>
+//   sweep <tornado|grid> <hold_designs 0|1> <steps> <points> <vary options>
+//   vary <one --vary option as given, the rest of the line>     (that many lines)
+//   axes <path> ...                     the --grid paths (none for a tornado)
+//   profiles <id> ...                   the study's profile ids, in study order
+//   shard <i> <N> <first> <last>
+//   base <outcome>                      the base point
+//   point <k> <outcome>                 for k = first .. last - 1
+//   end
+// where <outcome> is <status: - | proven_optimal | verified_by_estimate | time_limited> then,
+// per profile in study order: <present 0|1> <dod_setpoint> <cells_series> <strings_parallel>
+// <nameplate_kwh> <npc> <lcos_per_kwh> <investment> <meets_unserved_limit 0|1> (zeros when
+// absent); the ranking is rebuilt by rank_point() (scenario.h). Merging checks that the parts
+// share the study digest, the sweep, vary, axes and profiles lines and the base point, and that
+// their slices tile [0, points); otherwise InputError naming the part.
 #pragma once
 
 #include <cstddef>
@@ -32,6 +55,7 @@
 #include <string>
 #include <vector>
 
+#include "optimiser/analysis/scenario.h"
 #include "optimiser/analysis/uncertainty.h"
 
 namespace stowage {
@@ -62,5 +86,31 @@ UncertaintyPart read_uncertainty_part_file(const std::string& path);
 // file names, for the messages.
 std::vector<SampleRecord> join_parts(const std::vector<UncertaintyPart>& parts,
                                      const std::vector<std::string>& names);
+
+// "uncertainty" or "sweep": what the partial result file at `path` holds, from its first
+// line; InputError when it is not a partial result.
+std::string partial_result_kind(const std::string& path);
+
+struct SweepPart {
+  std::string study_path, study_digest;
+  bool grid = false;  // a tornado otherwise
+  bool hold_designs = false;
+  int steps = 5;
+  std::size_t points = 0;         // of the whole sweep
+  std::vector<std::string> vary;  // the --vary options, as given
+  std::vector<std::string> axes;  // the --grid paths
+  std::vector<std::string> profile_ids;
+  ShardSpec shard;
+  SampleSlice slice;
+  PointOutcome base;
+  std::vector<PointOutcome> outcomes;  // points slice.first .. slice.last - 1
+};
+
+SweepPart read_sweep_part(std::istream& in, const std::string& source_name);
+SweepPart read_sweep_part_file(const std::string& path);
+
+// The outcomes of all parts in point order, after the checks above.
+std::vector<PointOutcome> join_sweep_parts(const std::vector<SweepPart>& parts,
+                                           const std::vector<std::string>& names);
 
 }  // namespace stowage

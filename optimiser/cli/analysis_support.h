@@ -7,12 +7,14 @@
 #include <CLI/CLI.hpp>
 #include <chrono>
 #include <cstddef>
+#include <functional>
 #include <optional>
 #include <string>
 #include <vector>
 
 #include "catalog-schema/study_loader.h"
 #include "optimiser/analysis/parallel.h"
+#include "optimiser/analysis/sweep.h"
 #include "optimiser/analysis/uncertainty.h"
 #include "optimiser/cli/cli_support.h"
 #include "optimiser/report/output_set.h"
@@ -33,13 +35,32 @@ void add_run_options(CLI::App& command, RunArgs& args, const std::string& out_fi
 std::vector<Variation> variations_with(const LoadedStudy& loaded,
                                        const std::vector<std::string>& vary_options);
 
-// Done/total, rate and time left on stderr, redrawn at most four times a second; silent when
-// stderr is not a terminal or `quiet`. The callback is called one at a time (parallel.h).
 // Writes an uncertainty result: uncertainty.json, summary.csv and samples.csv into `files`
 // (committed) when given, and the text or JSON report on stdout. Shared by `uncertainty` and
 // `merge`, so a merged run prints exactly what the unsharded one does.
 void emit_uncertainty(std::optional<report::OutputSet>& files, OutputFormat format,
                       const StudyCase& study, const UncertaintyResult& result);
+
+// Done/total, rate and time left on stderr, redrawn at most four times a second; silent when
+// stderr is not a terminal or `quiet` (then the callbacks are empty). The callbacks are called
+// one at a time (parallel.h). callback(total) is for a run of known size; the two-argument
+// callback for one whose total is learnt on the way (break-even's bisection), each call
+// giving the current total.
+// The variations named by --grid, in the order given; InvalidValue("--grid") for more than
+// two, a path twice, or a path with no variation.
+std::vector<Variation> sweep_grid_axes(const std::vector<Variation>& all,
+                                       const std::vector<std::string>& paths);
+
+// Writes a sweep result: sweep.json and tornado.csv (grid.csv) into `files` and the report
+// into `report_files` (each committed when given), and the text or JSON on stdout; returns the
+// exit code (kExitInfeasible when the base case has no design meeting the requirements).
+// Shared by `sweep` and `merge`, so a merged sweep prints exactly what the unsharded one does.
+int emit_tornado(std::optional<report::OutputSet>& files,
+                 std::optional<report::OutputSet>& report_files, OutputFormat format,
+                 const LoadedStudy& loaded, const TornadoResult& result);
+int emit_grid(std::optional<report::OutputSet>& files,
+              std::optional<report::OutputSet>& report_files, OutputFormat format,
+              const LoadedStudy& loaded, const GridResult& result);
 
 class RunProgress {
  public:
@@ -48,6 +69,7 @@ class RunProgress {
   RunProgress(const RunProgress&) = delete;
   RunProgress& operator=(const RunProgress&) = delete;
   DoneCallback callback(std::size_t total);
+  std::function<void(std::size_t done, std::size_t total)> callback();
   void finish();
 
  private:

@@ -63,7 +63,10 @@ int run_breakeven(const BreakevenArgs& args) {
   options.scan_points = args.scan_points;
   options.hold_designs = args.hold_designs;
   options.threads = args.run.threads;
+  RunProgress progress(args.run.quiet, "evaluations");
+  options.progress = progress.callback();
   const BreakevenResult result = find_breakeven(study, options);
+  progress.finish();
   if (files) {
     files->add("breakeven.json",
                [&](std::ostream& out) { report::write_breakeven_json(out, study, result); });

@@ -6,6 +6,7 @@
 #include "optimiser/analysis/breakeven.h"
 
 #include <catch2/catch.hpp>
+#include <vector>
 
 #include "analysis_fixtures.h"
 #include "catalog-schema/parameter_paths.h"
@@ -99,4 +100,45 @@ TEST_CASE("break-even says when there is no crossing in the range", "[analysis][
   for (const BreakevenProbe& p : r.scan) CHECK(p.gap > 0);
   options.profile_id = "no-such-profile";
   CHECK_THROWS_AS(find_breakeven(study, options), InvalidValue);
+}
+
+TEST_CASE("break-even progress is called once per evaluation, ending at its total",
+          "[analysis][breakeven]") {
+  const StudyCase study = testing::three_profile_study();
+  BreakevenOptions options;
+  options.path = kPrice;
+  options.from = 200;
+  options.to = 500;
+  options.hold_designs = true;
+  options.tolerance = 0.01;
+  options.threads = 2;
+  std::vector<std::size_t> dones, totals;
+  options.progress = [&](std::size_t done, std::size_t total) {
+    dones.push_back(done);
+    totals.push_back(total);
+  };
+  const BreakevenResult r = find_breakeven(study, options);
+  REQUIRE(r.crossing);
+  REQUIRE_FALSE(r.bisection.empty());
+  REQUIRE(dones.size() == r.scan.size() + r.bisection.size());
+  for (std::size_t i = 0; i < dones.size(); ++i) {
+    CHECK(dones[i] == i + 1);
+    CHECK(totals[i] >= dones[i]);
+  }
+  CHECK(totals.back() == dones.back());
+  // A 300-wide range scanned at 10 values is cut into 33.3-wide intervals; halving one to
+  // 0.01 takes 12 steps (33.3 / 2^12 < 0.01 < 33.3 / 2^11), which the bisection then makes.
+  CHECK(r.bisection.size() == 12);
+  CHECK(totals.front() == r.scan.size() + 12);
+
+  // No crossing: only the scan is evaluated, and only it is counted.
+  options.from = 150;
+  options.to = 250;
+  options.profile_id = "vrla-gel";
+  options.scan_points = 3;
+  dones.clear();
+  totals.clear();
+  const BreakevenResult none = find_breakeven(study, options);
+  REQUIRE_FALSE(none.crossing);
+  CHECK(dones.size() == none.scan.size());
 }

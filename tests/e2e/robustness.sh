@@ -2,7 +2,8 @@
 # SPDX-License-Identifier: MIT
 # `stowage sweep`, `breakeven` and `uncertainty` on a two-profile fixture: tornado ends against
 # direct runs of the changed study, a break-even against the closed-form crossing of two
-# straight lines, determinism across thread counts, output sets and bad input.
+# straight lines, determinism across thread counts and shards, progress, output sets and bad
+# input.
 source "$(dirname "$0")/common.bash"
 fixture="$SRC/tests/e2e/fixtures/robust-study.yaml"
 price=profiles.sodium-ion.costs.capital_per_kwh
@@ -151,5 +152,43 @@ if command -v script >/dev/null; then
   grep -aq "/ 200 samples" "$WORK/tty.txt" || fail "no progress on a terminal"
   script -qec "$STOWAGE uncertainty --samples 200 --threads 1 --quiet --format json $fixture" /dev/null >"$WORK/tty.txt" 2>&1
   grep -aq "/ 200 samples" "$WORK/tty.txt" && fail "progress despite --quiet"
+  # Break-even: evaluations done of those planned; the last line has them equal.
+  be="breakeven --hold-designs --vary $price --between 250 400 --threads 1 --format json"
+  script -qec "$STOWAGE $be $fixture" /dev/null >"$WORK/tty.txt" 2>&1
+  grep -aqE "([0-9]+) / \1 evaluations, .* per s" "$WORK/tty.txt" || fail "no break-even progress on a terminal"
+  script -qec "$STOWAGE $be --quiet $fixture" /dev/null >"$WORK/tty.txt" 2>&1
+  grep -aqE "[0-9]+ / [0-9]+ evaluations" "$WORK/tty.txt" && fail "break-even progress despite --quiet"
 fi
+# Break-even with a stderr that is not a terminal: nothing on it.
+expect_exit 0 -- "$STOWAGE" breakeven --hold-designs --vary "$price" --between 250 400 --format json "$fixture" || fail "breakeven, stderr a file"
+[ ! -s "$WORK/err" ] || fail "break-even wrote to a stderr that is not a terminal"
+
+# 9. Sweep shards: a 4-shard 1-D grid (with a --vary axis) and a 4-shard tornado, run apart
+#    under GNU parallel and merged in any part order, give the unsharded JSON and CSV byte for
+#    byte (no timing fields in a sweep's output).
+gridargs=(--grid economics.real_discount_rate --vary economics.real_discount_rate=0.03:0.09 --steps 7)
+expect_exit 0 -- "$STOWAGE" sweep "${gridargs[@]}" --format json --out "$WORK/gwhole" "$fixture" && cp "$WORK/out" "$WORK/gwhole.json" || fail "unsharded grid"
+gshard() { "$STOWAGE" sweep --grid economics.real_discount_rate --vary economics.real_discount_rate=0.03:0.09 --steps 7 --threads 1 --shard "$1/4" "$fixture" >"$WORK/gpart$1.txt"; }
+tshard() { "$STOWAGE" sweep --hold-designs --threads 1 --shard "$1/4" --out "$WORK/tparts$1" "$fixture" >/dev/null; }
+export -f gshard tshard
+parallel --will-cite -j 2 gshard ::: 1 2 3 4 || fail "grid shards under GNU parallel"
+expect_exit 0 -- "$STOWAGE" merge --format json --out "$WORK/gmerged" "$WORK/gpart4.txt" "$WORK/gpart2.txt" "$WORK/gpart1.txt" "$WORK/gpart3.txt" || fail "merge grid"
+cmp -s "$WORK/out" "$WORK/gwhole.json" || fail "merged grid JSON differs from the unsharded run"
+cmp -s "$WORK/gmerged/grid.csv" "$WORK/gwhole/grid.csv" || fail "merged grid.csv differs"
+expect_exit 0 -- "$STOWAGE" merge "$WORK/gpart1.txt" "$WORK/gpart2.txt" "$WORK/gpart3.txt" "$WORK/gpart4.txt" && cp "$WORK/out" "$WORK/gmerged.txt" || fail "merge grid, text"
+expect_exit 0 -- "$STOWAGE" sweep "${gridargs[@]}" "$fixture" && cmp -s "$WORK/out" "$WORK/gmerged.txt" || fail "merged grid text differs"
+expect_exit 0 -- "$STOWAGE" sweep --hold-designs --format json "$fixture" && cp "$WORK/out" "$WORK/twhole.json" || fail "unsharded held tornado"
+parallel --will-cite -j 2 tshard ::: 1 2 3 4 || fail "tornado shards under GNU parallel"
+[ -s "$WORK/tparts3/part-3-of-4.txt" ] || fail "shard --out file"
+expect_exit 0 -- "$STOWAGE" merge --format json "$WORK"/tparts{2,4,1,3}/part-*-of-4.txt || fail "merge tornado"
+cmp -s "$WORK/out" "$WORK/twhole.json" || fail "merged tornado JSON differs from the unsharded run"
+expect_exit 0 -- "$STOWAGE" merge --report "$WORK/grep" "$WORK"/gpart{1,2,3,4}.txt && [ -s "$WORK/grep/report.html" ] && [ -s "$WORK/grep/fig-sweep.svg" ] || fail "merge --report of sweep parts"
+cmp -s "$WORK/grep/sweep.json" "$WORK/gwhole.json" || fail "merged report's sweep.json differs"
+expect_exit 2 -- "$STOWAGE" merge "$WORK/gpart1.txt" "$WORK/gpart2.txt" "$WORK/gpart4.txt" && grep -q "in no part" "$WORK/err" || fail "missing sweep shard"
+expect_exit 2 -- "$STOWAGE" merge "$WORK/gpart1.txt" "$WORK/tparts2/part-2-of-4.txt" && grep -q "differs from" "$WORK/err" || fail "parts of two sweeps"
+expect_exit 2 -- "$STOWAGE" merge "$WORK/gpart1.txt" "$WORK/part2.txt" && grep -q "partial uncertainty result" "$WORK/err" || fail "a sweep part with an uncertainty part"
+head -n 8 "$WORK/gpart2.txt" >"$WORK/gcut.txt"
+expect_exit 2 -- "$STOWAGE" merge "$WORK/gcut.txt" && grep -q "gcut.txt:9" "$WORK/err" || fail "truncated sweep part"
+expect_exit 2 -- "$STOWAGE" sweep --shard 0/4 "$fixture" && grep -q -- "--shard" "$WORK/err" || fail "bad sweep --shard"
+expect_exit 2 -- "$STOWAGE" sweep --shard 1/4 --report "$WORK/nope" "$fixture" && grep -q -- "--report" "$WORK/err" || fail "sweep --report with --shard"
 finish

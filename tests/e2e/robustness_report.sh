@@ -153,6 +153,14 @@ expect_exit 3 -- "$STOWAGE" sweep --quiet --report "$WORK/p1" "$WORK/poor.yaml" 
 }
 expect_exit 3 -- "$STOWAGE" sweep --grid "$price" --steps 3 --quiet --report "$WORK/p2" "$WORK/poor.yaml" &&
   { "$PY" "$CHECK" "$WORK/p2" --kind grid || fail "report_check on the infeasible grid report"; }
+# Sharded, the same: each shard exits 0 once its part is written, the merge exits 3 and its
+# report equals the unsharded one but for the Generated line.
+for i in 1 2; do
+  expect_exit 0 -- "$STOWAGE" sweep --grid "$price" --steps 3 --quiet --shard "$i/2" "$WORK/poor.yaml" &&
+    cp "$WORK/out" "$WORK/poor-part$i.txt" || fail "infeasible sweep shard $i"
+done
+expect_exit 3 -- "$STOWAGE" merge --report "$WORK/p2m" "$WORK/poor-part2.txt" "$WORK/poor-part1.txt" || fail "merge of infeasible sweep parts"
+diff <(grep -v Generated "$WORK/p2/report.md") <(grep -v Generated "$WORK/p2m/report.md") >/dev/null || fail "merged infeasible grid report differs"
 expect_exit 0 -- "$STOWAGE" uncertainty --samples 8 --quiet --report "$WORK/p3" "$WORK/poor.yaml" && {
   "$PY" "$CHECK" "$WORK/p3" --kind uncertainty || fail "report_check on the infeasible uncertainty report"
   grep -q "^The base case has no design meeting" "$WORK/p3/report.md" || fail "infeasible uncertainty decision"
