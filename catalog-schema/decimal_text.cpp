@@ -2,6 +2,7 @@
 #include "catalog-schema/decimal_text.h"
 
 #include <cctype>
+#include <charconv>
 #include <limits>
 #include <locale>
 #include <sstream>
@@ -44,6 +45,16 @@ bool is_decimal_text(std::string_view text) {
 }
 
 double decimal_value(const std::string& text) {
+  // std::from_chars reads the shortest text that rounds correctly, as strtod does under the
+  // classic locale, without building a stream per number (the hourly CSV holds ~35,000 of
+  // them). It takes no leading '+'; what it does not read whole (out of range) goes through the
+  // stream, which turns an overflow into a failure and an underflow into strtod's value.
+  const char* first = text.data();
+  const char* last = first + text.size();
+  if (first != last && *first == '+') ++first;
+  double fast = 0;
+  const std::from_chars_result r = std::from_chars(first, last, fast);
+  if (r.ec == std::errc() && r.ptr == last) return fast;
   std::istringstream in(text);
   in.imbue(std::locale::classic());
   double value = 0;
