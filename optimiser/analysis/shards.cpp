@@ -145,19 +145,30 @@ SampleSlice shard_slice(std::size_t samples, const ShardSpec& shard) {
   return {(shard.index - 1) * samples / shard.count, shard.index * samples / shard.count};
 }
 
-UncertaintyPart read_uncertainty_part(std::istream& in, const std::string& source_name) {
-  LineReader r(in, source_name);
-  UncertaintyPart part;
+namespace {
+
+// The first three lines of every part file: its kind and version, the study's path and digest.
+void read_part_header(LineReader& r, const std::string& kind, std::string& study_path,
+                      std::string& study_digest) {
   std::vector<std::string> w = r.next("stowage-partial");
-  if (w.size() != 3 || w[1] != "1" || w[2] != "uncertainty") {
-    r.fail("stowage-partial", "not a partial uncertainty result of this version");
+  if (w.size() != 3 || w[1] != "1" || w[2] != kind) {
+    r.fail("stowage-partial", "not a partial " + kind + " result of this version");
   }
   w = r.next("study");
   if (w.size() < 2) r.fail("study", "expected the study's path");
-  part.study_path = r.last_line().substr(std::string("study ").size());
+  study_path = r.last_line().substr(std::string("study ").size());
   w = r.next("study_digest");
   if (w.size() != 2) r.fail("study_digest", "expected one digest");
-  part.study_digest = w[1];
+  study_digest = w[1];
+}
+
+}  // namespace
+
+UncertaintyPart read_uncertainty_part(std::istream& in, const std::string& source_name) {
+  LineReader r(in, source_name);
+  UncertaintyPart part;
+  read_part_header(r, "uncertainty", part.study_path, part.study_digest);
+  std::vector<std::string> w;
   w = r.next("run");
   if (w.size() != 6) r.fail("run", "expected samples, seed, latin_hypercube, reoptimise, winner");
   part.run.samples = r.count(w[1], "run");
@@ -264,16 +275,8 @@ std::string partial_result_kind(const std::string& path) {
 SweepPart read_sweep_part(std::istream& in, const std::string& source_name) {
   LineReader r(in, source_name);
   SweepPart part;
-  std::vector<std::string> w = r.next("stowage-partial");
-  if (w.size() != 3 || w[1] != "1" || w[2] != "sweep") {
-    r.fail("stowage-partial", "not a partial sweep result of this version");
-  }
-  w = r.next("study");
-  if (w.size() < 2) r.fail("study", "expected the study's path");
-  part.study_path = r.last_line().substr(std::string("study ").size());
-  w = r.next("study_digest");
-  if (w.size() != 2) r.fail("study_digest", "expected one digest");
-  part.study_digest = w[1];
+  read_part_header(r, "sweep", part.study_path, part.study_digest);
+  std::vector<std::string> w;
   w = r.next("sweep");
   if (w.size() != 6 || (w[1] != "tornado" && w[1] != "grid")) {
     r.fail("sweep", "expected tornado or grid, hold_designs, steps, points, vary options");
