@@ -379,7 +379,7 @@ std::vector<std::string> claims_to_question(const Ctx& c) {
                     ": the retention curve promises more capacity than the chemistry "
                     "profile gives at " +
                     std::to_string(b.capacity_claims.size()) +
-                    " year-ends within the warranty, most at the end of year " +
+                    " years within the warranty (its lowest health in each), most in year " +
                     std::to_string(worst.year) + " (" + format_amount(worst.warranted_kwh) +
                     " kWh warranted, " + format_amount(worst.modelled_kwh) + " kWh modelled); " +
                     remedy + ".");

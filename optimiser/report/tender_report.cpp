@@ -26,8 +26,8 @@ std::string life_text(double years) {
 
 std::string shortfall_text(const Shortfall& s) {
   if (s.kind == Shortfall::Kind::UsableEnergy) {
-    return "usable energy " + format_amount(s.offered) + " kWh at the end of year " +
-           std::to_string(s.year) + ", " + format_amount(s.required - s.offered) +
+    return "usable energy " + format_amount(s.offered) + " kWh in year " + std::to_string(s.year) +
+           " (its lowest health, at a month's end), " + format_amount(s.required - s.offered) +
            " kWh short of the required " + format_amount(s.required) + " kWh";
   }
   return "discharge power " + format_amount(s.offered) + " kW within its C-rate, " +
@@ -50,8 +50,8 @@ void write_capacity_claims_text(std::ostream& out, const TenderCase& tender,
                           [](const CapacityClaim& x, const CapacityClaim& y) {
                             return x.shortfall_kwh < y.shortfall_kwh;
                           });
-    fmt::print(out, "  {}: {} year-ends, worst year {} ({} kWh warranted, {} kWh modelled); ",
-               b.label, b.capacity_claims.size(), worst.year, format_amount(worst.warranted_kwh),
+    fmt::print(out, "  {}: {} years, worst year {} ({} kWh warranted, {} kWh modelled); ", b.label,
+               b.capacity_claims.size(), worst.year, format_amount(worst.warranted_kwh),
                format_amount(worst.modelled_kwh));
     switch (tender.bids[i].warranty.capacity_remedy) {
       case CapacityRemedy::TopUp:
