@@ -29,10 +29,21 @@ AccelerationSeries acceleration_series(const ChemistryProfile& profile,
   return a;
 }
 
+double CycleDamageMeter::depth_damage(const CycleLifeCurve& curve, double depth) {
+  // Floor-limited discharges repeat the same depth exactly, day after day: the last value is
+  // kept, so the curve's logarithms are worked out once for them (the same number either way).
+  if (depth != last_depth_) {
+    last_depth_ = depth;
+    last_damage_ = curve.damage_per_cycle(depth);
+  }
+  return last_damage_;
+}
+
 void CycleDamageMeter::start(const ChemistryProfile& profile,
                              const AccelerationSeries& acceleration, const double* soc_trace,
                              std::size_t first) {
   profile_ = &profile;
+  last_depth_ = -1;  // a new history may be of another profile
   stream_.reset(soc_trace, acceleration.per_hour.data(), first);
   closed_ = 0;
 }
@@ -40,7 +51,7 @@ void CycleDamageMeter::start(const ChemistryProfile& profile,
 void CycleDamageMeter::extend(std::size_t end) {
   const CycleLifeCurve& curve = profile_->cycle_life;
   stream_.extend(end, [&](const RainflowCycle& c) {
-    closed_ += c.count * c.leg_weight * curve.damage_per_cycle(c.depth);
+    closed_ += c.count * c.leg_weight * depth_damage(curve, c.depth);
   });
 }
 
@@ -48,7 +59,7 @@ double CycleDamageMeter::provisional() {
   const CycleLifeCurve& curve = profile_->cycle_life;
   double d = closed_;
   stream_.emit_residue([&](const RainflowCycle& c) {
-    d += c.count * c.leg_weight * curve.damage_per_cycle(c.depth);
+    d += c.count * c.leg_weight * depth_damage(curve, c.depth);
   });
   return d;
 }
@@ -56,7 +67,7 @@ double CycleDamageMeter::provisional() {
 double CycleDamageMeter::close() {
   const CycleLifeCurve& curve = profile_->cycle_life;
   stream_.close([&](const RainflowCycle& c) {
-    closed_ += c.count * c.leg_weight * curve.damage_per_cycle(c.depth);
+    closed_ += c.count * c.leg_weight * depth_damage(curve, c.depth);
   });
   return closed_;
 }

@@ -61,8 +61,11 @@ class CycleDamageMeter {
   double close();
 
  private:
+  double depth_damage(const CycleLifeCurve& curve, double depth);
+
   const ChemistryProfile* profile_ = nullptr;
   RainflowStream stream_;
+  double last_depth_ = -1, last_damage_ = 0;  // damage_per_cycle of the latest depth
   double closed_ = 0;
 };
 
