@@ -58,9 +58,8 @@ void CycleDamageMeter::extend(std::size_t end) {
 double CycleDamageMeter::provisional() {
   const CycleLifeCurve& curve = profile_->cycle_life;
   double d = closed_;
-  stream_.emit_residue([&](const RainflowCycle& c) {
-    d += c.count * c.leg_weight * depth_damage(curve, c.depth);
-  });
+  stream_.emit_residue(
+      [&](const RainflowCycle& c) { d += c.count * c.leg_weight * depth_damage(curve, c.depth); });
   return d;
 }
 
