@@ -162,6 +162,43 @@ void read_part_header(LineReader& r, const std::string& kind, std::string& study
   study_digest = w[1];
 }
 
+// Opens a partial result file and reads it with `read`.
+template <typename Read>
+auto read_part_file(const std::string& path, Read read) {
+  std::ifstream in(path);
+  if (!in) throw InputError(path, 0, 0, "", "cannot open the partial result");
+  return read(in, path);
+}
+
+// The parts' items in order over [0, total): each part holds the items of its slice, and every
+// index must lie in exactly one part. `unit` names the items in the messages ("samples").
+template <typename Part, typename Item>
+std::vector<Item> stitch_slices(const std::vector<Part>& parts,
+                                const std::vector<std::string>& names, std::size_t total,
+                                const std::string& unit, std::vector<Item> Part::*items) {
+  std::vector<const Part*> by_start(total, nullptr);
+  for (std::size_t i = 0; i < parts.size(); ++i) {
+    const Part& p = parts[i];
+    if (p.slice.first == p.slice.last) continue;
+    if (by_start[p.slice.first]) {
+      throw InputError(names[i], 0, 0, "", "its " + unit + " overlap another part's");
+    }
+    by_start[p.slice.first] = &p;
+  }
+  std::vector<Item> out;
+  std::size_t k = 0;
+  while (k < total) {
+    const Part* p = by_start[k];
+    if (!p) {
+      throw InvalidValue("PARTS", unit + " from " + std::to_string(k) +
+                                      " on are in no part: a shard is missing or parts overlap");
+    }
+    out.insert(out.end(), (p->*items).begin(), (p->*items).end());
+    k = p->slice.last;
+  }
+  return out;
+}
+
 }  // namespace
 
 UncertaintyPart read_uncertainty_part(std::istream& in, const std::string& source_name) {
@@ -214,16 +251,13 @@ UncertaintyPart read_uncertainty_part(std::istream& in, const std::string& sourc
 }
 
 UncertaintyPart read_uncertainty_part_file(const std::string& path) {
-  std::ifstream in(path);
-  if (!in) throw InputError(path, 0, 0, "", "cannot open the partial result");
-  return read_uncertainty_part(in, path);
+  return read_part_file(path, read_uncertainty_part);
 }
 
 std::vector<SampleRecord> join_parts(const std::vector<UncertaintyPart>& parts,
                                      const std::vector<std::string>& names) {
   if (parts.empty()) throw InvalidValue("PARTS", "no partial results to merge");
   const UncertaintyPart& a = parts.front();
-  std::vector<const UncertaintyPart*> by_start(a.run.samples, nullptr);
   for (std::size_t i = 0; i < parts.size(); ++i) {
     const UncertaintyPart& p = parts[i];
     const auto refuse = [&](const std::string& what) {
@@ -240,24 +274,8 @@ std::vector<SampleRecord> join_parts(const std::vector<UncertaintyPart>& parts,
     for (std::size_t j = 0; j < p.run.drawn.size(); ++j) {
       if (p.run.drawn[j].path != a.run.drawn[j].path) refuse("the drawn inputs");
     }
-    if (p.slice.first == p.slice.last) continue;
-    if (by_start[p.slice.first]) {
-      throw InputError(names[i], 0, 0, "", "its samples overlap another part's");
-    }
-    by_start[p.slice.first] = &p;
   }
-  std::vector<SampleRecord> out;
-  std::size_t k = 0;
-  while (k < a.run.samples) {
-    const UncertaintyPart* p = by_start[k];
-    if (!p) {
-      throw InvalidValue("PARTS", "samples from " + std::to_string(k) +
-                                      " on are in no part: a shard is missing or parts overlap");
-    }
-    out.insert(out.end(), p->records.begin(), p->records.end());
-    k = p->slice.last;
-  }
-  return out;
+  return stitch_slices(parts, names, a.run.samples, "samples", &UncertaintyPart::records);
 }
 
 std::string partial_result_kind(const std::string& path) {
@@ -315,16 +333,13 @@ SweepPart read_sweep_part(std::istream& in, const std::string& source_name) {
 }
 
 SweepPart read_sweep_part_file(const std::string& path) {
-  std::ifstream in(path);
-  if (!in) throw InputError(path, 0, 0, "", "cannot open the partial result");
-  return read_sweep_part(in, path);
+  return read_part_file(path, read_sweep_part);
 }
 
 std::vector<PointOutcome> join_sweep_parts(const std::vector<SweepPart>& parts,
                                            const std::vector<std::string>& names) {
   if (parts.empty()) throw InvalidValue("PARTS", "no partial results to merge");
   const SweepPart& a = parts.front();
-  std::vector<const SweepPart*> by_start(a.points, nullptr);
   for (std::size_t i = 0; i < parts.size(); ++i) {
     const SweepPart& p = parts[i];
     const auto refuse = [&](const std::string& what) {
@@ -337,24 +352,8 @@ std::vector<PointOutcome> join_sweep_parts(const std::vector<SweepPart>& parts,
     }
     if (p.profile_ids != a.profile_ids) refuse("the profiles");
     if (!same_outcome(p.base, a.base)) refuse("the base point");
-    if (p.slice.first == p.slice.last) continue;
-    if (by_start[p.slice.first]) {
-      throw InputError(names[i], 0, 0, "", "its points overlap another part's");
-    }
-    by_start[p.slice.first] = &p;
   }
-  std::vector<PointOutcome> out;
-  std::size_t k = 0;
-  while (k < a.points) {
-    const SweepPart* p = by_start[k];
-    if (!p) {
-      throw InvalidValue("PARTS", "points from " + std::to_string(k) +
-                                      " on are in no part: a shard is missing or parts overlap");
-    }
-    out.insert(out.end(), p->outcomes.begin(), p->outcomes.end());
-    k = p->slice.last;
-  }
-  return out;
+  return stitch_slices(parts, names, a.points, "points", &SweepPart::outcomes);
 }
 
 }  // namespace stowage
