@@ -379,13 +379,21 @@ ReportSection uncertainty_decision(const StudyCase& study, const UncertaintyResu
   return s;
 }
 
+// True when some drawn inputs are rank-correlated (their draws re-ordered by Iman-Conover).
+bool has_rank_correlations(const UncertaintyResult& r) {
+  return std::any_of(r.drawn.begin(), r.drawn.end(),
+                     [](const Variation& v) { return !v.rank_correlations.empty(); });
+}
+
 ReportSection uncertainty_section(const StudyCase& study, const UncertaintyResult& r) {
   const std::string& cur = study.economics.currency;
   ReportSection s;
   s.id = "uncertainty";
   s.title = "Uncertainty of the ranking";
-  s.paragraph("Each of " + sampling_text(r) +
-              " draws every input below from its distribution, independently of the others, "
+  s.paragraph("Each of " + sampling_text(r) + " draws every input below from its distribution, " +
+              (has_rank_correlations(r)
+                   ? std::string("with the rank correlations the study states between them, ")
+                   : std::string("independently of the others, ")) +
               "every other input at its study value. " +
               (r.reoptimise ? std::string("Every sample is optimised again.")
                             : std::string("The base case's best design of each profile is "
@@ -629,9 +637,7 @@ ReportDocument build_uncertainty_report(const LoadedStudy& loaded, const Uncerta
                                         const std::string& generated_at) {
   const StudyCase& study = loaded.study;
   ReportDocument doc = new_document(loaded, "uncertainty of the ranking", generated_at);
-  const bool correlated =
-      std::any_of(result.drawn.begin(), result.drawn.end(),
-                  [](const Variation& v) { return !v.rank_correlations.empty(); });
+  const bool correlated = has_rank_correlations(result);
   doc.sections.push_back(uncertainty_decision(study, result));
   doc.sections.push_back(uncertainty_section(study, result));
   finish_document(

@@ -92,6 +92,8 @@ expect_exit 2 -- "$STOWAGE" uncertainty --samples 50 "$WORK/bad.yaml" && grep -q
 expect_exit 0 -- "$STOWAGE" uncertainty --samples 50 --seed 3 --report "$WORK/rep" "$correlated" || fail "report run"
 grep -q "Only the stated rank correlations link the inputs" "$WORK/rep/report.md" || fail "report: correlations not stated"
 grep -q "Inputs are drawn independently" "$WORK/rep/report.md" && fail "report: claims independent inputs"
+grep -q "independently of the others" "$WORK/rep/report.md" && fail "report: section claims independent draws"
+grep -q "with the rank correlations the study states between them" "$WORK/rep/report.md" || fail "report: section does not state the correlations"
 expect_exit 0 -- "$STOWAGE" uncertainty --samples 50 --seed 3 --report "$WORK/rep-i" "$WORK/independent.yaml" || fail "independent report run"
 grep -q "Inputs are drawn independently" "$WORK/rep-i/report.md" || fail "report: independence not stated"
 finish
