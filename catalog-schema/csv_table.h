@@ -76,6 +76,10 @@ constexpr double kMaxPlausibleTempC = 90.0;
 constexpr const char* kTempRangeHint =
     " (a battery-space temperature in degrees Celsius; kelvin or Fahrenheit values?)";
 
+// Irradiance above this is taken for a unit mistake (the solar constant is 1361 W/m2).
+constexpr double kMaxIrradianceWm2 = 1500.0;
+constexpr const char* kIrradianceRangeHint = " W/m2 (values in kW/m2 or Wh per day instead?)";
+
 double csv_number(const CsvTable& table, const CsvRow& row, std::size_t index,
                   const std::string& field, double min_value, double max_value,
                   const std::string& range_hint = "");

@@ -36,8 +36,8 @@ bool is_price_column(const std::string& name) {
 }
 
 bool allowed_name(const std::string& name) {
-  return name == "load_kw" || name == "source_kw" || name == "temp_c" || name == "hour" ||
-         name == "time" || is_price_column(name);
+  return name == "load_kw" || name == "source_kw" || name == "temp_c" || name == "ambient_c" ||
+         name == "irradiance_w_m2" || name == "hour" || name == "time" || is_price_column(name);
 }
 
 // The step between two rows of the time column: an hour, or 25 hours from 28 February to
@@ -58,7 +58,7 @@ std::string hourly_column_problem(const std::string& name) {
     return "column names are lower case: name it " + lower(name);
   }
   static const std::regex power("(load|source)_([A-Za-z0-9]+)");
-  static const std::regex temperature("(temp|temperature)_([A-Za-z0-9]+)");
+  static const std::regex temperature("(temp|temperature|ambient)_([A-Za-z0-9]+)");
   static const std::regex price("(price(_[a-z0-9]+)*)_per_([A-Za-z0-9]+)");
   if (name.size() > kMaxPatternText) return "";
   std::smatch m;
@@ -66,7 +66,9 @@ std::string hourly_column_problem(const std::string& name) {
     return "expected kW: name it " + m[1].str() + "_kw and give the values in kilowatts";
   }
   if (std::regex_match(name, m, temperature)) {
-    return "expected degrees Celsius: name it temp_c and give the values in degrees Celsius";
+    return std::string("expected degrees Celsius: name it ") +
+           (m[1].str() == "ambient" ? "ambient_c" : "temp_c") +
+           " and give the values in degrees Celsius";
   }
   if (std::regex_match(name, m, price)) {
     return "expected a price per kWh: name it " + m[1].str() +
@@ -74,18 +76,19 @@ std::string hourly_column_problem(const std::string& name) {
   }
   // A near miss of a name is refused: ignoring it would hide the column the user meant.
   const std::string hint =
-      closest_match(name, {"load_kw", "source_kw", "temp_c", "price_per_kwh", "hour", "time"});
+      closest_match(name, {"load_kw", "source_kw", "temp_c", "ambient_c", "irradiance_w_m2",
+                           "price_per_kwh", "hour", "time"});
   if (hint.empty()) return "";
   return "unknown column (did you mean '" + hint +
-         "'?); the columns are load_kw, source_kw, temp_c, and optionally price_per_kwh (or "
-         "price_<tag>_per_kwh), hour and time";
+         "'?); the columns are load_kw, source_kw, temp_c (or ambient_c with an enclosure), and "
+         "optionally irradiance_w_m2, price_per_kwh (or price_<tag>_per_kwh), hour and time";
 }
 
 HourlySeries read_hourly_csv(std::istream& in, const std::string& source_name) {
   CsvTable table(in, source_name);
   const CsvRow& header = table.header();
 
-  std::optional<std::size_t> load, source, temp, time;
+  std::optional<std::size_t> load, source, temp, ambient, irradiance, time;
   std::vector<std::size_t> ignored;
   std::map<std::string, std::size_t> price_index;
   for (std::size_t i = 0; i < header.fields.size(); ++i) {
@@ -107,16 +110,21 @@ HourlySeries read_hourly_csv(std::istream& in, const std::string& source_name) {
     if (name == "load_kw") load = i;
     if (name == "source_kw") source = i;
     if (name == "temp_c") temp = i;
+    if (name == "ambient_c") ambient = i;
+    if (name == "irradiance_w_m2") irradiance = i;
     if (name == "time") time = i;
     if (is_price_column(name)) price_index[name] = i;
   }
   for (const char* required : {"load_kw", "source_kw", "temp_c"}) {
     bool present = false;
     for (const CsvField& field : header.fields) present = present || field.text == required;
+    // Outdoor air instead of the battery temperature: the site's enclosure computes the latter.
+    if (std::string(required) == "temp_c" && ambient) present = true;
     if (!present) {
       throw table.error(header.line, 1, required,
                         std::string("the header has no column ") + required +
-                            " (the columns needed are load_kw, source_kw and temp_c)");
+                            " (the columns needed are load_kw, source_kw and temp_c, or "
+                            "ambient_c instead of temp_c for a site with an enclosure)");
     }
   }
 
@@ -125,7 +133,7 @@ HourlySeries read_hourly_csv(std::istream& in, const std::string& source_name) {
     series.notes.push_back({table.source(), header.line, header.fields[i].column,
                             header.fields[i].text,
                             "column ignored: the hourly CSV uses load_kw, source_kw, temp_c, "
-                            "price columns, hour and time"});
+                            "ambient_c, irradiance_w_m2, price columns, hour and time"});
   }
   std::optional<TimeValue> previous_time;
   for (const auto& entry : price_index) series.prices[entry.first];
@@ -151,8 +159,15 @@ HourlySeries read_hourly_csv(std::istream& in, const std::string& source_name) {
     if (rows == hours + 1) first_extra_line = row.line;
     series.load_kw.push_back(power(row, *load, "load_kw"));
     series.source_kw.push_back(power(row, *source, "source_kw"));
-    series.temp_c.push_back(csv_number(table, row, *temp, "temp_c", kMinPlausibleTempC,
-                                       kMaxPlausibleTempC, kTempRangeHint));
+    if (temp)
+      series.temp_c.push_back(csv_number(table, row, *temp, "temp_c", kMinPlausibleTempC,
+                                         kMaxPlausibleTempC, kTempRangeHint));
+    if (ambient)
+      series.ambient_c.push_back(csv_number(table, row, *ambient, "ambient_c", kMinPlausibleTempC,
+                                            kMaxPlausibleTempC, kTempRangeHint));
+    if (irradiance)
+      series.irradiance_w_m2.push_back(csv_number(table, row, *irradiance, "irradiance_w_m2", 0,
+                                                  kMaxIrradianceWm2, kIrradianceRangeHint));
     if (time) {
       const CsvField& cell = row.fields[*time];
       const TimeValue t = time_cell(table, row, *time);

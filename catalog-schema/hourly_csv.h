@@ -30,7 +30,9 @@ namespace stowage {
 struct HourlySeries {
   std::vector<double> load_kw;
   std::vector<double> source_kw;
-  std::vector<double> temp_c;
+  std::vector<double> temp_c;           // empty when the CSV gives ambient_c instead
+  std::vector<double> ambient_c;        // outdoor air, degC; empty when not given
+  std::vector<double> irradiance_w_m2;  // for an enclosure's solar gain; empty when not given
   std::map<std::string, std::vector<double>> prices;  // price column name -> 8760 values
   std::vector<InputNote> notes;                       // columns ignored
 };

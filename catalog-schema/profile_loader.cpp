@@ -284,6 +284,8 @@ LoadedProfile build_profile(const YamlDocument& doc) {
   }
 
   TemperatureSpec spec = read_temperature(doc, p["temperature"]);
+  if (const YAML::Node c = p["temperature"]["heat_capacity_kj_per_k_per_kwh"])
+    profile.heat_capacity_kj_per_k_per_kwh = number(c);
   try {
     profile.temperature = TemperatureBehaviour(std::move(spec));
   } catch (const InvalidValue& e) {

@@ -23,6 +23,38 @@ std::string join_names(const std::map<std::string, std::vector<double>>& prices)
   return out.empty() ? "none" : out;
 }
 
+// The `enclosure` block (model/enclosure.h); the schema has checked its keys and types.
+Enclosure read_enclosure(const YAML::Node& e) {
+  Enclosure out;
+  out.id = e["name"].Scalar();
+  out.conductance_w_per_k = number(e["conductance_w_per_k"]);
+  if (e["thermal_mass_kj_per_k"]) out.thermal_mass_kj_per_k = number(e["thermal_mass_kj_per_k"]);
+  if (e["solar_aperture_m2"]) out.solar_aperture_m2 = number(e["solar_aperture_m2"]);
+  if (e["standing_kw"]) out.standing_kw = number(e["standing_kw"]);
+  if (e["capital"]) out.capital = number(e["capital"]);
+  if (e["om_per_year"]) out.om_per_year = number(e["om_per_year"]);
+  if (const YAML::Node h = e["heating"]) {
+    EnclosureHeating heating;
+    heating.to_c = number(h["to_c"]);
+    heating.capacity_kw = number(h["capacity_kw"]);
+    if (h["efficiency"]) heating.efficiency = number(h["efficiency"]);
+    if (h["charge_only"]) heating.charge_only = h["charge_only"].as<bool>();
+    out.heating = heating;
+  }
+  if (const YAML::Node c = e["cooling"]) {
+    EnclosureCooling cooling;
+    cooling.to_c = number(c["to_c"]);
+    cooling.capacity_kw = number(c["capacity_kw"]);
+    cooling.cop = number(c["cop"]);
+    if (c["cop_reference_ambient_c"])
+      cooling.cop_reference_ambient_c = number(c["cop_reference_ambient_c"]);
+    if (c["cop_per_k"]) cooling.cop_per_k = number(c["cop_per_k"]);
+    if (c["cop_min"]) cooling.cop_min = number(c["cop_min"]);
+    out.cooling = cooling;
+  }
+  return out;
+}
+
 LoadedSite build_site(const YamlDocument& doc, const std::string& base_dir) {
   const YAML::Node s = doc.root()["site"];
   LoadedSite loaded;
@@ -63,6 +95,21 @@ LoadedSite build_site(const YamlDocument& doc, const std::string& base_dir) {
   site.load_kw = std::move(hourly.load_kw);
   site.source_kw = std::move(hourly.source_kw);
   site.temp_c = std::move(hourly.temp_c);
+  site.ambient_c = std::move(hourly.ambient_c);
+  site.irradiance_w_m2 = std::move(hourly.irradiance_w_m2);
+  if (const YAML::Node e = s["enclosure"]) {
+    if (site.ambient_c.empty())
+      throw doc.error_at(e, "site.enclosure",
+                         "an enclosure needs the outdoor air temperature: add an ambient_c column "
+                         "to the hourly CSV " +
+                             loaded.hourly_path);
+    site.enclosure = read_enclosure(e);
+  } else if (site.temp_c.empty()) {
+    throw doc.error_at(s["hourly"], "site.hourly",
+                       "the hourly CSV " + loaded.hourly_path +
+                           " gives ambient_c but no temp_c: add a temp_c column (the battery-space "
+                           "temperature) or an enclosure block that computes it");
+  }
 
   const YAML::Node price = s["charging_price"];
   if (price["per_kwh"]) {
@@ -80,13 +127,18 @@ LoadedSite build_site(const YamlDocument& doc, const std::string& base_dir) {
   }
 
   try {
+    if (site.enclosure) {
+      site.enclosure->validate();
+      set_enclosure_reference_temperature(site);
+    }
     site.validate();
   } catch (const InvalidValue& e) {
     // The series were checked row by row while reading; a series rule failing here is still
     // reported against the key that names the CSV.
     const std::string& f = e.field();
     const bool series = f.rfind("load_kw", 0) == 0 || f.rfind("source_kw", 0) == 0 ||
-                        f.rfind("temp_c", 0) == 0 || f.rfind("charging_price", 0) == 0;
+                        f.rfind("temp_c", 0) == 0 || f.rfind("charging_price", 0) == 0 ||
+                        f.rfind("ambient_c", 0) == 0 || f.rfind("irradiance_w_m2", 0) == 0;
     throw doc.error_at_path(series ? "site.hourly" : "site." + f,
                             series ? f + ": " + e.rule() : e.rule());
   }

@@ -29,6 +29,19 @@ AccelerationSeries acceleration_series(const ChemistryProfile& profile,
   return a;
 }
 
+void refresh_acceleration_month(const ChemistryProfile& profile, const double* temp_c,
+                                std::size_t first, std::size_t end, AccelerationSeries& a) {
+  double month = 0;
+  for (std::size_t h = first; h < end; ++h) {
+    a.per_hour[h] = profile.temperature.ageing_acceleration(temp_c[h]);
+    a.calendar_per_hour[h] = profile.temperature.calendar_acceleration(temp_c[h]);
+    month += a.calendar_per_hour[h];
+  }
+  const std::size_t month_hours = static_cast<std::size_t>(kHoursPerMonth);
+  a.calendar_damage_per_month[first / month_hours] =
+      month / (profile.calendar_life_years * kHoursPerYear);
+}
+
 double CycleDamageMeter::depth_damage(const CycleLifeCurve& curve, double depth) {
   // Floor-limited discharges repeat the same depth exactly, day after day: the last value is
   // kept, so the curve's logarithms are worked out once for them (the same number either way).

@@ -42,6 +42,12 @@ struct AccelerationSeries {
 };
 AccelerationSeries acceleration_series(const ChemistryProfile& profile,
                                        const std::vector<double>& temp_c);
+// Sets the hours [first, end) of `a` (one whole 730-hour month: first a multiple of 730) from
+// the temperatures temp_c[first .. end), and that month's calendar_damage_per_month, as
+// acceleration_series() would for them; calendar_damage_per_year is left as it was. For a
+// battery temperature that the dispatch computes month by month (enclosure.h).
+void refresh_acceleration_month(const ChemistryProfile& profile, const double* temp_c,
+                                std::size_t first, std::size_t end, AccelerationSeries& a);
 
 // Cycle damage of one bank's SOC history within a year as the history grows (month by month):
 // the rainflow cycles closed so far are booked as they close, and provisional() adds the

@@ -100,6 +100,9 @@ struct ChemistryProfile {
   ProfileCosts costs;
   std::optional<double> cell_mass_kg;
   std::optional<double> cell_volume_l;
+  // Heat capacity of the bank per kWh of nameplate, kJ/K per kWh (cells, electrolyte, racks):
+  // needed only in an enclosure (enclosure.h).
+  std::optional<double> heat_capacity_kj_per_k_per_kwh;
 
   double voltaic_efficiency() const { return mean_discharge_v / mean_charge_v; }
   double round_trip_efficiency() const { return voltaic_efficiency() * coulombic_efficiency; }

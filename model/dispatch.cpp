@@ -84,6 +84,22 @@ void YearDispatch::add(const YearDispatch& o) {
   auxiliary_source_kwh += o.auxiliary_source_kwh;
   auxiliary_bank_kwh += o.auxiliary_bank_kwh;
   auxiliary_unmet_kwh += o.auxiliary_unmet_kwh;
+  conditioning_kwh += o.conditioning_kwh;
+  conditioning_source_kwh += o.conditioning_source_kwh;
+  conditioning_cost += o.conditioning_cost;
+  conditioning_bank_kwh += o.conditioning_bank_kwh;
+  conditioning_backup_kwh += o.conditioning_backup_kwh;
+  conditioning_unmet_kwh += o.conditioning_unmet_kwh;
+  heating_heat_kwh += o.heating_heat_kwh;
+  cooling_heat_kwh += o.cooling_heat_kwh;
+  heating_hours += o.heating_hours;
+  bank_loss_heat_kwh += o.bank_loss_heat_kwh;
+}
+
+double enclosure_heat_capacity_kj_per_k(const ChemistryProfile& profile, const SiteConditions& site,
+                                        double nameplate_kwh) {
+  return site.enclosure->thermal_mass_kj_per_k +
+         profile.heat_capacity_kj_per_k_per_kwh.value_or(0.0) * nameplate_kwh;
 }
 
 YearDispatch dispatch_year(const DispatchInputs& given, DispatchState& state,
@@ -150,6 +166,17 @@ YearDispatch dispatch_hours(const DispatchInputs& in, DispatchState& state, doub
   const double aux_pump_per_kwh = p.auxiliary.pump_kw_per_kw;
   const double aux_amps_per_kwh = 1000.0 / v_discharge;
   const double aux_floor_ah = (1.0 - dod) * q_ah;
+  // Enclosure (step 5).
+  const Enclosure* enclosure = site.enclosure ? &*site.enclosure : nullptr;
+  const double heat_capacity =
+      enclosure ? enclosure_heat_capacity_kj_per_k(p, site, in.bank.nameplate_kwh) : 0.0;
+  const double v_open = 0.5 * (v_charge + v_discharge);
+  const double charge_heat_per_amp = (v_charge - eta_coulomb * v_open) / 1000.0;  // kWh per A h
+  const double discharge_heat_per_amp = (v_open - v_discharge) / 1000.0;
+  const double stored_kwh_per_ah = v_open / 1000.0;
+  double temp = state.temp_c;
+  double cond_sum = 0, cond_source = 0, cond_cost = 0, cond_bank = 0, cond_backup = 0,
+         cond_unmet = 0, heat_sum = 0, cool_sum = 0, heating_hours = 0, loss_heat_sum = 0;
 
   double* trace = soc_trace;
   double soc = state.soc;
@@ -163,14 +190,30 @@ YearDispatch dispatch_hours(const DispatchInputs& in, DispatchState& state, doub
   double aux_sum = 0, aux_source = 0, aux_bank = 0, aux_unmet = 0;
 
   for (std::size_t h = first; h < end; ++h) {
+    // The hour's temperature limits and capacity factor: fixed per hour without an enclosure,
+    // from the thermal node's state with one.
+    bool charge_ok, discharge_ok;
+    double cf;
+    if (enclosure) {
+      if (in.temp_trace) in.temp_trace[h] = temp;
+      charge_ok = p.temperature.can_charge(temp);
+      discharge_ok = p.temperature.can_discharge(temp);
+      cf = p.temperature.capacity_factor(temp);
+    } else {
+      charge_ok = can_charge[h] != 0;
+      discharge_ok = can_discharge[h] != 0;
+      cf = capacity_factor[h];
+    }
+    const double soc_before = soc;
     soc *= keep_per_hour;
+    double loss_heat = (soc_before - soc) * q_ah * stored_kwh_per_ah;
     const double surplus = balance[h].surplus_kwh;
     const double deficit = balance[h].deficit_kwh;
     double throughput = 0, spare = 0;  // terminal kWh moved; source kWh the bank did not take
 
     if (surplus > 0) {
       double to_terminals = 0;  // kWh
-      if (can_charge[h] && soc < 1.0) {
+      if (charge_ok && soc < 1.0) {
         // Terminal charge the bank accepts this hour: the offer up to the headroom (given the
         // coulombic loss), tapering above the absorption threshold (charge_acceptance.h).
         const double offer_amps = std::min(surplus * charge_amps_per_kwh, max_charge_amps);
@@ -178,8 +221,9 @@ YearDispatch dispatch_hours(const DispatchInputs& in, DispatchState& state, doub
         to_terminals = amps * kwh_per_charge_amp;
         soc += amps * soc_per_charge_amp;
         if (soc > 1.0) soc = 1.0;
+        loss_heat += amps * charge_heat_per_amp;
       }
-      if (!can_charge[h] && soc < 1.0) charge_blocked_hours += 1;
+      if (!charge_ok && soc < 1.0) charge_blocked_hours += 1;
       const double drawn = to_terminals * inv_eta_charger;
       charged_terminal += to_terminals;
       charge_source += drawn;
@@ -189,14 +233,13 @@ YearDispatch dispatch_hours(const DispatchInputs& in, DispatchState& state, doub
       spare = surplus - drawn;
     } else if (deficit > 0) {
       double delivered = 0;
-      if (!can_discharge[h] && soc > 1.0 - dod) discharge_blocked_hours += 1;
-      if (can_discharge[h]) {
+      if (!discharge_ok && soc > 1.0 - dod) discharge_blocked_hours += 1;
+      if (discharge_ok) {
         // The window this hour reaches down to 1 - reachable_depth (dod_window.h). Cold
         // narrows it (the charge below stays in the cells and comes back when the bank warms
         // up); heat never widens it past the setpoint. Peukert: at a current I above the rated
         // current the cells reach cut-off after C (I_r / I)^(k-1) Ah, so the window shrinks by
         // that factor. The charge is not lost: a lower current later can still draw it.
-        const double cf = capacity_factor[h];
         auto room_ah = [&](double amps) {
           const double floor_soc =
               1.0 - reachable_depth(dod, cf, peukert_capacity_factor(amps, rated_amps, peukert_k));
@@ -220,30 +263,80 @@ YearDispatch dispatch_hours(const DispatchInputs& in, DispatchState& state, doub
           delivered_sum += delivered;
           full_cycles += depth;
           throughput = out_kwh;
+          loss_heat += amps * discharge_heat_per_amp;
         }
       }
       const double shortfall = deficit - delivered;
       if (shortfall > 1e-12) (has_backup ? backup : unserved) += shortfall;
     }
-
-    if (has_aux) {
-      double need = aux_standing_kwh + aux_pump_per_kwh * throughput;
-      aux_sum += need;
-      if (spare > 0) {
+    // Electricity for the bank's surroundings: from the source surplus the bank did not take
+    // (through the charger), then the stored charge down to the setpoint floor; returns what
+    // is still unmet, kWh at the terminals. One rule for the auxiliaries and the enclosure.
+    auto supply = [&](double need, bool from_bank, double& from_source_kwh, double& bank_kwh) {
+      if (spare > 0 && need > 0) {
         const double want_source = need * inv_eta_charger;
         const double from_source = std::min(want_source, spare);
-        aux_source += from_source;
-        charge_cost += from_source * charge_price[h];
+        from_source_kwh += from_source;
+        spare -= from_source;
         curtailed -= from_source;
         need = from_source < want_source ? need - from_source * eta_charger : 0.0;
       }
-      if (need > 0) {
+      if (from_bank && need > 0) {
         const double want_ah = need * aux_amps_per_kwh;
         const double ah = std::min(want_ah, std::max(0.0, soc * q_ah - aux_floor_ah));
         soc -= ah * inv_q_ah;
-        aux_bank += ah / aux_amps_per_kwh;
-        if (ah < want_ah) aux_unmet += (want_ah - ah) / aux_amps_per_kwh;
+        bank_kwh += ah / aux_amps_per_kwh;
+        need = ah < want_ah ? (want_ah - ah) / aux_amps_per_kwh : 0.0;
       }
+      return need;
+    };
+
+    if (has_aux) {
+      const double need = aux_standing_kwh + aux_pump_per_kwh * throughput;
+      aux_sum += need;
+      double from_source = 0;
+      aux_unmet += supply(need, true, from_source, aux_bank);
+      aux_source += from_source;
+      charge_cost += from_source * charge_price[h];
+    }
+
+    if (enclosure) {
+      // Charge-only heating runs when surplus is left and the bank is not full.
+      const bool charge_only = enclosure->heating && enclosure->heating->charge_only;
+      const bool may_heat = !charge_only || (spare > 0 && soc < 1.0);
+      const double gain = loss_heat + site.solar_gain_kw(h) + enclosure->standing_kw;
+      const ThermalHour th =
+          thermal_hour(*enclosure, heat_capacity, temp, site.ambient_c[h], gain, may_heat);
+      // The heater's share: charge-only heating draws from the surplus alone, any other
+      // conditioning from the surplus, the bank and then back-up.
+      double from_source = 0, from_bank = 0;
+      const bool surplus_only = charge_only && th.heat_kwh > 0;
+      double conditioning_rest = supply(th.electricity_kwh, !surplus_only, from_source, from_bank);
+      if (!surplus_only && has_backup) {
+        cond_backup += conditioning_rest;
+        conditioning_rest = 0;
+      }
+      const double share =
+          th.electricity_kwh > 0 ? 1.0 - conditioning_rest / th.electricity_kwh : 1.0;
+      double standing_rest = supply(enclosure->standing_kw, true, from_source, from_bank);
+      if (has_backup) {
+        cond_backup += standing_rest;
+        standing_rest = 0;
+      }
+      temp = settle_hour(*enclosure, heat_capacity, th, share);
+      heat_sum += th.heat_kwh * share;
+      cool_sum += th.cool_kwh * share;
+      if (th.heat_kwh * share > 0) heating_hours += 1;
+      // Charge-only heat the surplus cannot pay for is not asked for: the bank stays cold.
+      const double need =
+          (surplus_only ? th.electricity_kwh * share : th.electricity_kwh) + enclosure->standing_kw;
+      const double unmet = (surplus_only ? 0.0 : conditioning_rest) + standing_rest;
+      cond_sum += need;
+      cond_source += from_source;
+      cond_cost += from_source * charge_price[h];
+      cond_bank += from_bank;
+      cond_unmet += unmet;
+      loss_heat_sum += loss_heat;
     }
 
     if (track_partial) {
@@ -273,7 +366,18 @@ YearDispatch dispatch_hours(const DispatchInputs& in, DispatchState& state, doub
   y.auxiliary_source_kwh = aux_source;
   y.auxiliary_bank_kwh = aux_bank;
   y.auxiliary_unmet_kwh = aux_unmet;
+  y.conditioning_kwh = cond_sum;
+  y.conditioning_source_kwh = cond_source;
+  y.conditioning_cost = cond_cost;
+  y.conditioning_bank_kwh = cond_bank;
+  y.conditioning_backup_kwh = cond_backup;
+  y.conditioning_unmet_kwh = cond_unmet;
+  y.heating_heat_kwh = heat_sum;
+  y.cooling_heat_kwh = cool_sum;
+  y.heating_hours = heating_hours;
+  y.bank_loss_heat_kwh = loss_heat_sum;
   state.soc = soc;
+  state.temp_c = temp;
   state.hours_since_full_charge = hours_since_full;
   y.partial_charge_excess_days = excess_hours / 24.0;
   return y;

@@ -30,6 +30,20 @@
 //      price like charging energy); the rest from the stored charge, A x 1000 / V_discharge
 //      Ah, down to the setpoint floor 1 - dod_setpoint, in any temperature; what neither
 //      covers is unmet (the auxiliaries stop) and only counted.
+//   5. With an enclosure (site.enclosure, enclosure.h) the hour's battery temperature T_h is the
+//      thermal node's state at the hour's start and sets f_T, the charging and the operating
+//      limits of steps 2 and 3. The internal heat of the hour is the bank's irreversible loss,
+//      the first term of the energy balance of Bernardi, Pawlikowski & Newman (1985, J.
+//      Electrochem. Soc. 132:5-12), q = I (V - V_oc), with V_oc taken as the mean of the mean
+//      charge and discharge voltages and the entropic term neglected: charging I x (V_charge -
+//      coulombic_efficiency x V_oc), discharging I x (V_oc - V_discharge), self-discharge the
+//      charge lost x V_oc; over a full cycle these sum to the round-trip loss. With the solar
+//      gain and standing_kw it gives the free-running end temperature; heating or cooling to
+//      the enclosure's limits then asks for electricity E (enclosure.h), supplied as the
+//      auxiliary loads are (surplus through the charger, then the bank down to its setpoint
+//      floor) and, unlike them, finally from back-up when the site has it (charge-only heating:
+//      from the surplus alone); with E short, the share supplied of the heat is delivered.
+//      standing_kw is supplied the same way with E. The end temperature is T_(h+1).
 // V_charge and V_discharge are the profile's mean cell voltages times cells in series.
 // Energy figures are in kWh; "terminal" means at the bank's DC terminals.
 #pragma once
@@ -45,6 +59,7 @@ namespace stowage {
 // Carried from one year into the next.
 struct DispatchState {
   double soc = 1.0;                    // fraction of effective capacity
+  double temp_c = 25;                  // battery temperature at the next hour's start (enclosure)
   double hours_since_full_charge = 0;  // for partial-state-of-charge stress
 };
 
@@ -73,6 +88,14 @@ struct YearDispatch {
   // unmet; kWh.
   double auxiliary_kwh = 0, auxiliary_source_kwh = 0, auxiliary_bank_kwh = 0,
          auxiliary_unmet_kwh = 0;
+  // Conditioning (step 5): the electricity the heater, the cooler and the enclosure's standing
+  // load asked for, kWh; supplied from the source (source energy before the charger, its cost
+  // at the hour's charging price), from the bank (at its terminals), from back-up, unmet; the
+  // heat delivered and removed (kWh thermal); the hours with heating.
+  double conditioning_kwh = 0, conditioning_source_kwh = 0, conditioning_cost = 0,
+         conditioning_bank_kwh = 0, conditioning_backup_kwh = 0, conditioning_unmet_kwh = 0;
+  double heating_heat_kwh = 0, cooling_heat_kwh = 0, heating_hours = 0;
+  double bank_loss_heat_kwh = 0;  // internal heat of the bank's losses (step 5)
   // Adds the sums of `o` (hours that follow or precede these) to these.
   void add(const YearDispatch& o);
   double temperature_idle_hours() const {
@@ -103,7 +126,15 @@ struct DispatchInputs {
   double dod_setpoint = 0.5;
   double health = 1.0;                     // capacity remaining, fraction of rated, (0, 1]
   const HourlyFactors* factors = nullptr;  // optional; computed here when null
+  // With an enclosure: receives the battery temperature at the start of each hour dispatched
+  // (index h); may be null.
+  double* temp_trace = nullptr;
 };
+
+// Heat capacity of bank and enclosure, kJ/K: thermal_mass_kj_per_k + the profile's
+// heat_capacity_kj_per_k_per_kwh x nameplate. Requires site.enclosure and that profile figure.
+double enclosure_heat_capacity_kj_per_k(const ChemistryProfile& profile, const SiteConditions& site,
+                                        double nameplate_kwh);
 
 // Dispatches one year. `soc_trace` is resized to 8761: the SOC at the start and after each hour.
 // `state` is read as the start and updated to the end of the year.

@@ -35,6 +35,11 @@ void price_year(YearRecord& rec, const DesignCosts& costs, double investment, do
   rec.backup =
       site.backup_price_per_kwh ? rec.dispatch.backup_kwh * *site.backup_price_per_kwh : 0.0;
   rec.unserved_penalty = rec.dispatch.unserved_kwh * site.unserved_penalty_per_kwh;
+  rec.enclosure_om = site.enclosure ? site.enclosure->om_per_year : 0.0;
+  rec.conditioning =
+      rec.dispatch.conditioning_cost +
+      (site.backup_price_per_kwh ? rec.dispatch.conditioning_backup_kwh * *site.backup_price_per_kwh
+                                 : 0.0);
   // Replacements are booked in their year at that year's price (docs/method.md 6).
   rec.replacement = rec.replacements * costs.replacement_price(investment, rec.year);
   rec.end_of_life = rec.replacements * costs.replacement_end_of_life(nameplate_kwh);
@@ -58,6 +63,8 @@ void add_discounted(const YearRecord& rec, DesignResult& r) {
   pv.unserved_penalty += rec.unserved_penalty * df;
   pv.end_of_life += rec.end_of_life * df;
   pv.residual_value += rec.residual_value * df;
+  pv.enclosure += rec.enclosure_om * df;
+  pv.conditioning += rec.conditioning * df;
   r.discounted_delivered_kwh += rec.dispatch.delivered_kwh * df;
 }
 
@@ -89,7 +96,16 @@ LifecycleEvaluator::LifecycleEvaluator(const ChemistryProfile& profile, const Si
       site_(&site),
       economics_(&economics),
       acceleration_(acceleration_series(profile, site.temp_c)),
-      factors_(hourly_factors(profile, site)) {}
+      factors_(hourly_factors(profile, site)) {
+  if (site.enclosure) {
+    if (!profile.heat_capacity_kj_per_k_per_kwh)
+      throw ContractViolation(
+          "profiles." + profile.id + ".temperature.heat_capacity_kj_per_k_per_kwh",
+          "must be given for a bank in an enclosure");
+    working_ = acceleration_;
+    temp_trace_.resize(static_cast<std::size_t>(kHoursPerYear));
+  }
+}
 
 void LifecycleEvaluator::operate_year(DispatchInputs& in, bool last_year, DesignResult& r,
                                       YearRecord& rec, DispatchState& state, Bank& bank) {
@@ -100,8 +116,10 @@ void LifecycleEvaluator::operate_year(DispatchInputs& in, bool last_year, Design
   // The damage the bank in service had when its history within this year began, and that
   // history's calendar and partial-charge damage so far.
   double base = bank.damage, calendar = 0, partial = 0;
+  const bool thermal = site_->enclosure.has_value();
+  const AccelerationSeries& acceleration = thermal ? working_ : acceleration_;
   trace[0] = state.soc;
-  meter_.start(p, acceleration_, trace, 0);
+  meter_.start(p, acceleration, trace, 0);
   auto book_history = [&](double cycle) {
     rec.damage_cycle += cycle;
     rec.damage_calendar += calendar;
@@ -112,9 +130,10 @@ void LifecycleEvaluator::operate_year(DispatchInputs& in, bool last_year, Design
     const std::size_t end = first + month_hours;
     in.health = health_from_damage(p, bank.damage);
     const YearDispatch m = dispatch_hours(in, state, trace, first, end);
+    if (thermal) refresh_acceleration_month(p, temp_trace_.data(), first, end, working_);
     rec.dispatch.add(m);
     meter_.extend(end + 1);
-    calendar += calendar_damage(p, acceleration_, trace, first, end);
+    calendar += calendar_damage(p, acceleration, trace, first, end);
     partial += m.partial_charge_excess_days * damage_per_extra_day;
     bank.age_hours += kHoursPerMonth;
     const double cycle = meter_.provisional();
@@ -142,11 +161,13 @@ void LifecycleEvaluator::operate_year(DispatchInputs& in, bool last_year, Design
     }
     bank.damage = worn_out ? std::max(0.0, bank.damage - banks) : 0.0;
     bank.age_hours = 0;
+    const double temp_now = state.temp_c;  // the new bank sits in the same enclosure
     state = DispatchState{};
+    state.temp_c = temp_now;
     base = bank.damage;
     calendar = partial = 0;
     trace[end] = state.soc;
-    meter_.start(p, acceleration_, trace, end);
+    meter_.start(p, acceleration, trace, end);
   }
   book_history(meter_.close());
 }
@@ -184,12 +205,19 @@ LifecycleEvaluator::Bounded LifecycleEvaluator::evaluate_unless_above(
   in.bank = r.bank;
   in.dod_setpoint = dod_setpoint;
   in.factors = &factors_;
+  if (site.enclosure) {
+    in.temp_trace = temp_trace_.data();
+    r.enclosure_id = site.enclosure->id;
+    r.enclosure_capital = site.enclosure->capital;
+  }
 
   DispatchState state;
+  state.temp_c = site.temp_c.front();            // with an enclosure: its reference start
   Bank bank;                                     // the bank in service
   double final_year = econ.project_years + 1.0;  // when the last bank's end-of-life flow falls
   CostBreakdown& pv = r.present_value;
   pv.investment = r.investment;
+  pv.enclosure = r.enclosure_capital;
   r.years.reserve(static_cast<std::size_t>(econ.project_years));
   soc_trace_.resize(static_cast<std::size_t>(kHoursPerYear) + 1);
 

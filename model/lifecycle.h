@@ -54,10 +54,12 @@ struct CostBreakdown {
   double unserved_penalty = 0;
   double end_of_life = 0;
   double residual_value = 0;
+  double enclosure = 0;     // the enclosure's capital and O&M (enclosure.h)
+  double conditioning = 0;  // energy bought for heating, cooling and the enclosure's standing load
 
   double storage_total() const {
     return investment + replacements + fixed_om + variable_om + charging + end_of_life +
-           residual_value;
+           residual_value + enclosure + conditioning;
   }
   double total() const { return storage_total() + backup + unserved_penalty; }
 };
@@ -80,9 +82,13 @@ struct YearRecord {
   YearDispatch dispatch;
   double fixed_om = 0, variable_om = 0, charging = 0, backup = 0, unserved_penalty = 0;
   double replacement = 0, end_of_life = 0, residual_value = 0;
+  double enclosure_om = 0;  // the enclosure's O&M
+  // Source energy for conditioning at the charging price + its back-up energy at the back-up
+  // price (dispatch.h, step 5).
+  double conditioning = 0;
   double total() const {
     return fixed_om + variable_om + charging + backup + unserved_penalty + replacement +
-           end_of_life + residual_value;
+           end_of_life + residual_value + enclosure_om + conditioning;
   }
   double discount_factor = 1;  // P/F at the end of this year
 };
@@ -92,6 +98,8 @@ struct DesignResult {
   double dod_setpoint = 0;
   BankGeometry bank;
   std::string currency;
+  std::string enclosure_id;             // the site's enclosure option; empty without one
+  double enclosure_capital = 0;         // year 0, in present_value.enclosure
   std::vector<int> replacement_years;   // project year of each replacement, in order
   std::vector<int> replacement_months;  // its month within that year, 1-12 (parallel list)
   std::vector<YearRecord> years;
@@ -197,9 +205,11 @@ class LifecycleEvaluator {
   const ChemistryProfile* profile_;
   const SiteConditions* site_;
   const Economics* economics_;
-  AccelerationSeries acceleration_;
+  AccelerationSeries acceleration_;  // at the site's temp_c (the reference with an enclosure)
+  AccelerationSeries working_;       // with an enclosure: the hours of the bank's own temperature
   HourlyFactors factors_;
   std::vector<double> soc_trace_;
+  std::vector<double> temp_trace_;  // with an enclosure: battery temperature of each hour
   CycleDamageMeter meter_;
 };
 

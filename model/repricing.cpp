@@ -41,11 +41,14 @@ DesignResult reprice(const DesignResult& simulated, const ChemistryProfile& prof
   CostBreakdown& pv = r.present_value;
   pv = CostBreakdown{};
   pv.investment = r.investment;
+  r.enclosure_capital = site.enclosure ? site.enclosure->capital : 0.0;
+  pv.enclosure = r.enclosure_capital;
   r.discounted_delivered_kwh = 0;
   for (YearRecord& rec : r.years) {
     if (flat) {
       rec.dispatch.charge_cost =
           charge_price * (rec.dispatch.charge_source_kwh + rec.dispatch.auxiliary_source_kwh);
+      rec.dispatch.conditioning_cost = charge_price * rec.dispatch.conditioning_source_kwh;
     }
     price_year(rec, costs, r.investment, nameplate, site, economics, profile,
                simulated.last_bank_age_years);

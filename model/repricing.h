@@ -20,7 +20,9 @@
 // each discounted by present_worth_factor(rate, year) (model/economics.h); then
 // DesignResult::settle_totals() forms NPC and both LCOS, as the lifecycle evaluation does.
 // Charging: when the site's charging price is one flat price p (the only case in which it can
-// be varied, parameter_paths.h), a year costs p x (charge source kWh + auxiliary source kWh);
+// be varied, parameter_paths.h), a year costs p x (charge source kWh + auxiliary source kWh),
+// and its conditioning p x conditioning source kWh + conditioning back-up kWh x back-up price
+// (with the enclosure's capital in year 0 and its O&M each year);
 // otherwise the hourly series must be the one simulated and the year's charging cost is kept.
 //
 // Preconditions (ContractViolation otherwise): `simulated` is a complete evaluation (one record

@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: MIT
 #include "model/site.h"
 
+#include <algorithm>
 #include <cmath>
 #include <string>
 
@@ -27,6 +28,11 @@ void SiteConditions::validate() const {
   check_series(load_kw, "load_kw", true);
   check_series(source_kw, "source_kw", true);
   check_series(temp_c, "temp_c", false);
+  if (enclosure) {
+    enclosure->validate();
+    check_series(ambient_c, "ambient_c", false);
+    if (!irradiance_w_m2.empty()) check_series(irradiance_w_m2, "irradiance_w_m2", true);
+  }
   check_series(charge_price_per_kwh, "charging_price", true);
   if (!(autonomy_days >= 0) || !std::isfinite(autonomy_days))
     throw InvalidValue("autonomy_days", "must be >= 0");
@@ -44,6 +50,18 @@ void SiteConditions::validate() const {
     throw InvalidValue("unserved.limit_fraction", "must be in [0, 1]");
   if (!(unserved_penalty_per_kwh >= 0))
     throw InvalidValue("unserved.penalty_per_kwh", "must be >= 0");
+}
+
+void set_enclosure_reference_temperature(SiteConditions& site) {
+  const Enclosure& e = *site.enclosure;
+  const double g_kw_per_k = e.conductance_w_per_k / 1000.0;
+  site.temp_c.resize(site.ambient_c.size());
+  for (std::size_t h = 0; h < site.ambient_c.size(); ++h) {
+    double t = site.ambient_c[h] + (site.solar_gain_kw(h) + e.standing_kw) / g_kw_per_k;
+    if (e.heating && !e.heating->charge_only) t = std::max(t, e.heating->to_c);
+    if (e.cooling) t = std::min(t, e.cooling->to_c);
+    site.temp_c[h] = t;
+  }
 }
 
 double SiteConditions::annual_demand_kwh() const {

@@ -16,6 +16,8 @@
 #include <string>
 #include <vector>
 
+#include "model/enclosure.h"
+
 namespace stowage {
 
 constexpr int kHoursPerYear = 8760;  // leap day dropped
@@ -24,9 +26,15 @@ constexpr double kHoursPerMonth = 730.0;
 struct SiteConditions {
   std::string name;
   double bus_voltage_v = 48;
-  std::vector<double> load_kw;               // 8760 values >= 0
-  std::vector<double> source_kw;             // 8760 values >= 0
-  std::vector<double> temp_c;                // battery-space temperature, 8760 values
+  std::vector<double> load_kw;    // 8760 values >= 0
+  std::vector<double> source_kw;  // 8760 values >= 0
+  // Battery-space temperature, 8760 values. With an enclosure it is the enclosure's reference
+  // series (set_enclosure_reference_temperature()), used for autonomy sizing and the optimiser's
+  // estimates; the exact dispatch then integrates the thermal model of enclosure.h instead.
+  std::vector<double> temp_c;
+  std::vector<double> ambient_c;             // outdoor air, 8760 values; needed by an enclosure
+  std::vector<double> irradiance_w_m2;       // for solar gain; empty: none
+  std::optional<Enclosure> enclosure;        // unset: temp_c is the battery temperature
   std::vector<double> charge_price_per_kwh;  // 8760 values >= 0
   double autonomy_days = 0;                  // days the bank alone carries the load, >= 0
   double design_margin = 1.0;                // sizing margin on the autonomy energy, >= 1
@@ -44,7 +52,20 @@ struct SiteConditions {
   void validate() const;
 
   double annual_demand_kwh() const;
+  // Solar heat gain on the enclosure in hour h, kW (0 without irradiance or enclosure).
+  double solar_gain_kw(std::size_t h) const {
+    return enclosure && !irradiance_w_m2.empty()
+               ? enclosure->solar_aperture_m2 * irradiance_w_m2[h] / 1000.0
+               : 0.0;
+  }
 };
+
+// Sets site.temp_c to the enclosure's reference temperature: each hour the steady state
+// T_a + (solar gain + standing_kw) / G without the bank's losses, held within the heating and
+// cooling temperatures (charge-only heating aside). The exact dispatch integrates the full
+// model (enclosure.h); this series only serves autonomy sizing, the first hour's start and the
+// optimiser's estimates. Requires an enclosure and 8760 ambient values.
+void set_enclosure_reference_temperature(SiteConditions& site);
 
 // What the source does for the load in hour h, before the bank: `direct_kwh` of load served
 // straight from the source (source_to_load_efficiency of the source energy used arrives), the

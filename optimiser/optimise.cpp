@@ -239,6 +239,9 @@ class Search {
   double calendar_damage(std::size_t p) const {
     // The bound needs a floor on a year's calendar damage: with an SOC stress the yearly
     // damage is the SOC-free figure times multipliers no lower than the least over [0, 1].
+    // With an enclosure the battery temperature comes from the dispatch, so the reference
+    // series gives no floor: the bound takes no calendar damage (still a lower bound).
+    if (study_.site.enclosure) return 0.0;
     const double per_year = evaluators_[0][p]->acceleration().calendar_damage_per_year;
     const ChemistryProfile& profile = study_.profiles[p];
     if (!profile.calendar_soc_stress) return per_year;

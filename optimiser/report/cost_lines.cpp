@@ -15,6 +15,8 @@ const std::vector<CostLine>& cost_lines() {
       {"charging", "charging energy (incl. losses)", "charging", &CostBreakdown::charging},
       {"end_of_life", "end of life", "end of life", &CostBreakdown::end_of_life},
       {"residual_value", "residual value (credit)", "residual", &CostBreakdown::residual_value},
+      {"enclosure", "enclosure capital and O&M", "enclosure", &CostBreakdown::enclosure},
+      {"conditioning", "heating and cooling energy", "enclosure", &CostBreakdown::conditioning},
       {"backup", "back-up energy", "service shortfall", &CostBreakdown::backup},
       {"unserved_penalty", "unserved-energy penalty", "service shortfall",
        &CostBreakdown::unserved_penalty},

@@ -80,6 +80,21 @@ void write_design_json(JsonWriter& json, const DesignResult& d, const Requiremen
              first.charge_blocked_by_temperature_hours);
   json.field("discharge_blocked_by_temperature_hours_first_year",
              first.discharge_blocked_by_temperature_hours);
+  if (!d.enclosure_id.empty()) {
+    json.key("enclosure").begin_object();
+    json.field("name", d.enclosure_id);
+    json.field("capital", d.enclosure_capital);
+    json.field("heating_heat_kwh_first_year", first.heating_heat_kwh);
+    json.field("heating_hours_first_year", first.heating_hours);
+    json.field("cooling_heat_kwh_first_year", first.cooling_heat_kwh);
+    json.field("bank_loss_heat_kwh_first_year", first.bank_loss_heat_kwh);
+    json.field("conditioning_kwh_first_year", first.conditioning_kwh);
+    json.field("conditioning_source_kwh_first_year", first.conditioning_source_kwh);
+    json.field("conditioning_bank_kwh_first_year", first.conditioning_bank_kwh);
+    json.field("conditioning_backup_kwh_first_year", first.conditioning_backup_kwh);
+    json.field("conditioning_unmet_kwh_first_year", first.conditioning_unmet_kwh);
+    json.end_object();
+  }
   if (check) {
     json.field("meets_requirements", check->meets_all());
     json.key("requirements").begin_object();
@@ -118,6 +133,17 @@ void print_design_table(std::ostream& out, const DesignResult& d, const Requirem
                format_amount(first.auxiliary_kwh, 1), format_amount(first.auxiliary_source_kwh, 1),
                format_amount(first.auxiliary_bank_kwh, 1),
                format_amount(first.auxiliary_unmet_kwh, 1));
+  if (!d.enclosure_id.empty())
+    fmt::print(out,
+               "  enclosure     {}: first year {} kWh of heat in {:.0f} h, {} kWh of heat "
+               "removed; conditioning electricity {} kWh ({} kWh from the source, {} kWh from "
+               "the bank, {} kWh from back-up, {} kWh unmet)\n",
+               d.enclosure_id, format_amount(first.heating_heat_kwh, 1), first.heating_hours,
+               format_amount(first.cooling_heat_kwh, 1), format_amount(first.conditioning_kwh, 1),
+               format_amount(first.conditioning_source_kwh, 1),
+               format_amount(first.conditioning_bank_kwh, 1),
+               format_amount(first.conditioning_backup_kwh, 1),
+               format_amount(first.conditioning_unmet_kwh, 1));
   const auto& y1 = d.years.front();
   fmt::print(
       out,

@@ -170,13 +170,13 @@ std::string dated_csv(int year, const std::string& extra_header = "",
 
 TEST_CASE("a file saved by a spreadsheet reads: byte-order mark, CRLF, time, extra columns",
           "[catalog][csv][spreadsheet]") {
-  std::string text = "\xef\xbb\xbf" + dated_csv(2026, ",irradiance_w_m2", ",0");
+  std::string text = "\xef\xbb\xbf" + dated_csv(2026, ",logger_status", ",0");
   std::string crlf;
   for (const char c : text) crlf += c == '\n' ? std::string("\r\n") : std::string(1, c);
   const HourlySeries s = read_text(crlf);
   CHECK(s.load_kw.size() == 8760);
   REQUIRE(s.notes.size() == 1);
-  CHECK(s.notes[0].field == "irradiance_w_m2");
+  CHECK(s.notes[0].field == "logger_status");
   CHECK(s.notes[0].line == 1);
   CHECK(s.notes[0].message.find("ignored") != std::string::npos);
   // A leap year with its 29 February dropped: the 25 h step over it is accepted.

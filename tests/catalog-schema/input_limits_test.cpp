@@ -105,7 +105,7 @@ TEST_CASE("a site at the limits loads, one past them is refused at the field",
 TEST_CASE("the study's notes carry the columns the hourly CSV ignored", "[catalog][limits]") {
   testing::TempDir dir;
   std::string csv = read_text(fixture_path("hourly.csv"));
-  csv = replace_once(csv, "load_kw,source_kw,temp_c", "load_kw,source_kw,temp_c,irradiance_w_m2");
+  csv = replace_once(csv, "load_kw,source_kw,temp_c", "load_kw,source_kw,temp_c,logger_status");
   std::string rows;
   std::istringstream lines(csv);
   std::string line;
@@ -113,7 +113,7 @@ TEST_CASE("the study's notes carry the columns the hourly CSV ignored", "[catalo
   while (std::getline(lines, line)) {
     ++n;
     const bool data = !line.empty() && line[0] != '#' && line.find("load_kw") == std::string::npos;
-    if (line.find("irradiance") != std::string::npos) header_line = n;
+    if (line.find("logger_status") != std::string::npos) header_line = n;
     rows += line + (data ? ",0" : "") + "\n";
   }
   dir.write("hourly.csv", rows);
@@ -125,7 +125,7 @@ TEST_CASE("the study's notes carry the columns the hourly CSV ignored", "[catalo
   REQUIRE(loaded.notes.size() == 1);
   CHECK(loaded.notes[0].file == dir.path() + "/hourly.csv");
   CHECK(loaded.notes[0].line == header_line);
-  CHECK(loaded.notes[0].field == "irradiance_w_m2");
+  CHECK(loaded.notes[0].field == "logger_status");
 }
 
 }  // namespace

@@ -84,13 +84,13 @@ for r in rows:
     if r.startswith("#") or not r.strip():
         out.append(r)
     elif not header_done:
-        out.append(r + ",irradiance_w_m2"); header_done = True
+        out.append(r + ",logger_status"); header_done = True
     else:
         out.append(r + ",0")
 open(sys.argv[2], "w").write("\n".join(out) + "\n")
 PY
 for cmd in evaluate optimise; do
   expect_exit 0 -- "$STOWAGE" $cmd "$WORK/notes/study.yaml" &&
-    { grep -q 'irradiance_w_m2' "$WORK/err" || fail "$cmd shows no note for the ignored column: $(head -c 300 "$WORK/err")"; }
+    { grep -q 'logger_status' "$WORK/err" || fail "$cmd shows no note for the ignored column: $(head -c 300 "$WORK/err")"; }
 done
 finish
